@@ -1,0 +1,112 @@
+#!/bin/sh
+# bench/run.sh BIN [N] -- time volev on the reference scenarios.
+# Each scenario is run N times (default 20); the median of the solver's own
+# wall_time_s (from summary.csv) is compared with the 20 ms per-run target.
+# Informational only: the exit status is 0 whatever the timings are.
+set -u
+
+usage() { echo "usage: sh bench/run.sh path/to/volev [N]" >&2; exit 2; }
+if [ "$#" -lt 1 ] || [ "$#" -gt 2 ]; then usage; fi
+bin=$1
+n=${2:-20}
+case "$n" in ''|*[!0-9]*) usage ;; esac
+[ "$n" -ge 1 ] || usage
+
+case "$bin" in
+    */*)
+        [ -x "$bin" ] || { echo "bench: $bin is not an executable; run 'make' first" >&2; exit 2; }
+        bin="$(cd "$(dirname "$bin")" && pwd)/$(basename "$bin")"
+        ;;
+esac
+cd "$(dirname "$0")/.." || exit 2
+
+target_ms=20
+scenarios="scenarios/earth.cfg scenarios/demo.cfg"
+
+work=$(mktemp -d "${TMPDIR:-/tmp}/volev-bench.XXXXXX") || exit 2
+trap 'rm -rf "$work"' EXIT
+trap 'exit 130' INT TERM
+
+# value of NAME in a summary.csv (comment lines, header "name,value,unit", rows)
+summary_value() {
+    awk -F, -v key="$2" '
+        /^#/ { next }
+        !seen_header { seen_header = 1; next }
+        { name = $1; gsub(/^[ \t]+|[ \t\r]+$/, "", name) }
+        name == key { v = $2; gsub(/^[ \t]+|[ \t\r]+$/, "", v); print v; exit }
+    ' "$1"
+}
+
+# process wall clock in ns when date supports %N (GNU), else empty
+now_ns() {
+    t=$(date +%s%N 2>/dev/null)
+    case "$t" in *N*|'') echo "" ;; *) echo "$t" ;; esac
+}
+
+# median / min / max of the numbers in file $1 (one per line), scaled by $2
+stats_of() {
+    sort -g "$1" | awk -v k="$2" '
+        { v[NR] = $1 * k }
+        END {
+            if (NR == 0) { print "- - -"; exit }
+            m = (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2
+            printf "%.2f %.2f %.2f\n", m, v[1], v[NR]
+        }'
+}
+
+echo "volev benchmark: $bin, $n runs per scenario, target ${target_ms} ms per run"
+echo "(solver time = median of wall_time_s in summary.csv; process time = whole 'volev run' incl. start-up and output)"
+printf '%-22s %10s %9s %9s %10s %8s %10s  %s\n' \
+    scenario solver_ms min_ms max_ms process_ms steps rhs_evals result
+
+for scen in $scenarios; do
+    tag=$(basename "$scen" .cfg)
+    : >"$work/$tag.wall"
+    : >"$work/$tag.proc"
+    steps=-
+    rhs=-
+    err=""
+    if [ ! -r "$scen" ]; then
+        err="scenario file not found"
+    fi
+    i=0
+    while [ -z "$err" ] && [ "$i" -lt "$n" ]; do
+        i=$((i + 1))
+        out="$work/$tag-$i"
+        t0=$(now_ns)
+        if ! "$bin" run "$scen" -o "$out" >"$work/stdout" 2>"$work/stderr"; then
+            err="run $i failed: $(head -n 1 "$work/stderr")"
+            break
+        fi
+        t1=$(now_ns)
+        if [ -n "$t0" ] && [ -n "$t1" ]; then
+            echo $((t1 - t0)) >>"$work/$tag.proc"
+        fi
+        w=$(summary_value "$out/summary.csv" wall_time_s 2>/dev/null)
+        if [ -z "$w" ]; then
+            err="no wall_time_s in $out/summary.csv"
+            break
+        fi
+        echo "$w" >>"$work/$tag.wall"
+        steps=$(summary_value "$out/summary.csv" steps)
+        rhs=$(summary_value "$out/summary.csv" rhs_evaluations)
+        rm -rf "$out"
+    done
+
+    if [ -n "$err" ]; then
+        printf '%-22s %10s %9s %9s %10s %8s %10s  %s\n' "$scen" - - - - - - "FAIL ($err)"
+        continue
+    fi
+    # shellcheck disable=SC2046  # three numbers, split on purpose
+    set -- $(stats_of "$work/$tag.wall" 1000)
+    med=$1 lo=$2 hi=$3
+    if [ -s "$work/$tag.proc" ]; then
+        proc=$(stats_of "$work/$tag.proc" 0.000001 | cut -d' ' -f1)
+    else
+        proc=-
+    fi
+    result=$(awk -v m="$med" -v t="$target_ms" 'BEGIN { print (m + 0 <= t + 0) ? "PASS" : "FAIL" }')
+    printf '%-22s %10s %9s %9s %10s %8s %10s  %s\n' \
+        "$scen" "$med" "$lo" "$hi" "$proc" "${steps:--}" "${rhs:--}" "$result"
+done
+exit 0

@@ -1,0 +1,39 @@
+/* climate.h: the climate interface. A backend turns the instantaneous state
+ * (star, atmosphere) into surface temperature, ocean/vapour partition,
+ * stratospheric water and regime. Backends: hz_fit (climate_hzfit.c). */
+#ifndef VOLEV_CLIMATE_H
+#define VOLEV_CLIMATE_H
+
+#include "volev/env.h"
+#include "volev/scenario.h"
+
+typedef struct vl_climate vl_climate;  /* opaque; immutable during a run */
+
+vl_climate *vl_climate_new(const vl_scenario *sc, vl_status *st);
+void vl_climate_free(vl_climate *c);   /* accepts NULL */
+
+/* Fill env->t_surf_k, t_balance_k, vapour_kg, ocean_kg, mass_kg[VL_GAS_H2O], f_strat,
+ * s_runaway, s_moist and liquid for the regime env->regime. Before the call env holds
+ * star, instellation, s_eff, g, area_m2 and mass_kg of every gas but H2O; water_kg is
+ * the surface water reservoir. The caller then derives p_pa, x, p_surf_pa and
+ * m_mean_kg from mass_kg. The hz_fit greenhouse uses the CO2 partial pressure in dry
+ * air (no circular dependence on the vapour). Continuous in the state for a fixed
+ * regime. */
+void vl_climate_eval(const vl_climate *c, double water_kg, vl_env *env);
+
+/* The regime the conditions in env call for (env filled by vl_climate_eval). */
+int vl_climate_classify(const vl_climate *c, double water_kg, const vl_env *env);
+
+/* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
+enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,
+                   VL_HZ_EARLY_MARS, VL_NHZ };
+/* S_eff (units of VL_S_EARTH) of limit at teff_k, valid 2600-7200 K (clamped outside). */
+double vl_hz_seff_2013(int limit, double teff_k);
+/* Kopparapu et al. 2014 (ApJL 787:L29) runaway greenhouse S_eff for planet mass in
+ * Earth masses, interpolated linearly in log mass between the 0.1, 1 and 5 M_earth
+ * fits and clamped outside [0.1, 5]. */
+double vl_hz_seff_runaway_2014(double mass_mearth, double teff_k);
+
+const char *vl_regime_name(int regime);
+
+#endif

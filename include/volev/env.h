@@ -1,0 +1,61 @@
+/* env.h: what every process sees at one instant. Computed once per RHS call:
+ * star, then atmosphere from the reservoirs, then climate, then the process
+ * prepare hooks in registry order (which may publish to the escape fields). */
+#ifndef VOLEV_ENV_H
+#define VOLEV_ENV_H
+
+#include "volev/star.h"
+
+/* Climate regimes; the integer is written in the output `regime` column. */
+enum vl_regime {
+    VL_REGIME_DRY = 0,       /* less surface water than climate.dry_threshold_to */
+    VL_REGIME_FROZEN = 1,    /* mean surface temperature below freezing */
+    VL_REGIME_TEMPERATE = 2, /* liquid ocean, cold-trapped stratosphere */
+    VL_REGIME_MOIST = 3,     /* moist greenhouse: wet stratosphere */
+    VL_REGIME_RUNAWAY = 4,   /* runaway greenhouse: all water in the atmosphere */
+    VL_NREGIMES
+};
+
+/* Atmospheric gases (index into p_pa and x). */
+enum vl_gas { VL_GAS_H2O, VL_GAS_CO2, VL_GAS_N2, VL_GAS_O2, VL_GAS_H2, VL_NGASES };
+
+typedef struct vl_env {
+    double t_s;               /* stellar age, s */
+    vl_star_state star;       /* star at t_s */
+    double instellation;      /* orbit-averaged bolometric flux at the planet, W/m^2 */
+    double s_eff;             /* instellation / VL_S_EARTH */
+    double f_xuv;             /* orbit-averaged XUV flux at the planet, W/m^2 */
+    double lya_flux;          /* H2O-dissociating photons at the planet, m^-2 s^-1 */
+    double wind_pressure_pa;  /* stellar wind ram pressure at the planet, Pa */
+
+    double g;                 /* surface gravity, m/s^2 */
+    double area_m2;           /* planet surface area, m^2 */
+
+    double mass_kg[VL_NGASES];/* atmospheric mass of each gas (H2O: the vapour), kg */
+    double p_pa[VL_NGASES];   /* surface partial pressures x_i * p_surf, Pa */
+    double x[VL_NGASES];      /* mole fractions in the whole atmosphere */
+    double p_surf_pa;         /* total surface pressure, thin shell: sum(M_i) g / area, Pa */
+    double m_mean_kg;         /* mean molecular mass of the atmosphere, kg */
+    double m_background_kg;   /* mean molecular mass of the non-hydrogen gases (N2, CO2, O2; H2O if none), kg */
+    double vapour_kg;         /* surface water held as vapour, kg */
+    double ocean_kg;          /* surface water held as liquid or ice, kg */
+
+    int regime;               /* enum vl_regime in force */
+    double t_surf_k;          /* surface temperature, K */
+    double t_balance_k;       /* temperature from the temperate energy balance, K (all regimes) */
+    double f_strat;           /* stratospheric total-hydrogen mixing ratio (H2O + H2) */
+    double s_runaway;         /* runaway-greenhouse threshold, in units of VL_S_EARTH */
+    double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
+    int liquid;               /* 1 if a liquid ocean is present */
+
+    /* Upper-atmosphere escape budget, published by prepare hooks (0 when off). */
+    double esc_mass_flux;     /* energy-limited mass flux, kg m^-2 s^-1 (surface-area normalised) */
+    double esc_h_diffusion;   /* diffusion-limited H flux, atoms m^-2 s^-1 */
+    double esc_h_flux;        /* H escape flux the budget allows, atoms m^-2 s^-1 */
+    double esc_o_flux;        /* O escape flux dragged with it, atoms m^-2 s^-1 */
+    double esc_water_share;   /* fraction of the homopause hydrogen carried by H2O */
+    int esc_energy_limited;   /* 1 if the energy limit binds, 0 if diffusion */
+    double photolysis_mol_s;  /* net H2O photolysed (its H escapes), mol/s */
+} vl_env;
+
+#endif

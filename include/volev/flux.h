@@ -1,0 +1,49 @@
+/* flux.h: the only way a process changes the state. Transfers move mass between
+ * reservoirs of identical element make-up; reactions have fixed stoichiometry
+ * checked for element balance at start-up. Conservation of H, C, N, O is thus
+ * structural. Outflows are ramped to zero inside each source's floor band
+ * (reservoir.h), so masses never go negative and the RHS stays continuous. */
+#ifndef VOLEV_FLUX_H
+#define VOLEV_FLUX_H
+
+#include <stddef.h>
+#include "volev/reservoir.h"
+
+#define VL_REACTION_MAX 6
+
+typedef struct vl_reaction {
+    const char *name;          /* e.g. "2 H2O -> 2 H2 + O2" */
+    int n;                     /* terms used */
+    int res[VL_REACTION_MAX];  /* reservoir of each term */
+    double nu[VL_REACTION_MAX];/* stoichiometric coefficient: < 0 consumed, > 0 produced */
+} vl_reaction;
+
+typedef struct vl_flux {
+    const double *y;           /* state, kg (borrowed) */
+    double *dydt;              /* accumulated tendencies, kg/s (borrowed) */
+    double *columns;           /* per-process output columns, kg/s, or NULL (borrowed) */
+    size_t col_base;           /* first column of the process being evaluated */
+} vl_flux;
+
+/* Depletion ramp of reservoir r at mass m: 1 above its floor, m/floor below it (negative
+ * for a negative mass, which reverses the flow and restores the reservoir to zero). */
+double vl_flux_ramp(int r, double m_kg);
+
+/* Move kg_s (>= 0) from reservoir `from` to `to` (same element make-up). The applied
+ * rate (after the ramp) is added to the process's column col (if col >= 0) and returned. */
+double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col);
+
+/* Run reaction r at extent rate mol_s (>= 0): reservoir i changes by nu_i * M_i * rate.
+ * Ramped by every consumed reservoir. Column col gets the mass rate of the first
+ * term, kg/s. Returns the applied extent rate, mol/s. */
+double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col);
+
+/* 0 if r balances every element to 1e-12 relative; else nonzero with a reason in why. */
+int vl_reaction_check(const vl_reaction *r, char *why, size_t n);
+/* 0 if a move between the two reservoirs conserves every element. */
+int vl_move_check(int from, int to);
+
+/* Element inventory of the state: kg of each element over all reservoirs (incl. space). */
+void vl_ledger_totals(const double *y, double out[VL_NELEMENTS]);
+
+#endif

@@ -1,0 +1,31 @@
+/* integrate.h: the GSL driver. Runs one history from run.start to run.end with
+ * events located by bisection, and hands rows and events to the caller. */
+#ifndef VOLEV_INTEGRATE_H
+#define VOLEV_INTEGRATE_H
+
+#include "volev/env.h"
+#include "volev/model.h"
+
+typedef struct vl_run_stats {
+    long rhs_calls;            /* right-hand-side evaluations, Jacobian included */
+    long steps;                /* accepted steps */
+    long events;               /* events logged */
+    double wall_s;             /* wall-clock time */
+    double y_final[VL_NRES];
+    double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
+    double time_in_regime_s[VL_NREGIMES];
+    double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
+} vl_run_stats;
+
+typedef struct vl_run_sink {
+    void *ctx;
+    /* One output row. columns has m->ncolumns entries; dydt VL_NRES. */
+    int (*row)(void *ctx, double t_s, const double *y, const double *dydt, const vl_env *env,
+               const double *columns, vl_status *st);
+    /* One event: name (e.g. "runaway_onset") and free-text detail. */
+    int (*event)(void *ctx, double t_s, const char *name, const char *detail, vl_status *st);
+} vl_run_sink;
+
+int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats, vl_status *st);
+
+#endif

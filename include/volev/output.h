@@ -1,0 +1,31 @@
+/* output.h: writers for series.csv, events.csv, summary.csv and
+ * scenario.resolved.cfg. Files are written under temporary names and renamed only
+ * when the whole run succeeded; on failure nothing is left behind. */
+#ifndef VOLEV_OUTPUT_H
+#define VOLEV_OUTPUT_H
+
+#include "volev/integrate.h"
+#include "volev/model.h"
+#include "volev/scenario.h"
+
+typedef struct vl_output vl_output;
+
+/* Prepare dir (created if missing, and then removed again on abort). */
+vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st);
+
+/* The row and event callbacks for vl_integrate. */
+vl_run_sink vl_output_sink(vl_output *o);
+
+/* Write the summary and resolved scenario, then rename every file into place and free o. */
+int vl_output_commit(vl_output *o, const vl_run_stats *stats, vl_status *st);
+
+/* Remove every temporary file (and dir, if created here) and free o. Accepts NULL. */
+void vl_output_abort(vl_output *o);
+
+/* FNV-1a 64-bit hash of the resolved scenario text, as 16 hex digits in buf[17]. */
+int vl_output_scenario_hash(const vl_scenario *sc, char buf[17], vl_status *st);
+
+/* Version string "VERSION (git REV)". */
+const char *vl_version(void);
+
+#endif

@@ -1,0 +1,69 @@
+/* reservoir.h: the state vector. Every reservoir is a mass in kg of one species;
+ * the layout is one X-macro list, so adding a reservoir is one line here. */
+#ifndef VOLEV_RESERVOIR_H
+#define VOLEV_RESERVOIR_H
+
+/* Elements tracked by the ledger. */
+enum vl_element { VL_EL_H, VL_EL_C, VL_EL_N, VL_EL_O, VL_NELEMENTS };
+
+/* Species: X(ID, name, nH, nC, nN, nO) -- atoms per formula unit. */
+#define VL_SPECIES(X)            \
+    X(H2O, "H2O", 2, 0, 0, 1)    \
+    X(CO2, "CO2", 0, 1, 0, 2)    \
+    X(N2, "N2", 0, 0, 2, 0)      \
+    X(H2, "H2", 2, 0, 0, 0)      \
+    X(O2, "O2", 0, 0, 0, 2)      \
+    X(H, "H", 1, 0, 0, 0)        \
+    X(C, "C", 0, 1, 0, 0)        \
+    X(N, "N", 0, 0, 1, 0)        \
+    X(O, "O", 0, 0, 0, 1)
+
+enum vl_species {
+#define VL_X(id, name, h, c, n, o) VL_SP_##id,
+    VL_SPECIES(VL_X)
+#undef VL_X
+    VL_NSPECIES
+};
+
+/* Reservoirs: X(ID, name, species, floor_kg).
+ * floor_kg is the depletion band: outflows from a reservoir are ramped linearly to
+ * zero as its mass falls below floor_kg, so no mass goes negative and the RHS stays
+ * continuous; a reservoir below its floor is "exhausted". Carbon held in rock
+ * (carbonate, mantle) is counted as CO2 equivalent. */
+#define VL_RESERVOIRS(X)                                   \
+    X(WATER, "surface_water", VL_SP_H2O, 1.0e9)            \
+    X(MANTLE_WATER, "mantle_water", VL_SP_H2O, 1.0e9)      \
+    X(CO2, "atm_co2", VL_SP_CO2, 1.0e6)                    \
+    X(CARBONATE, "carbonate_rock", VL_SP_CO2, 1.0e6)       \
+    X(MANTLE_C, "mantle_carbon", VL_SP_CO2, 1.0e6)         \
+    X(N2, "atm_n2", VL_SP_N2, 1.0e6)                       \
+    X(MANTLE_N, "mantle_nitrogen", VL_SP_N2, 1.0e6)        \
+    X(H2, "atm_h2", VL_SP_H2, 1.0e3)                       \
+    X(O2, "atm_o2", VL_SP_O2, 1.0e3)                       \
+    X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3)            \
+    X(SPACE_H, "space_h", VL_SP_H, 1.0e3)                  \
+    X(SPACE_C, "space_c", VL_SP_C, 1.0e3)                  \
+    X(SPACE_N, "space_n", VL_SP_N, 1.0e3)                  \
+    X(SPACE_O, "space_o", VL_SP_O, 1.0e3)
+
+enum vl_reservoir {
+#define VL_X(id, name, sp, fl) VL_R_##id,
+    VL_RESERVOIRS(VL_X)
+#undef VL_X
+    VL_NRES
+};
+
+/* Molar mass of a species, kg/mol, from the standard atomic weights. */
+double vl_species_molar_mass(int species);
+/* Atoms of element el per formula unit of species. */
+int vl_species_atoms(int species, int el);
+const char *vl_species_name(int species);
+
+const char *vl_reservoir_name(int r);
+int vl_reservoir_species(int r);
+double vl_reservoir_floor(int r);       /* kg */
+/* Mass fraction of element el in reservoir r (kg element per kg reservoir). */
+double vl_reservoir_element_fraction(int r, int el);
+const char *vl_element_name(int el);
+
+#endif

@@ -1,0 +1,139 @@
+/* scenario.h: the scenario as plain data (SI) and its libconfig loader.
+ * Filled only by the loader; never modified during a run. */
+#ifndef VOLEV_SCENARIO_H
+#define VOLEV_SCENARIO_H
+
+#include <stdio.h>
+#include "volev/params.h"
+#include "volev/status.h"
+
+enum vl_lum_model { VL_LUM_SUN_ANALYTIC, VL_LUM_CONSTANT, VL_LUM_TABLE, VL_LUM_CONTRACTING };
+#define VL_LUM_CHOICES "sun_analytic|constant|table|contracting"
+enum vl_xuv_model { VL_XUV_RATIO, VL_XUV_SOLAR_RIBAS };
+#define VL_XUV_CHOICES "ratio|solar_ribas"
+enum vl_climate_model { VL_CLIMATE_HZ_FIT };
+#define VL_CLIMATE_CHOICES "hz_fit"
+enum vl_runaway_fit { VL_RUNAWAY_K2014, VL_RUNAWAY_K2013 };
+#define VL_RUNAWAY_CHOICES "k2014_mass|k2013"
+
+typedef struct vl_star_params {
+    double mass_kg;            /* stellar mass */
+    double teff_k;             /* effective temperature (all models but a table with Teff) */
+    int luminosity_model;      /* enum vl_lum_model */
+    double luminosity_w;       /* constant: L; sun_analytic: L at present_age; contracting: main-sequence L */
+    double present_age_s;      /* sun_analytic: age at which L = luminosity_w */
+    double contraction_end_s;  /* contracting: arrival on the main sequence */
+    char track_file[1024];     /* table: CSV path, resolved against the scenario folder */
+    int xuv_model;             /* enum vl_xuv_model */
+    double xuv_sat_ratio;      /* ratio: L_XUV/L_bol while saturated */
+    double xuv_sat_end_s;      /* ratio: end of saturation */
+    double xuv_decay_exp;      /* ratio: beta in (t/t_sat)^-beta */
+    double lya_photon_flux;    /* photons m^-2 s^-1 at 1 au for the present Sun; scaled like XUV */
+    double wind_mdot_kg_s;     /* stellar wind mass-loss rate at wind_ref_age_s */
+    double wind_speed_m_s;     /* wind speed at the planet */
+    double wind_ref_age_s;     /* age at which wind_mdot applies */
+    double wind_decay_exp;     /* Mdot ~ t^-exp */
+} vl_star_params;
+
+typedef struct vl_planet_params {
+    double mass_kg;
+    double radius_m;
+    double orbit_m;            /* semi-major axis */
+    double eccentricity;
+} vl_planet_params;
+
+typedef struct vl_inventory_params {
+    double surface_water_kg;   /* file: TO */
+    double mantle_water_kg;    /* file: TO */
+    double co2_pa;             /* file: bar (pressure the gas would exert alone) */
+    double n2_pa;
+    double o2_pa;
+    double h2_pa;
+    double carbonate_pa;       /* carbonate rock as CO2-equivalent pressure */
+    double mantle_co2_pa;      /* mantle carbon as CO2-equivalent pressure */
+    double mantle_n2_pa;       /* mantle nitrogen as N2-equivalent pressure */
+} vl_inventory_params;
+
+typedef struct vl_climate_params {
+    int model;                 /* enum vl_climate_model */
+    double bond_albedo;
+    double greenhouse_ref_k;   /* greenhouse warming at the reference CO2 */
+    double co2_doubling_k;     /* equilibrium warming per doubling of pCO2, K */
+    double co2_ref_pa;         /* reference CO2 partial pressure (mole fraction x surface pressure), Pa */
+    double strat_h2o_temperate;/* stratospheric total-hydrogen mixing ratio, temperate/frozen */
+    double strat_h2o_moist;    /* the same in the moist greenhouse */
+    double runaway_surface_temp_k; /* surface temperature of the hot steam state */
+    double freeze_temp_k;      /* below this mean surface temperature the ocean is frozen */
+    double dry_threshold_kg;   /* file: TO; less surface water than this = dry */
+    int runaway_fit;           /* enum vl_runaway_fit */
+} vl_climate_params;
+
+typedef struct vl_run_params {
+    double start_s;            /* stellar age at start */
+    double end_s;              /* stellar age at end */
+    double rel_tol;            /* integrator relative tolerance */
+    double abs_tol_kg;         /* integrator absolute tolerance per reservoir */
+    long log_points;           /* output rows log-spaced in age */
+    long linear_points;        /* output rows linearly spaced in age */
+    double event_tol_s;        /* event times located to within this */
+    long max_steps;            /* give up after this many accepted steps */
+} vl_run_params;
+
+/* One process's switch and parameter block (layout owned by the process file). */
+typedef struct vl_process_cfg {
+    int enabled;
+    void *params;              /* owned; size = process->params_size */
+} vl_process_cfg;
+
+typedef struct vl_scenario {
+    char path[1024];           /* scenario file as given */
+    char name[256];            /* file name without folder and extension */
+    vl_star_params star;
+    vl_planet_params planet;
+    vl_inventory_params inventory;
+    vl_climate_params climate;
+    vl_run_params run;
+    vl_process_cfg *proc;      /* owned; one per registered process, registry order */
+    unsigned char *origin;     /* owned; enum vl_origin per parameter, global index order */
+    int *line;                 /* owned; line in the file per parameter (0 = not in file) */
+    double *file_value;        /* owned; REAL parameters: the value in file units as read
+                                  (stored SI = file_value * to_si), so the resolved file
+                                  shows it as written; global index order */
+} vl_scenario;
+
+/* The core parameter table (star, planet, inventory, climate, run); offsets into vl_scenario. */
+extern const vl_param vl_core_params[];
+extern const size_t vl_core_nparams;
+
+/* Total number of parameters (core + every process's switch and table), and
+ * global-index iteration: fills *p, *base (block the offset applies to) and
+ * *prefix ("" for core, "processes.<name>." for a process). Switches are
+ * reported as a synthetic BOOL parameter "enabled". */
+size_t vl_param_count(void);
+void vl_param_at(const vl_scenario *sc, size_t i, const vl_param **p, void **base,
+                 const char **prefix);
+
+/* Allocate a scenario holding every default. Returns NULL on allocation failure. */
+vl_scenario *vl_scenario_new(void);
+void vl_scenario_free(vl_scenario *sc);
+
+/* Load path into a new scenario; then apply overrides "PATH=VALUE" in order;
+ * then cross-check (required keys, needs, consistency). On error returns NULL
+ * and fills st with file, line and message. */
+vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, size_t n_overrides,
+                              vl_status *st);
+
+/* Apply one "PATH=VALUE" override to sc. */
+int vl_scenario_override(vl_scenario *sc, const char *assignment, vl_status *st);
+
+/* Write every parameter (after defaults and overrides) as a libconfig scenario that
+ * loads back to identical values (reals printed with %.17g). */
+int vl_scenario_write_resolved(const vl_scenario *sc, FILE *out, vl_status *st);
+
+/* Print every resolved parameter with unit and origin (the `validate` listing). */
+void vl_scenario_print(const vl_scenario *sc, FILE *out);
+
+/* Print every process and the core groups: parameters, units, defaults, bounds, references. */
+void vl_params_print_reference(FILE *out);
+
+#endif

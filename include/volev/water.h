@@ -1,0 +1,21 @@
+/* water.h: water thermodynamics used by the climate. */
+#ifndef VOLEV_WATER_H
+#define VOLEV_WATER_H
+
+#define VL_WATER_TC_K 647.096      /* critical temperature (IAPWS-95) */
+#define VL_WATER_PC_PA 22.064e6    /* critical pressure (IAPWS-95) */
+#define VL_WATER_TTRIPLE_K 273.16  /* triple point (IAPWS-95) */
+
+/* Saturation vapour pressure over liquid water, Pa, 273.16 K <= T <= T_c
+ * (Wagner & Pruss 1993, J. Phys. Chem. Ref. Data 22:783, eq. 2.5). */
+double vl_water_psat_liquid(double t_k);
+
+/* Saturation vapour pressure over ice Ih, Pa, T > 110 K
+ * (Murphy & Koop 2005, QJRMS 131:1539, eq. 7). */
+double vl_water_psat_ice(double t_k);
+
+/* Saturation pressure over the stable condensed phase: ice below the triple point,
+ * liquid up to T_c; above T_c returns +INFINITY (no condensed phase). */
+double vl_water_psat(double t_k);
+
+#endif

@@ -1,0 +1,42 @@
+#!/bin/sh
+# deps.sh -- make sure the Debian packages needed to build, test and render
+# volev are installed.  Quiet when everything is present.  As root, missing
+# packages are installed with apt-get; otherwise the command to run is printed.
+set -eu
+
+PACKAGES="gcc make pkg-config libgsl-dev libconfig-dev check gnuplot-nox"
+
+if ! command -v dpkg-query >/dev/null 2>&1; then
+    echo "deps.sh: dpkg-query not found (not a Debian-based system?)." >&2
+    echo "deps.sh: install the equivalents of these Debian packages by hand:" >&2
+    echo "    $PACKAGES" >&2
+    exit 1
+fi
+
+missing=""
+for pkg in $PACKAGES; do
+    status=$(dpkg-query -W -f='${Status}' "$pkg" 2>/dev/null || true)
+    case "$status" in
+        *" ok installed") ;;
+        *) missing="$missing $pkg" ;;
+    esac
+done
+missing=${missing# }
+
+if [ -z "$missing" ]; then
+    exit 0
+fi
+
+if [ "$(id -u)" -eq 0 ]; then
+    echo "deps.sh: installing missing packages: $missing" >&2
+    apt-get update
+    # $missing is a space-separated list of package names: split it on purpose
+    # shellcheck disable=SC2086
+    DEBIAN_FRONTEND=noninteractive apt-get install -y --no-install-recommends $missing
+    exit 0
+fi
+
+echo "deps.sh: missing packages: $missing" >&2
+echo "deps.sh: install them with:" >&2
+echo "sudo apt-get install -y $missing" >&2
+exit 1

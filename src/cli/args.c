@@ -1,0 +1,42 @@
+/* args.c: the argument grammar shared by run and validate:
+ * SCENARIO [-o DIR] [--set KEY=VALUE]... */
+#include "args.h"
+
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli.h"
+
+int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
+{
+    const char *cmd = argv[0];
+    memset(a, 0, sizeof *a);
+    a->sets = calloc((size_t)argc, sizeof *a->sets);
+    if (!a->sets)
+        return vl_cli_usage_error(cmd, "out of memory");
+    for (int i = 1; i < argc; i++) {
+        const char *s = argv[i];
+        if (strcmp(s, "--set") == 0 || strcmp(s, "-s") == 0) {
+            if (i + 1 >= argc)
+                return vl_cli_usage_error(cmd, "%s needs KEY=VALUE", s);
+            if (!strchr(argv[i + 1], '='))
+                return vl_cli_usage_error(cmd, "%s '%s': expected KEY=VALUE", s, argv[i + 1]);
+            a->sets[a->nsets++] = argv[++i];
+        } else if (allow_out && (strcmp(s, "-o") == 0 || strcmp(s, "--output") == 0)) {
+            if (i + 1 >= argc)
+                return vl_cli_usage_error(cmd, "%s needs a folder", s);
+            a->out = argv[++i];
+        } else if (s[0] == '-' && s[1] != '\0') {
+            return vl_cli_usage_error(cmd, "unknown option '%s'", s);
+        } else if (a->scenario) {
+            return vl_cli_usage_error(cmd, "more than one scenario ('%s' and '%s')", a->scenario, s);
+        } else {
+            a->scenario = s;
+        }
+    }
+    if (!a->scenario)
+        return vl_cli_usage_error(cmd, "missing SCENARIO file");
+    return 0;
+}
+
+void vl_cli_args_free(vl_cli_args *a) { free(a->sets); }

@@ -1,0 +1,18 @@
+/* args.h: parsed arguments of run and validate. */
+#ifndef VOLEV_CLI_ARGS_H
+#define VOLEV_CLI_ARGS_H
+
+#include <stddef.h>
+
+typedef struct vl_cli_args {
+    const char *scenario;  /* borrowed from argv */
+    const char *out;       /* -o DIR or NULL */
+    const char **sets;     /* owned array of borrowed "KEY=VALUE" */
+    size_t nsets;
+} vl_cli_args;
+
+/* Parse argv[1..]; argv[0] is the subcommand name. 0 or VL_ERR_USAGE (message printed). */
+int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a);
+void vl_cli_args_free(vl_cli_args *a);
+
+#endif

@@ -1,0 +1,18 @@
+/* cli.h: the subcommands of the volev program. Each returns an exit code
+ * (enum vl_code) and prints errors as "volev: FILE:LINE: message". */
+#ifndef VOLEV_CLI_H
+#define VOLEV_CLI_H
+
+#include "volev/status.h"
+
+int vl_cli_run(int argc, char **argv);
+int vl_cli_validate(int argc, char **argv);
+int vl_cli_processes(int argc, char **argv);
+int vl_cli_plot(int argc, char **argv);
+
+/* Print st to stderr as "volev: FILE:LINE: message" and return its code. */
+int vl_cli_report(const vl_status *st);
+/* Print a usage error to stderr and return VL_ERR_USAGE. */
+int vl_cli_usage_error(const char *cmd, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+
+#endif

@@ -1,0 +1,70 @@
+/* main.c: the volev command line: subcommand dispatch, --help, --version. */
+#include <stdarg.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "cli.h"
+#include "volev/output.h"
+
+static const struct {
+    const char *name;
+    int (*fn)(int, char **);
+    const char *usage;
+} commands[] = {
+    {"run", vl_cli_run, "run SCENARIO [-o DIR] [--set KEY=VALUE]...  simulate one history"},
+    {"validate", vl_cli_validate, "validate SCENARIO [--set KEY=VALUE]...  check a scenario, list every parameter"},
+    {"processes", vl_cli_processes, "processes  list processes and parameters with units, defaults, bounds, references"},
+    {"plot", vl_cli_plot, "plot DIR [--format png|pdf|svg]  render the history figure of a run"},
+    {NULL, NULL, NULL},
+};
+
+static void help(FILE *f)
+{
+    fprintf(f, "volev %s: volatile and atmosphere evolution of rocky planets\n\n"
+               "usage: volev COMMAND [ARGS]\n",
+            vl_version());
+    for (int i = 0; commands[i].name; i++)
+        fprintf(f, "  volev %s\n", commands[i].usage);
+    fprintf(f, "  volev --help | --version\n\n"
+               "exit codes: 0 success, 1 internal error, 2 bad command line,\n"
+               "  3 bad scenario or input data, 4 integration failed, 5 file I/O error,\n"
+               "  6 external program (gnuplot) missing or failed\n"
+               "See volev(1) and docs/model.md.\n");
+}
+
+int vl_cli_report(const vl_status *st)
+{
+    char buf[VL_MSG_MAX + VL_PATH_MAX + 32];
+    vl_status_format(st, buf, sizeof buf);
+    fprintf(stderr, "volev: %s\n", buf);
+    return st->code;
+}
+
+int vl_cli_usage_error(const char *cmd, const char *fmt, ...)
+{
+    va_list ap;
+    fprintf(stderr, "volev: %s%s", cmd ? cmd : "", cmd ? ": " : "");
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fprintf(stderr, "\nTry 'volev --help'.\n");
+    return VL_ERR_USAGE;
+}
+
+int main(int argc, char **argv)
+{
+    if (argc < 2)
+        return vl_cli_usage_error(NULL, "missing command");
+    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0) {
+        help(stdout);
+        return VL_OK;
+    }
+    if (strcmp(argv[1], "--version") == 0) {
+        printf("volev %s\n", vl_version());
+        return VL_OK;
+    }
+    for (int i = 0; commands[i].name; i++)
+        if (strcmp(argv[1], commands[i].name) == 0)
+            return commands[i].fn(argc - 1, argv + 1);
+    return vl_cli_usage_error(NULL, "unknown command '%s'", argv[1]);
+}

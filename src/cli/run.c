@@ -1,0 +1,73 @@
+/* run.c: `volev run SCENARIO [-o DIR] [--set KEY=VALUE]...` */
+#include <errno.h>
+#include <stdio.h>
+#include <string.h>
+#include <sys/stat.h>
+
+#include "args.h"
+#include "cli.h"
+#include "volev/integrate.h"
+#include "volev/output.h"
+#include "volev/units.h"
+
+/* Default output folder: the scenario's name, or NAME.1, NAME.2, ... if taken. */
+static int default_dir(const vl_scenario *sc, char *buf, size_t n)
+{
+    struct stat sb;
+    snprintf(buf, n, "%s", sc->name);
+    for (int k = 1; k < 10000 && stat(buf, &sb) == 0; k++)
+        snprintf(buf, n, "%s.%d", sc->name, k);
+    return stat(buf, &sb) == 0 ? -1 : 0;
+}
+
+static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
+{
+    const double *y = s->y_final;
+    printf("final surface water: %.6g TO\n", (y[VL_R_WATER] > 0 ? y[VL_R_WATER] : 0) / VL_TO_KG);
+    printf("water lost to space: %.6g TO\n",
+           y[VL_R_SPACE_H] / (2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O)) / VL_TO_KG);
+    printf("O2 left in the atmosphere: %.6g bar\n",
+           (y[VL_R_O2] > 0 ? y[VL_R_O2] : 0) * m->pa_per_kg / VL_BAR);
+    printf("steps %ld, RHS evaluations %ld, events %ld, %.3f s\n", s->steps, s->rhs_calls,
+           s->events, s->wall_s);
+    printf("output: %s\n", dir);
+}
+
+int vl_cli_run(int argc, char **argv)
+{
+    vl_cli_args a;
+    int rc = vl_cli_parse_args(argc, argv, 1, &a);
+    if (rc) {
+        vl_cli_args_free(&a);
+        return rc;
+    }
+    vl_status st;
+    vl_status_clear(&st);
+    vl_scenario *sc = vl_scenario_load(a.scenario, a.sets, a.nsets, &st);
+    vl_model *m = sc ? vl_model_new(sc, &st) : NULL;
+    vl_output *out = NULL;
+    char dir[VL_PATH_MAX];
+    if (m) {
+        if (a.out)
+            snprintf(dir, sizeof dir, "%s", a.out);
+        else if (default_dir(sc, dir, sizeof dir) != 0)
+            vl_fail(&st, VL_ERR_IO, NULL, 0, "no free output folder name for '%s'", sc->name);
+        if (st.code == VL_OK)
+            out = vl_output_open(dir, m, &st);
+    }
+    if (out) {
+        vl_run_sink sink = vl_output_sink(out);
+        vl_run_stats stats;
+        if (vl_integrate(m, &sink, &stats, &st) == VL_OK) {
+            if (vl_output_commit(out, &stats, &st) == VL_OK)
+                report(m, &stats, dir);
+        } else {
+            vl_output_abort(out);
+        }
+    }
+    rc = st.code == VL_OK ? VL_OK : vl_cli_report(&st);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+    vl_cli_args_free(&a);
+    return rc;
+}

@@ -1,0 +1,37 @@
+/* climate_internal.h: the contract between climate.c (interface, dispatch, shared
+ * water partition) and the climate backends. Not installed; src/ only. */
+#ifndef VOLEV_CLIMATE_INTERNAL_H
+#define VOLEV_CLIMATE_INTERNAL_H
+
+#include "volev/climate.h"
+
+/* A backend: one constant table per enum vl_climate_model, listed in climate.c. */
+typedef struct vl_climate_backend {
+    const char *name;   /* its choice name in climate.model */
+    /* Backend state for sc (copied what it needs), NULL with st filled on error. */
+    void *(*create)(const vl_scenario *sc, vl_status *st);
+    void (*destroy)(void *state);   /* accepts NULL */
+    /* The vl_climate_eval contract (climate.h). */
+    void (*eval)(const void *state, double water_kg, vl_env *env);
+    /* The vl_climate_classify contract (climate.h). */
+    int (*classify)(const void *state, double water_kg, const vl_env *env);
+} vl_climate_backend;
+
+extern const vl_climate_backend vl_hzfit_backend;   /* climate_hzfit.c */
+
+/* The dry part of the atmosphere: every gas in env->mass_kg except H2O. */
+typedef struct vl_dry_air {
+    double mass_kg;     /* total dry mass, kg */
+    double mol;         /* total dry moles, mol */
+    double co2_mol;     /* CO2 moles, mol */
+} vl_dry_air;
+
+/* Sum the dry gases of env->mass_kg (molar masses from reservoir.h). */
+void vl_climate_dry_air(const vl_env *env, vl_dry_air *air);
+
+/* Vapour mass (kg) whose partial pressure x_v * p_surf (thin shell, vapour + dry air)
+ * equals p_sat_pa, capped at water_kg; continuous in every argument. */
+double vl_climate_saturated_vapour(double p_sat_pa, double g, double area_m2,
+                                   const vl_dry_air *air, double water_kg);
+
+#endif

@@ -1,0 +1,153 @@
+/* model.c: builds a model from a scenario and assembles the right-hand side:
+ * star -> atmosphere -> climate -> prepare hooks -> process rates (model.h). */
+#include "volev/model.h"
+
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "volev/units.h"
+
+vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
+{
+    vl_model *m = calloc(1, sizeof *m);
+    if (!m) {
+        vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        return NULL;
+    }
+    m->sc = sc;
+    m->g = VL_G_NEWTON * sc->planet.mass_kg / (sc->planet.radius_m * sc->planet.radius_m);
+    m->area_m2 = 4.0 * VL_PI * sc->planet.radius_m * sc->planet.radius_m;
+    m->pa_per_kg = m->g / m->area_m2;
+    m->star = vl_star_new(&sc->star, sc->run.start_s, sc->run.end_s, st);
+    if (!m->star)
+        goto fail;
+    m->climate = vl_climate_new(sc, st);
+    if (!m->climate)
+        goto fail;
+    size_t n = 0;
+    for (size_t i = 0; i < vl_nprocesses; i++)
+        if (sc->proc[i].enabled)
+            n += vl_processes[i]->ncolumns;
+    m->ncolumns = n;
+    m->col_base = calloc(vl_nprocesses, sizeof *m->col_base);
+    m->col_name = calloc(n ? n : 1, sizeof *m->col_name);
+    m->col_proc = calloc(n ? n : 1, sizeof *m->col_proc);
+    if (!m->col_base || !m->col_name || !m->col_proc) {
+        vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        goto fail;
+    }
+    n = 0;
+    for (size_t i = 0; i < vl_nprocesses; i++) {
+        m->col_base[i] = n;
+        if (!sc->proc[i].enabled)
+            continue;
+        for (size_t c = 0; c < vl_processes[i]->ncolumns; c++, n++) {
+            m->col_name[n] = vl_processes[i]->columns[c];
+            m->col_proc[n] = i;
+        }
+    }
+    return m;
+fail:
+    vl_model_free(m);
+    return NULL;
+}
+
+void vl_model_free(vl_model *m)
+{
+    if (!m)
+        return;
+    vl_star_free(m->star);
+    vl_climate_free(m->climate);
+    free(m->col_base);
+    free(m->col_name);
+    free(m->col_proc);
+    free(m);
+}
+
+void vl_model_initial_state(const vl_model *m, double y[VL_NRES])
+{
+    const vl_inventory_params *in = &m->sc->inventory;
+    double kg_per_pa = 1.0 / m->pa_per_kg;
+    memset(y, 0, VL_NRES * sizeof y[0]);
+    y[VL_R_WATER] = in->surface_water_kg;
+    y[VL_R_MANTLE_WATER] = in->mantle_water_kg;
+    y[VL_R_CO2] = in->co2_pa * kg_per_pa;
+    y[VL_R_N2] = in->n2_pa * kg_per_pa;
+    y[VL_R_O2] = in->o2_pa * kg_per_pa;
+    y[VL_R_H2] = in->h2_pa * kg_per_pa;
+    y[VL_R_CARBONATE] = in->carbonate_pa * kg_per_pa;
+    y[VL_R_MANTLE_C] = in->mantle_co2_pa * kg_per_pa;
+    y[VL_R_MANTLE_N] = in->mantle_n2_pa * kg_per_pa;
+}
+
+static double pos(double v) { return v > 0.0 ? v : 0.0; }
+
+/* Mole fractions, partial pressures and mean masses from the gas masses. */
+static void finish_atmosphere(const vl_model *m, vl_env *env)
+{
+    static const int species[VL_NGASES] = {VL_SP_H2O, VL_SP_CO2, VL_SP_N2, VL_SP_O2, VL_SP_H2};
+    double mol[VL_NGASES], mass = 0.0, moles = 0.0, bg_mass = 0.0, bg_mol = 0.0;
+    for (int i = 0; i < VL_NGASES; i++) {
+        mol[i] = env->mass_kg[i] / vl_species_molar_mass(species[i]);
+        mass += env->mass_kg[i];
+        moles += mol[i];
+        if (i == VL_GAS_CO2 || i == VL_GAS_N2 || i == VL_GAS_O2) {
+            bg_mass += env->mass_kg[i];
+            bg_mol += mol[i];
+        }
+    }
+    env->p_surf_pa = mass * m->pa_per_kg;
+    for (int i = 0; i < VL_NGASES; i++) {
+        env->x[i] = moles > 0.0 ? mol[i] / moles : 0.0;
+        env->p_pa[i] = env->x[i] * env->p_surf_pa;
+    }
+    double m_h2o = vl_species_molar_mass(VL_SP_H2O) / VL_AVOGADRO;
+    env->m_mean_kg = moles > 0.0 ? mass / moles / VL_AVOGADRO : m_h2o;
+    env->m_background_kg = bg_mol > 0.0 ? bg_mass / bg_mol / VL_AVOGADRO : m_h2o;
+}
+
+void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl_env *env)
+{
+    const vl_scenario *sc = m->sc;
+    double a = sc->planet.orbit_m, e = sc->planet.eccentricity;
+    memset(env, 0, sizeof *env);
+    env->t_s = t_s;
+    vl_star_eval(m->star, t_s, &env->star);
+    env->instellation = vl_star_orbit_flux(env->star.l_bol_w, a, e);
+    env->s_eff = env->instellation / VL_S_EARTH;
+    env->f_xuv = vl_star_orbit_flux(env->star.l_xuv_w, a, e);
+    env->lya_flux = env->star.lya_flux_1au * (VL_AU / a) * (VL_AU / a) / sqrt(1.0 - e * e);
+    env->wind_pressure_pa =
+        env->star.wind_mdot_kg_s * env->star.wind_speed_m_s / (4.0 * VL_PI * a * a);
+    env->g = m->g;
+    env->area_m2 = m->area_m2;
+    env->mass_kg[VL_GAS_CO2] = pos(y[VL_R_CO2]);
+    env->mass_kg[VL_GAS_N2] = pos(y[VL_R_N2]);
+    env->mass_kg[VL_GAS_O2] = pos(y[VL_R_O2]);
+    env->mass_kg[VL_GAS_H2] = pos(y[VL_R_H2]);
+    env->regime = regime;
+    vl_climate_eval(m->climate, pos(y[VL_R_WATER]), env);
+    finish_atmosphere(m, env);
+    for (size_t i = 0; i < vl_nprocesses; i++)
+        if (sc->proc[i].enabled && vl_processes[i]->prepare)
+            vl_processes[i]->prepare(sc->proc[i].params, m, y, env);
+}
+
+void vl_model_rhs(const vl_model *m, double t_s, const double *y, int regime, double *dydt,
+                  double *columns, vl_env *env)
+{
+    vl_env local;
+    vl_env *e = env ? env : &local;
+    vl_model_env(m, t_s, y, regime, e);
+    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    if (columns)
+        memset(columns, 0, m->ncolumns * sizeof columns[0]);
+    vl_flux fx = {y, dydt, columns, 0};
+    for (size_t i = 0; i < vl_nprocesses; i++) {
+        if (!m->sc->proc[i].enabled)
+            continue;
+        fx.col_base = m->col_base[i];
+        vl_processes[i]->rates(m->sc->proc[i].params, m, y, e, &fx);
+    }
+}

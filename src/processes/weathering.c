@@ -1,0 +1,68 @@
+/* weathering.c: continental silicate weathering (Walker, Hays & Kasting 1981, JGR
+ * 86:9776): W = W0 (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te), drawing
+ * CO2 into carbonate rock; only while a liquid ocean exists. */
+#include <math.h>
+#include <stddef.h>
+
+#include "volev/model.h"
+#include "volev/units.h"
+
+typedef struct {
+    double ref_mol_s;  /* W0 */
+    double beta;       /* pCO2 exponent */
+    double te_k;       /* temperature e-folding */
+    double t0_k;       /* reference temperature */
+    double pco2_0_pa;  /* reference CO2 partial pressure */
+    double land;       /* land fraction */
+    double land_ref;   /* land fraction at W0 */
+} params;
+
+#define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
+    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+
+static const vl_param table[] = {
+    R("reference_rate_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 5.9, 0.0, 1e6, ref_mol_s,
+      "CO2 drawdown at the reference state",
+      "equal to the default present outgassing (steady state today), common practice"),
+    R("co2_exponent", "", 1.0, 0.3, 0.0, 1.0, beta, "beta",
+      "Walker, Hays & Kasting 1981, from memory; Lehmer et al. 2020: 0.1-0.5"),
+    R("temp_efold_k", "K", 1.0, 13.7, 1.0, 100.0, te_k, "Te",
+      "Walker, Hays & Kasting 1981, from memory; Lehmer et al. 2020: 10-40 K"),
+    R("reference_temp_k", "K", 1.0, 288.0, 200.0, 400.0, t0_k, "T0",
+      "present Earth mean surface temperature, common practice"),
+    R("co2_reference_bar", "bar", VL_BAR, 2.837e-4, 1e-9, 1e3, pco2_0_pa, "pCO2_0",
+      "280 ppmv x 1.01325 bar, common practice"),
+    R("land_fraction", "", 1.0, 0.29, 0.0, 1.0, land, "fraction of the surface that is land",
+      "present Earth, common practice"),
+    R("reference_land_fraction", "", 1.0, 0.29, 1e-3, 1.0, land_ref, "land fraction at W0",
+      "present Earth, common practice"),
+};
+
+static const char *const columns[] = {"weathering_co2_kg_s"};
+
+static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
+                  vl_flux *fx)
+{
+    const params *p = pv;
+    (void)m;
+    (void)y;
+    if (!env->liquid)
+        return;
+    double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
+    double w = p->ref_mol_s * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
+               exp((env->t_surf_k - p->t0_k) / p->te_k);
+    vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
+}
+
+const vl_process vl_process_weathering = {
+    .name = "weathering",
+    .summary = "continental silicate weathering, CO2 -> carbonate, while an ocean is liquid",
+    .refs = "Walker, Hays & Kasting 1981",
+    .params = table,
+    .nparams = sizeof table / sizeof table[0],
+    .params_size = sizeof(params),
+    .columns = columns,
+    .ncolumns = 1,
+    .default_enabled = 1,
+    .rates = rates,
+};

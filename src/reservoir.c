@@ -1,0 +1,48 @@
+/* reservoir.c: species make-up and reservoir layout (reservoir.h). */
+#include "volev/reservoir.h"
+
+#include "volev/units.h"
+
+static const struct {
+    const char *name;
+    int atoms[VL_NELEMENTS];
+} species[VL_NSPECIES] = {
+#define VL_X(id, name, h, c, n, o) {name, {h, c, n, o}},
+    VL_SPECIES(VL_X)
+#undef VL_X
+};
+
+static const struct {
+    const char *name;
+    int species;
+    double floor_kg;
+} reservoirs[VL_NRES] = {
+#define VL_X(id, name, sp, fl) {name, sp, fl},
+    VL_RESERVOIRS(VL_X)
+#undef VL_X
+};
+
+/* Element order matches enum vl_element. */
+static const double atomic_weight[VL_NELEMENTS] = {VL_AW_H, VL_AW_C, VL_AW_N, VL_AW_O};
+static const char *const element_name[VL_NELEMENTS] = {"H", "C", "N", "O"};
+
+double vl_species_molar_mass(int s)
+{
+    double m = 0.0;
+    for (int e = 0; e < VL_NELEMENTS; e++)
+        m += species[s].atoms[e] * atomic_weight[e];
+    return m * 1e-3;
+}
+
+int vl_species_atoms(int s, int el) { return species[s].atoms[el]; }
+const char *vl_species_name(int s) { return species[s].name; }
+const char *vl_reservoir_name(int r) { return reservoirs[r].name; }
+int vl_reservoir_species(int r) { return reservoirs[r].species; }
+double vl_reservoir_floor(int r) { return reservoirs[r].floor_kg; }
+const char *vl_element_name(int el) { return element_name[el]; }
+
+double vl_reservoir_element_fraction(int r, int el)
+{
+    int s = reservoirs[r].species;
+    return species[s].atoms[el] * atomic_weight[el] * 1e-3 / vl_species_molar_mass(s);
+}

@@ -1,0 +1,182 @@
+/* test_escape.c: hydrogen escape, oxygen drag and photolysis against the published
+ * check values of science.md section 4. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "suites.h"
+#include "volev/model.h"
+#include "volev/units.h"
+
+typedef struct {
+    vl_scenario *sc;
+    vl_model *m;
+    vl_env env;
+    double y[VL_NRES];
+} fixture;
+
+/* Present Earth: 1 M_earth, 1 R_earth, 1 bar N2 atmosphere, one ocean, defaults otherwise. */
+static void setup_earth(fixture *f, const char *const *sets, size_t nsets)
+{
+    vl_status st;
+    f->sc = vl_scenario_new();
+    ck_assert_ptr_nonnull(f->sc);
+    for (size_t i = 0; i < nsets; i++)
+        ck_assert_msg(vl_scenario_override(f->sc, sets[i], &st) == VL_OK, "%s", st.msg);
+    f->m = vl_model_new(f->sc, &st);
+    ck_assert_msg(f->m != NULL, "%s", st.msg);
+    memset(f->y, 0, sizeof f->y);
+    f->y[VL_R_WATER] = VL_TO_KG;
+    f->y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
+    vl_model_env(f->m, 4.57e9 * VL_YR, f->y, VL_REGIME_TEMPERATE, &f->env);
+}
+
+static void teardown(fixture *f)
+{
+    vl_model_free(f->m);
+    vl_scenario_free(f->sc);
+}
+
+static const vl_process *proc(const char *name, const vl_scenario *sc, const void **params)
+{
+    int i = vl_process_find(name);
+    ck_assert_int_ge(i, 0);
+    *params = sc->proc[i].params;
+    return vl_processes[i];
+}
+
+START_TEST(energy_limited_earth)
+{
+    fixture f;
+    const char *sets[] = {"processes.hydrogen_escape.roche_lobe=false"};
+    setup_earth(&f, sets, 1);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_xuv = 4.6e-3; /* Ribas et al. 2005: 4.6 erg cm^-2 s^-1 today at 1 au */
+    h->prepare(p, f.m, f.y, &f.env);
+    /* science.md [C]: Earth today, eps = 0.15, F = 4.6 erg cm^-2 s^-1 -> 1.41e3 kg/s
+     * (Watson et al. 1981 energy-limited formula) */
+    ck_assert_rel(f.env.esc_mass_flux * f.m->area_m2, 1.41e3, 5e-3);
+    /* far above the diffusion limit, so hydrogen escape is diffusion-limited (science.md) */
+    ck_assert_int_eq(f.env.esc_energy_limited, 0);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(roche_factor_raises_loss)
+{
+    fixture f;
+    const char *sets[] = {"planet.orbit_au=0.0213", "star.mass_msun=0.12"};
+    setup_earth(&f, sets, 2);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_xuv = 4.6e-3;
+    h->prepare(p, f.m, f.y, &f.env);
+    double with_k = f.env.esc_mass_flux;
+    teardown(&f);
+    const char *sets2[] = {"planet.orbit_au=0.0213", "star.mass_msun=0.12",
+                           "processes.hydrogen_escape.roche_lobe=false"};
+    setup_earth(&f, sets2, 3);
+    h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_xuv = 4.6e-3;
+    h->prepare(p, f.m, f.y, &f.env);
+    /* Erkaev et al. 2007 eq. 17: xi = a (Mp/3M*)^(1/3)/Rp, K = 1 - 3/(2xi) + 1/(2xi^3) [C] */
+    double xi = 0.0213 * VL_AU * cbrt(VL_M_EARTH / (3.0 * 0.12 * VL_M_SUN)) / VL_R_EARTH;
+    double k = 1.0 - 1.5 / xi + 0.5 / (xi * xi * xi);
+    ck_assert_rel(with_k, f.env.esc_mass_flux / k, 1e-12);
+    ck_assert(k < 0.9);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(diffusion_limit_earth)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    h->prepare(p, f.m, f.y, &f.env);
+    double m_h = VL_AW_H * VL_AMU;
+    double kg_s = f.env.esc_h_diffusion * f.m->area_m2 * m_h;
+    /* Catling & Zahnle 2009, Sci. Am. 300(5):36: present Earth loses ~3 kg/s of hydrogen */
+    ck_assert_msg(kg_s > 2.0 && kg_s < 4.5, "diffusion-limited H loss %g kg/s", kg_s);
+    /* Catling & Kasting 2017 (from memory): phi = 2.5e13 f_T H2 cm^-2 s^-1, f_T = 7.6 ppmv */
+    double ck = 2.0 * 2.5e17 * 7.6e-6 * f.m->area_m2 * m_h;
+    ck_assert_rel(kg_s, ck, 0.2);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(crossover_flux_earth)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    const void *p;
+    const vl_process *o = proc("oxygen_drag", f.sc, &p);
+    double m_h = VL_AW_H * VL_AMU, m_o = VL_AW_O * VL_AMU;
+    /* science.md [C] from Hunten, Pepin & Walker 1987: Earth, 400 K: F_ref = 1.27e13 cm^-2 s^-1 */
+    double f_ref = 1.27e17;
+    f.env.esc_h_diffusion = HUGE_VAL;
+    f.env.esc_mass_flux = 0.99 * f_ref * m_h;
+    o->prepare(p, f.m, f.y, &f.env);
+    ck_assert_double_eq(f.env.esc_o_flux, 0.0);
+    f.env.esc_mass_flux = 1.01 * f_ref * m_h;
+    o->prepare(p, f.m, f.y, &f.env);
+    ck_assert(f.env.esc_o_flux > 0.0);
+    /* far above the crossover: the shared mass flux is conserved, and O/H tends to
+     * X_O/X_H = 1/2 (water photolysis products) */
+    f.env.esc_mass_flux = 1e4 * f_ref * m_h;
+    o->prepare(p, f.m, f.y, &f.env);
+    ck_assert_rel(m_h * f.env.esc_h_flux + m_o * f.env.esc_o_flux, f.env.esc_mass_flux, 1e-12);
+    ck_assert_rel(f.env.esc_o_flux / f.env.esc_h_flux, 0.5, 1e-3);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(photolysis_follows_escape)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    double dydt[VL_NRES];
+    vl_env env;
+    vl_model_rhs(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, &env);
+    /* all homopause hydrogen is water-borne here: water is lost at 18.015/2.016 times
+     * the H escape rate (stoichiometry of 2 H2O -> 4 H + O2), H escape equals the
+     * diffusion limit, and O2 is left behind at 31.998/4.032 times the H rate */
+    double h_rate = dydt[VL_R_SPACE_H];
+    ck_assert_rel(h_rate, env.esc_h_diffusion * f.m->area_m2 * VL_AW_H * VL_AMU, 1e-9);
+    ck_assert_rel(-dydt[VL_R_WATER], h_rate * 18.015 / 2.016, 1e-9);
+    ck_assert_double_eq(dydt[VL_R_H2], 0.0);
+    ck_assert_rel(dydt[VL_R_O2] + dydt[VL_R_SPACE_O] + dydt[VL_R_OX_ROCK], h_rate * 31.998 / 4.032, 1e-9);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(photon_limit_caps)
+{
+    fixture f;
+    const char *sets[] = {"processes.photolysis.photon_limited=true",
+                          "processes.photolysis.photon_efficiency=1e-12"};
+    setup_earth(&f, sets, 2);
+    double dydt[VL_NRES];
+    vl_env env;
+    vl_model_rhs(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, &env);
+    /* cap = eta F_photon A / 4 molecules/s (science.md section 4) */
+    double cap_mol = 1e-12 * env.lya_flux * f.m->area_m2 / 4.0 / VL_AVOGADRO;
+    ck_assert_rel(env.photolysis_mol_s, cap_mol, 1e-12);
+    teardown(&f);
+}
+END_TEST
+
+Suite *vl_suite_escape(void)
+{
+    Suite *s = suite_create("escape");
+    TCase *tc = tcase_create("core");
+    tcase_add_test(tc, energy_limited_earth);
+    tcase_add_test(tc, roche_factor_raises_loss);
+    tcase_add_test(tc, diffusion_limit_earth);
+    tcase_add_test(tc, crossover_flux_earth);
+    tcase_add_test(tc, photolysis_follows_escape);
+    tcase_add_test(tc, photon_limit_caps);
+    suite_add_tcase(s, tc);
+    return s;
+}

@@ -1,0 +1,152 @@
+/* test_ledger.c: conservation is structural. Every registered process, alone and all
+ * together, conserves H, C, N and O in its tendencies; reactions balance; outflows
+ * stop at an empty reservoir. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "suites.h"
+#include "volev/flux.h"
+#include "volev/model.h"
+#include "volev/units.h"
+
+/* A state with every reservoir filled with high-entropy amounts (kg). */
+static void busy_state(const vl_model *m, double y[VL_NRES])
+{
+    for (int r = 0; r < VL_NRES; r++)
+        y[r] = 1.0e18 * (1.0 + 0.2385 * r);
+    y[VL_R_WATER] = 1.3729 * VL_TO_KG;
+    y[VL_R_H2] = 2.17e16;
+    y[VL_R_CO2] = 0.0417 * VL_BAR / m->pa_per_kg;
+}
+
+/* Relative element imbalance of dydt: |sum| / sum(|terms|). */
+static double imbalance(const double *dydt, int el)
+{
+    double net = 0.0, gross = 0.0;
+    for (int r = 0; r < VL_NRES; r++) {
+        double v = dydt[r] * vl_reservoir_element_fraction(r, el);
+        net += v;
+        gross += fabs(v);
+    }
+    return gross > 0.0 ? fabs(net) / gross : 0.0;
+}
+
+/* Evaluate the RHS with only process `only` enabled (-1: all) in regime. */
+static void rhs_with(vl_scenario *sc, int only, int regime, double dydt[VL_NRES], double *gross)
+{
+    vl_status st;
+    for (size_t i = 0; i < vl_nprocesses; i++)
+        sc->proc[i].enabled = only < 0 || (size_t)only == i;
+    vl_model *m = vl_model_new(sc, &st);
+    ck_assert_msg(m != NULL, "%s", st.msg);
+    double y[VL_NRES];
+    busy_state(m, y);
+    vl_model_rhs(m, 3.1e9 * VL_YR, y, regime, dydt, NULL, NULL);
+    *gross = 0.0;
+    for (int r = 0; r < VL_NRES; r++)
+        *gross += fabs(dydt[r]);
+    vl_model_free(m);
+}
+
+START_TEST(each_process_conserves)
+{
+    vl_scenario *sc = vl_scenario_new();
+    ck_assert_ptr_nonnull(sc);
+    sc->star.xuv_sat_ratio = 0.05; /* strong XUV: escape above the crossover flux, so oxygen drag acts */
+    for (int only = -1; only < (int)vl_nprocesses; only++)
+        for (int regime = 0; regime < VL_NREGIMES; regime++) {
+            double dydt[VL_NRES], gross;
+            rhs_with(sc, only, regime, dydt, &gross);
+            for (int el = 0; el < VL_NELEMENTS; el++)
+                /* conservation by construction: round-off only (common practice: 1e-12) */
+                ck_assert_msg(imbalance(dydt, el) < 1e-12, "process %s regime %d: %s imbalance %g",
+                              only < 0 ? "all" : vl_processes[only]->name, regime,
+                              vl_element_name(el), imbalance(dydt, el));
+        }
+    vl_scenario_free(sc);
+}
+END_TEST
+
+/* Every process must move mass (its own output columns) in some regime with all
+ * processes on, or the conservation test above would pass vacuously for it. */
+START_TEST(each_process_moves_mass)
+{
+    vl_scenario *sc = vl_scenario_new();
+    vl_status st;
+    sc->star.xuv_sat_ratio = 0.05;
+    vl_model *m = vl_model_new(sc, &st);
+    ck_assert_msg(m != NULL, "%s", st.msg);
+    double y[VL_NRES], dydt[VL_NRES];
+    double *best = calloc(m->ncolumns, sizeof *best), *cols = calloc(m->ncolumns, sizeof *cols);
+    busy_state(m, y);
+    for (int regime = 0; regime < VL_NREGIMES; regime++) {
+        vl_model_rhs(m, 3.1e9 * VL_YR, y, regime, dydt, cols, NULL);
+        for (size_t c = 0; c < m->ncolumns; c++)
+            if (fabs(cols[c]) > best[c])
+                best[c] = fabs(cols[c]);
+    }
+    for (size_t p = 0; p < vl_nprocesses; p++) {
+        double moved = 0.0;
+        for (size_t c = 0; c < m->ncolumns; c++)
+            if (m->col_proc[c] == p)
+                moved += best[c];
+        ck_assert_msg(moved > 0.0, "process %s moved no mass in any regime", vl_processes[p]->name);
+    }
+    free(best);
+    free(cols);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
+START_TEST(reactions_balance)
+{
+    char why[256];
+    vl_reaction good = {"2 H2O -> 2 H2 + O2", 3, {VL_R_WATER, VL_R_H2, VL_R_O2}, {-2, 2, 1}};
+    vl_reaction bad = {"H2O -> H2 + O2", 3, {VL_R_WATER, VL_R_H2, VL_R_O2}, {-1, 1, 1}};
+    ck_assert_int_eq(vl_reaction_check(&good, why, sizeof why), 0);
+    ck_assert_int_ne(vl_reaction_check(&bad, why, sizeof why), 0);
+    ck_assert_ptr_nonnull(strstr(why, "O"));
+    ck_assert_int_eq(vl_move_check(VL_R_H2, VL_R_SPACE_H), 0);
+    ck_assert_int_eq(vl_move_check(VL_R_O2, VL_R_OX_ROCK), 0);
+    ck_assert_int_ne(vl_move_check(VL_R_WATER, VL_R_SPACE_H), 0);
+}
+END_TEST
+
+START_TEST(molar_masses)
+{
+    /* IUPAC 2021 abridged standard atomic weights: H2O 18.015, CO2 44.009 g/mol */
+    ck_assert_rel(vl_species_molar_mass(VL_SP_H2O), 18.015e-3, 1e-12);
+    ck_assert_rel(vl_species_molar_mass(VL_SP_CO2), 44.009e-3, 1e-12);
+    /* hydrogen in one terrestrial ocean: 1.39e21 kg x 2.016/18.015 = 1.555e20 kg (science.md [C]) */
+    ck_assert_rel(VL_TO_KG * vl_reservoir_element_fraction(VL_R_WATER, VL_EL_H), 1.555e20, 2e-3);
+}
+END_TEST
+
+START_TEST(ramp_stops_outflow)
+{
+    double y[VL_NRES] = {0}, dydt[VL_NRES] = {0};
+    vl_flux fx = {y, dydt, NULL, 0};
+    y[VL_R_O2] = 0.0;
+    ck_assert_double_eq(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 5.3, -1), 0.0);
+    y[VL_R_O2] = 0.25 * vl_reservoir_floor(VL_R_O2);
+    ck_assert_double_eq_tol(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 4.0, -1), 1.0, 1e-15);
+    y[VL_R_O2] = 7.0 * vl_reservoir_floor(VL_R_O2);
+    ck_assert_double_eq(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 4.0, -1), 4.0);
+    ck_assert_double_eq_tol(dydt[VL_R_O2], -5.0, 1e-15);
+    ck_assert_double_eq_tol(dydt[VL_R_SPACE_O], 5.0, 1e-15);
+}
+END_TEST
+
+Suite *vl_suite_ledger(void)
+{
+    Suite *s = suite_create("ledger");
+    TCase *tc = tcase_create("core");
+    tcase_add_test(tc, each_process_conserves);
+    tcase_add_test(tc, each_process_moves_mass);
+    tcase_add_test(tc, reactions_balance);
+    tcase_add_test(tc, molar_masses);
+    tcase_add_test(tc, ramp_stops_outflow);
+    suite_add_tcase(s, tc);
+    return s;
+}
