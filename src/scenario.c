@@ -169,6 +169,9 @@ static void suggest(const char *name, int group, char *out, size_t n)
             continue;
         }
         for (char *dot = strchr(key, '.'); dot; dot = strchr(dot + 1, '.')) {
+            size_t len = (size_t)(dot - key);
+            if (strncmp(name, key, len) == 0 && name[len] == '.')
+                continue; /* the group that holds name: never the intended one */
             *dot = '\0';
             consider(name, key, limit, &best_d, best, sizeof best);
             *dot = '.';

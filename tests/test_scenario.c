@@ -1,6 +1,6 @@
 /* test_scenario.c: scenario loading, validation errors, overrides, the resolved writer
  * and the parameter helpers. Scenario files are written into a fresh temporary folder
- * per test. */
+ * per test case. */
 #include <dirent.h>
 #include <limits.h>
 #include <stdio.h>
@@ -16,7 +16,7 @@
 static char tmp_dir[512];
 static char cfg_path[1024];
 
-/* A fresh temporary folder for each test. */
+/* A fresh temporary folder per test case (removed even when a test fails). */
 static void make_dir(void)
 {
     const char *base = getenv("TMPDIR");
@@ -352,6 +352,14 @@ START_TEST(unknown_process)
                  "processes.weatherin", "did you mean 'processes.weathering'?");
     expect_error("processes = {\n\n  volcano_of_doom = { enabled = true; };\n};\n", 3,
                  "unknown process 'processes.volcano_of_doom'", "weathering");
+    /* the enclosing group is no suggestion */
+    expect_error("processes = {\n  xy = { enabled = true; };\n};\n", 2,
+                 "unknown process 'processes.xy' (known processes: ", NULL);
+    expect_error("star = {\n  xy = { model = \"ratio\"; };\n};\n", 2,
+                 "unknown group 'star.xy'", NULL);
+    vl_status st;
+    ck_assert_ptr_null(load_text("star = {\n  xy = { model = \"ratio\"; };\n};\n", &st));
+    ck_assert_ptr_null(strstr(st.msg, "did you mean 'star'"));
     expect_error("processes = {\n  weathering = { enabeld = false; };\n};\n", 2,
                  "processes.weathering.enabeld", "did you mean 'processes.weathering.enabled'?");
 }
@@ -735,7 +743,7 @@ Suite *vl_suite_scenario(void)
     suite_add_tcase(s, helpers);
 
     TCase *load = tcase_create("load");
-    tcase_add_checked_fixture(load, make_dir, remove_dir);
+    tcase_add_unchecked_fixture(load, make_dir, remove_dir);
     tcase_add_test(load, minimal_file_and_si);
     tcase_add_test(load, name_without_extension);
     tcase_add_test(load, missing_file);
@@ -744,7 +752,7 @@ Suite *vl_suite_scenario(void)
     suite_add_tcase(s, load);
 
     TCase *bad = tcase_create("bad input");
-    tcase_add_checked_fixture(bad, make_dir, remove_dir);
+    tcase_add_unchecked_fixture(bad, make_dir, remove_dir);
     tcase_add_test(bad, syntax_error);
     tcase_add_test(bad, unknown_key_suggests);
     tcase_add_test(bad, unknown_group);
@@ -762,14 +770,14 @@ Suite *vl_suite_scenario(void)
     suite_add_tcase(s, bad);
 
     TCase *ov = tcase_create("overrides");
-    tcase_add_checked_fixture(ov, make_dir, remove_dir);
+    tcase_add_unchecked_fixture(ov, make_dir, remove_dir);
     tcase_add_test(ov, overrides_apply);
     tcase_add_test(ov, override_path_uses_current_folder);
     tcase_add_test(ov, override_errors);
     suite_add_tcase(s, ov);
 
     TCase *out = tcase_create("output");
-    tcase_add_checked_fixture(out, make_dir, remove_dir);
+    tcase_add_unchecked_fixture(out, make_dir, remove_dir);
     tcase_add_test(out, resolved_round_trip);
     tcase_add_test(out, resolved_round_trip_every_real);
     tcase_add_test(out, resolved_round_trip_si_edit);
