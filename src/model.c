@@ -8,6 +8,27 @@
 
 #include "volev/units.h"
 
+/* A track with an xuv_lsun column replaces star.xuv.*: setting those keys is an error,
+ * not a silent no-op. */
+static int check_xuv_source(const vl_scenario *sc, const vl_star *star, vl_status *st)
+{
+    if (!vl_star_xuv_from_track(star))
+        return VL_OK;
+    for (size_t i = 0; i < vl_param_count(); i++) {
+        const vl_param *p;
+        void *base;
+        const char *prefix;
+        vl_param_at(sc, i, &p, &base, &prefix);
+        if (prefix[0] == '\0' && strncmp(p->key, "star.xuv.", 9) == 0 &&
+            sc->origin[i] != VL_FROM_DEFAULT)
+            return vl_fail(st, VL_ERR_INPUT, sc->origin[i] == VL_FROM_FILE ? sc->path : NULL,
+                           sc->line[i],
+                           "%s is not used: the XUV history comes from the xuv_lsun column of %s",
+                           p->key, sc->star.track_file);
+    }
+    return VL_OK;
+}
+
 vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
 {
     vl_model *m = calloc(1, sizeof *m);
@@ -20,7 +41,7 @@ vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
     m->area_m2 = 4.0 * VL_PI * sc->planet.radius_m * sc->planet.radius_m;
     m->pa_per_kg = m->g / m->area_m2;
     m->star = vl_star_new(&sc->star, sc->run.start_s, sc->run.end_s, st);
-    if (!m->star)
+    if (!m->star || check_xuv_source(sc, m->star, st) != VL_OK)
         goto fail;
     m->climate = vl_climate_new(sc, st);
     if (!m->climate)

@@ -42,7 +42,7 @@ const vl_param vl_core_params[] = {
          "Hayashi-track scaling, textbook; M dwarfs reach the main sequence after ~0.1-2 Gyr (Baraffe et al. 2015), from memory",
          "star.luminosity_model=contracting"),
     PATH("star.track_file", star.track_file,
-         "table: CSV with columns age_yr, luminosity_lsun and optional teff_k, xuv_lsun",
+         "table: CSV with columns age_yr, luminosity_lsun and optional teff_k, xuv_lsun (which then replaces star.xuv.*)",
          "star.luminosity_model=table"),
     CHOICE("star.xuv.model", VL_XUV_CHOICES, VL_XUV_RATIO, star.xuv_model,
            "XUV history: saturated ratio with power-law decay, or the solar fit of Ribas et al. 2005",

@@ -388,13 +388,18 @@ static double star_lbol(const vl_star *s, double t_s)
     }
 }
 
+int vl_star_xuv_from_track(const vl_star *s)
+{
+    return s->p.luminosity_model == VL_LUM_TABLE && s->tab.interp[COL_XUV] != NULL;
+}
+
 /* XUV luminosity, W: the track's column when present, else the XUV model.
  * Ratio (Luger & Barnes 2015, Astrobiology 15:119): f_sat L_bol, times (t/t_sat)^-beta
  * after saturation. Solar: Ribas et al. 2005 flux at 1 au times 4 pi au^2. */
 static double star_lxuv(const vl_star *s, double t_s, double l_bol)
 {
     const vl_star_params *p = &s->p;
-    if (p->luminosity_model == VL_LUM_TABLE && s->tab.interp[COL_XUV])
+    if (vl_star_xuv_from_track(s))
         return track_eval(&s->tab, COL_XUV, t_s);
     if (p->xuv_model == VL_XUV_SOLAR_RIBAS)
         return vl_star_ribas_flux_1au(t_s) * 4.0 * VL_PI * VL_AU * VL_AU;

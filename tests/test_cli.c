@@ -131,6 +131,13 @@ START_TEST(bad_input_leaves_nothing)
     ck_assert(!exists("out"));
     ck_assert_int_eq(volev("run quick.cfg --set run.end_yr=1e3 -o out"), 3);
     ck_assert(!exists("out"));
+    /* a track with an XUV column makes star.xuv.* meaningless: setting it is an error */
+    write_file("track.csv", "age_yr,luminosity_lsun,xuv_lsun\n1e6,1.02,1.1e-3\n2e9,0.93,1.3e-6\n");
+    write_file("xuv.cfg", "star: { luminosity_model = \"table\"; track_file = \"track.csv\";\n"
+                          "  xuv: { saturation_ratio = 2e-3; }; };\nrun: { end_yr = 1e9; };\n");
+    ck_assert_int_eq(volev("run xuv.cfg -o out"), 3);
+    assert_err_contains("xuv.cfg:2: star.xuv.saturation_ratio is not used");
+    ck_assert(!exists("out"));
     remove_tmp();
 }
 END_TEST
@@ -204,6 +211,32 @@ START_TEST(validate_and_processes)
 }
 END_TEST
 
+/* docs/parameters.md is generated from the tables by `make docs`; it must be current. */
+START_TEST(parameter_reference_current)
+{
+    make_tmp();
+    ck_assert_int_eq(volev("processes"), 0);
+    char *out = slurp("out.txt");
+    char path[1024];
+    snprintf(path, sizeof path, "%s/docs/parameters.md", vl_test_top());
+    FILE *f = fopen(path, "rb");
+    ck_assert_msg(f != NULL, "missing %s", path);
+    static char doc[1 << 20];
+    size_t n = fread(doc, 1, sizeof doc - 1, f);
+    doc[n] = '\0';
+    fclose(f);
+    char *start = strstr(doc, "```\n");
+    ck_assert_ptr_nonnull(start);
+    start += 4;
+    char *end = strstr(start, "```");
+    ck_assert_ptr_nonnull(end);
+    *end = '\0';
+    ck_assert_msg(strcmp(start, out) == 0, "docs/parameters.md is stale: run 'make docs'");
+    free(out);
+    remove_tmp();
+}
+END_TEST
+
 START_TEST(plot_renders_png)
 {
     if (system("command -v gnuplot >/dev/null 2>&1") != 0)
@@ -234,6 +267,7 @@ Suite *vl_suite_cli(void)
     tcase_add_test(tc, bad_input_leaves_nothing);
     tcase_add_test(tc, run_writes_and_reproduces);
     tcase_add_test(tc, validate_and_processes);
+    tcase_add_test(tc, parameter_reference_current);
     tcase_add_test(tc, plot_renders_png);
     suite_add_tcase(s, tc);
     return s;
