@@ -60,6 +60,13 @@ $(BUILD)/tests/%.o: tests/%.c
 	@$(if $(Q),echo "  CC  $<")
 	$(Q)$(CC) $(CFLAGS) $(PKG_CFLAGS) $(CHECK_CFLAGS) -MMD -MP -c $< -o $@
 
+# The git revision is compiled into output.o; rebuild it when the revision changes.
+$(BUILD)/gitrev.txt: FORCE
+	@mkdir -p $(BUILD)
+	@echo "$(GIT_REV)" | cmp -s - $@ || echo "$(GIT_REV)" > $@
+$(BUILD)/src/output.o: $(BUILD)/gitrev.txt
+FORCE:
+
 $(LIB): $(LIB_OBJ)
 	@$(if $(Q),echo "  AR  $@")
 	$(Q)rm -f $@ && ar rcs $@ $^

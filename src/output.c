@@ -77,10 +77,11 @@ int vl_output_scenario_hash(const vl_scenario *sc, char out[17], vl_status *st)
     return VL_OK;
 }
 
+/* Provenance lines. The scenario's path is not among them (only in summary.csv), so
+ * rerunning scenario.resolved.cfg reproduces series.csv and events.csv byte for byte. */
 static void header(vl_output *o, FILE *f)
 {
     fprintf(f, "# volev %s\n", vl_version());
-    fprintf(f, "# scenario: %s\n", o->m->sc->path);
     fprintf(f, "# resolved scenario hash (FNV-1a 64): %s\n", o->hash);
 }
 
@@ -197,6 +198,7 @@ static void summary(vl_output *o, const vl_run_stats *s)
     vl_env env;
     vl_model_env(m, m->sc->run.end_s, y, VL_REGIME_TEMPERATE, &env);
     header(o, f);
+    fprintf(f, "# scenario: %s\n", m->sc->path);
     fprintf(f, "name,value,unit\n");
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, "final_%s,%.10g,kg\n", vl_reservoir_name(r), clamp0(y[r]));
