@@ -151,7 +151,6 @@ typedef struct {
     const vl_run_sink *sink;
     vl_run_stats *stats;
     ctx_t *c;
-    double columns_dummy;
 } runner_t;
 
 /* Emit an output row at (t, y) under the context's regime. */
@@ -360,7 +359,7 @@ int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats
         rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
     } else {
         c->m = m;
-        runner_t r = {m, sink, stats, c, 0.0};
+        runner_t r = {m, sink, stats, c};
         rc = run_loop(&r, &main_s, &sub, st);
     }
     stats->rhs_calls = c ? c->rhs_calls : 0;

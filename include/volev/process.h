@@ -30,6 +30,13 @@ typedef struct vl_process {
                   vl_flux *fx);
 } vl_process;
 
+/* Designated initialisers for a descriptor's tables: parameter table, parameter
+ * struct type and column-name array (both arrays, so their sizes are known). */
+#define VL_PROCESS_TABLES(table, param_type, column_names)                              \
+    .params = (table), .nparams = sizeof(table) / sizeof((table)[0]),                  \
+    .params_size = sizeof(param_type), .columns = (column_names),                      \
+    .ncolumns = sizeof(column_names) / sizeof((column_names)[0])
+
 /* The registry, in processes.def order. */
 extern const vl_process *const vl_processes[];
 extern const size_t vl_nprocesses;

@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "cli.h"
+#include "volev/model.h"
 
 int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
 {
@@ -40,3 +41,10 @@ int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
 }
 
 void vl_cli_args_free(vl_cli_args *a) { free(a->sets); }
+
+void vl_cli_load(const vl_cli_args *a, vl_scenario **sc, vl_model **m, vl_status *st)
+{
+    vl_status_clear(st);
+    *sc = vl_scenario_load(a->scenario, a->sets, a->nsets, st);
+    *m = *sc ? vl_model_new(*sc, st) : NULL;
+}

@@ -4,6 +4,8 @@
 
 #include <stddef.h>
 
+#include "volev/status.h"
+
 typedef struct vl_cli_args {
     const char *scenario;  /* borrowed from argv */
     const char *out;       /* -o DIR or NULL */
@@ -14,5 +16,12 @@ typedef struct vl_cli_args {
 /* Parse argv[1..]; argv[0] is the subcommand name. 0 or VL_ERR_USAGE (message printed). */
 int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a);
 void vl_cli_args_free(vl_cli_args *a);
+
+struct vl_scenario;
+struct vl_model;
+/* Load a->scenario with a->sets and build its model; on failure *sc and/or *m stay
+ * NULL and st says why. */
+void vl_cli_load(const vl_cli_args *a, struct vl_scenario **sc, struct vl_model **m,
+                 vl_status *st);
 
 #endif

@@ -42,9 +42,9 @@ int vl_cli_run(int argc, char **argv)
         return rc;
     }
     vl_status st;
-    vl_status_clear(&st);
-    vl_scenario *sc = vl_scenario_load(a.scenario, a.sets, a.nsets, &st);
-    vl_model *m = sc ? vl_model_new(sc, &st) : NULL;
+    vl_scenario *sc;
+    vl_model *m;
+    vl_cli_load(&a, &sc, &m, &st);
     vl_output *out = NULL;
     char dir[VL_PATH_MAX];
     if (m) {

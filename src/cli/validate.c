@@ -15,9 +15,9 @@ int vl_cli_validate(int argc, char **argv)
         return rc;
     }
     vl_status st;
-    vl_status_clear(&st);
-    vl_scenario *sc = vl_scenario_load(a.scenario, a.sets, a.nsets, &st);
-    vl_model *m = sc ? vl_model_new(sc, &st) : NULL;
+    vl_scenario *sc;
+    vl_model *m;
+    vl_cli_load(&a, &sc, &m, &st);
     if (m) {
         vl_scenario_print(sc, stdout);
         printf("# %s: valid\n", a.scenario);

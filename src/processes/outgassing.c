@@ -56,11 +56,7 @@ const vl_process vl_process_outgassing = {
     .name = "outgassing",
     .summary = "volcanic outgassing of CO2, N2, H2O scaled by a declining heat flow",
     .refs = "Gerlach 2011; Lehmer et al. 2020",
-    .params = table,
-    .nparams = sizeof table / sizeof table[0],
-    .params_size = sizeof(params),
-    .columns = columns,
-    .ncolumns = 3,
+    VL_PROCESS_TABLES(table, params, columns),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -32,11 +32,7 @@ const vl_process vl_process_oxygen_sink = {
     .name = "oxygen_sink",
     .summary = "first-order uptake of atmospheric O2 by surface oxidation",
     .refs = "Holland 2002, GCA 66:3811 (sink magnitude)",
-    .params = table,
-    .nparams = sizeof table / sizeof table[0],
-    .params_size = sizeof(params),
-    .columns = columns,
-    .ncolumns = 1,
+    VL_PROCESS_TABLES(table, params, columns),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -58,11 +58,7 @@ const vl_process vl_process_weathering = {
     .name = "weathering",
     .summary = "continental silicate weathering, CO2 -> carbonate, while an ocean is liquid",
     .refs = "Walker, Hays & Kasting 1981",
-    .params = table,
-    .nparams = sizeof table / sizeof table[0],
-    .params_size = sizeof(params),
-    .columns = columns,
-    .ncolumns = 1,
+    VL_PROCESS_TABLES(table, params, columns),
     .default_enabled = 1,
     .rates = rates,
 };
