@@ -11,6 +11,7 @@
 
 /* Backends indexed by enum vl_climate_model. */
 static const vl_climate_backend *const backends[] = {
+    [VL_CLIMATE_COLUMN] = &vl_column_backend,
     [VL_CLIMATE_HZ_FIT] = &vl_hzfit_backend,
 };
 #define NBACKENDS (sizeof backends / sizeof backends[0])

@@ -126,8 +126,10 @@ static void hzfit_eval(const void *state, double water_kg, vl_env *env)
                                                                  env->g, env->area_m2, &air, water);
     env->ocean_kg = water - env->vapour_kg;
     env->mass_kg[VL_GAS_H2O] = env->vapour_kg;
-    env->liquid = (env->regime == VL_REGIME_TEMPERATE || env->regime == VL_REGIME_MOIST) &&
-                  env->t_surf_k < VL_WATER_TC_K;
+    env->liquid = 0.0;
+    if (env->regime != VL_REGIME_RUNAWAY && env->regime != VL_REGIME_DRY &&
+        env->t_surf_k < VL_WATER_TC_K) /* ice spreads over the 10 K below freezing */
+        env->liquid = fmin(1.0, fmax(0.0, (env->t_surf_k - cp->freeze_temp_k + 10.0) / 10.0));
     env->f_strat = strat_mixing(cp, env, &air);
 }
 

@@ -18,6 +18,7 @@ typedef struct vl_climate_backend {
 } vl_climate_backend;
 
 extern const vl_climate_backend vl_hzfit_backend;   /* climate_hzfit.c */
+extern const vl_climate_backend vl_column_backend;  /* climate_column.c */
 
 /* The dry part of the atmosphere: every gas in env->mass_kg except H2O. */
 typedef struct vl_dry_air {

@@ -38,3 +38,21 @@ double vl_water_psat(double t_k)
         return vl_water_psat_liquid(t_k);
     return INFINITY;
 }
+
+#define L_TRIPLE 2.5009e6 /* J/kg, IAPWS-95 tables at 273.16 K, from memory */
+#define L_FUSION 3.337e5  /* J/kg at 273.15 K, common practice */
+
+/* Watson 1943 (Ind. Eng. Chem. 35:398) corresponding-states correlation, exponent 0.38. */
+double vl_water_latent_vap(double t_k)
+{
+    if (t_k >= VL_WATER_TC_K)
+        return 0.0;
+    return L_TRIPLE * pow((VL_WATER_TC_K - t_k) / (VL_WATER_TC_K - VL_WATER_TTRIPLE_K), 0.38);
+}
+
+double vl_water_latent(double t_k)
+{
+    if (t_k < VL_WATER_TTRIPLE_K)
+        return L_TRIPLE + L_FUSION;
+    return vl_water_latent_vap(t_k);
+}

@@ -281,7 +281,7 @@ START_TEST(test_vapour_partition)
     ck_assert_rel(env.ocean_kg + env.vapour_kg, water, 1e-15);
     /* p_sat(288 K)/1 bar = 1.7 %: vapour about 0.017 x 0.62 x 5.2e18 kg [C, order] */
     ck_assert(env.vapour_kg > 3e16 && env.vapour_kg < 1e17);
-    ck_assert_int_eq(env.liquid, 1);
+    ck_assert_double_eq(env.liquid, 1.0);
     /* Catling & Kasting 2017 (from memory): 7.6 ppmv total hydrogen above the cold trap */
     ck_assert_rel(env.f_strat, 7.6e-6, 0.0);
 
@@ -303,14 +303,14 @@ START_TEST(test_vapour_partition)
     vl_climate_eval(c, water, &env);
     ck_assert(env.t_surf_k < 273.0);
     ck_assert_rel(vapour_pressure(&env), vl_water_psat_ice(env.t_surf_k), 1e-9);
-    ck_assert_int_eq(env.liquid, 0);
+    ck_assert_double_eq(env.liquid, 0.0);
     ck_assert_rel(env.f_strat, 7.6e-6, 0.0);
 
     /* moist greenhouse: liquid ocean, wet stratosphere (Kasting 1988: 3e-3) */
     env.instellation = 1.05 * VL_S_EARTH;
     env.regime = VL_REGIME_MOIST;
     vl_climate_eval(c, water, &env);
-    ck_assert_int_eq(env.liquid, 1);
+    ck_assert_double_eq(env.liquid, 1.0);
     ck_assert_rel(env.f_strat, 3e-3, 0.0);
     ck_assert_rel(vapour_pressure(&env), vl_water_psat(env.t_surf_k), 1e-9);
 
@@ -318,7 +318,7 @@ START_TEST(test_vapour_partition)
     env.regime = VL_REGIME_DRY;
     vl_climate_eval(c, 1e9, &env);
     ck_assert_rel(env.vapour_kg, 1e9, 0.0);
-    ck_assert_int_eq(env.liquid, 0);
+    ck_assert_double_eq(env.liquid, 0.0);
     ck_assert_rel(env.f_strat, 7.6e-6, 0.0);
 
     /* T_s = 779 K above T_c: no ocean survives even outside a runaway (science spec 3a) */
@@ -327,7 +327,7 @@ START_TEST(test_vapour_partition)
     vl_climate_eval(c, water, &env);
     ck_assert(env.t_surf_k > VL_WATER_TC_K);
     ck_assert_rel(env.vapour_kg, water, 0.0);
-    ck_assert_int_eq(env.liquid, 0);
+    ck_assert_double_eq(env.liquid, 0.0);
     vl_climate_free(c);
 }
 END_TEST
@@ -346,7 +346,7 @@ START_TEST(test_runaway_state)
     ck_assert_rel(env.t_surf_k, 1500.0, 0.0);
     ck_assert_rel(env.vapour_kg, water, 0.0);
     ck_assert_rel(env.ocean_kg, 0.0, 0.0);
-    ck_assert_int_eq(env.liquid, 0);
+    ck_assert_double_eq(env.liquid, 0.0);
     /* the balance is still reported:
      * T_e(1.2 S_earth) + 33.42 + 3 log2(28.0/28.37) = 299.8136 K [C] */
     ck_assert_rel(env.t_balance_k, 299.8136, 1e-6);

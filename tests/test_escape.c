@@ -94,6 +94,7 @@ START_TEST(diffusion_limit_earth)
     setup_earth(&f, NULL, 0);
     const void *p;
     const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_strat = 7.6e-6; /* total hydrogen above the cold trap, Catling & Kasting 2017 */
     h->prepare(p, f.m, f.y, &f.env);
     double m_h = VL_AW_H * VL_AMU;
     double kg_s = f.env.esc_h_diffusion * f.m->area_m2 * m_h;

@@ -583,7 +583,7 @@ static const char entropic[] =
     "           eccentricity = 0.1; };\n"
     "inventory = { surface_water_to = 3.3333333333333335; co2_bar = -0.0; n2_bar = 0.7808;\n"
     "              mantle_water_to = 1e-300; };\n"
-    "climate = { bond_albedo = 0.30000000000000004; co2_reference_bar = 2.837e-4; };\n"
+    "climate = { model = \"hz_fit\"; bond_albedo = 0.30000000000000004; co2_reference_bar = 2.837e-4; };\n"
     "run = { start_yr = 3e6; end_yr = 8.7654321e9; log_points = 317; rel_tolerance = 1e-9; };\n"
     "processes = {\n"
     "  weathering = { enabled = false; land_fraction = 0.1234567; };\n"

@@ -46,7 +46,7 @@ typedef struct vl_env {
     double f_strat;           /* stratospheric total-hydrogen mixing ratio (H2O + H2) */
     double s_runaway;         /* runaway-greenhouse threshold, in units of VL_S_EARTH */
     double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
-    int liquid;               /* 1 if a liquid ocean is present */
+    double liquid;            /* ice-free fraction of the ocean (0 without a liquid ocean) */
 
     /* Upper-atmosphere escape budget, published by prepare hooks (0 when off). */
     double esc_mass_flux;     /* energy-limited mass flux, kg m^-2 s^-1 (surface-area normalised) */

@@ -11,8 +11,8 @@ enum vl_lum_model { VL_LUM_SUN_ANALYTIC, VL_LUM_CONSTANT, VL_LUM_TABLE, VL_LUM_C
 #define VL_LUM_CHOICES "sun_analytic|constant|table|contracting"
 enum vl_xuv_model { VL_XUV_RATIO, VL_XUV_SOLAR_RIBAS };
 #define VL_XUV_CHOICES "ratio|solar_ribas"
-enum vl_climate_model { VL_CLIMATE_HZ_FIT };
-#define VL_CLIMATE_CHOICES "hz_fit"
+enum vl_climate_model { VL_CLIMATE_COLUMN, VL_CLIMATE_HZ_FIT };
+#define VL_CLIMATE_CHOICES "column|hz_fit"
 enum vl_runaway_fit { VL_RUNAWAY_K2014, VL_RUNAWAY_K2013 };
 #define VL_RUNAWAY_CHOICES "k2014_mass|k2013"
 
@@ -66,6 +66,23 @@ typedef struct vl_climate_params {
     double freeze_temp_k;      /* below this mean surface temperature the ocean is frozen */
     double dry_threshold_kg;   /* file: TO; less surface water than this = dry */
     int runaway_fit;           /* enum vl_runaway_fit */
+    double moist_threshold;    /* column: stratospheric H2O mixing ratio of the moist greenhouse */
+    /* column backend (climate_column.c) */
+    double k_h2o;              /* grey H2O mass absorption coefficient at p0, m^2/kg */
+    double n_h2o;              /* H2O pressure-broadening exponent */
+    double k_co2;              /* grey CO2 mass absorption coefficient at p0, m^2/kg */
+    double n_co2;              /* CO2 pressure-broadening exponent */
+    double u_co2_sat;          /* CO2 band-saturation column, kg/m^2 */
+    double k_cia;              /* CO2-CO2 collision-induced absorption coefficient, m^2/kg */
+    double p0_pa;              /* broadening reference pressure, Pa */
+    double strat_offset_k;     /* stratosphere = skin temperature - this */
+    double ice_albedo;         /* albedo of an ice-covered planet */
+    double ice_cover_k;        /* below this T_s the planet is fully ice-covered */
+    double ice_free_k;         /* above this T_s it is ice-free */
+    double steam_albedo;       /* albedo of a steam-rich atmosphere around a Sun-like star */
+    double steam_teff_exp;     /* every albedo ~ (Teff / 5772 K)^this */
+    double steam_start_k;      /* T_s where the albedo starts to move to the steam value */
+    double steam_full_k;       /* T_s where it reaches it */
 } vl_climate_params;
 
 typedef struct vl_run_params {

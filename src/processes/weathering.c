@@ -1,6 +1,7 @@
 /* weathering.c: continental silicate weathering (Walker, Hays & Kasting 1981, JGR
- * 86:9776): W = W0 (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te), drawing
- * CO2 into carbonate rock; only while a liquid ocean exists. */
+ * 86:9776): W = W0 f_liq (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te), drawing
+ * CO2 into carbonate rock; f_liq is the ice-free share of the ocean from the climate
+ * (0 without liquid water), which keeps the rate continuous through freezing. */
 #include <math.h>
 #include <stddef.h>
 
@@ -46,10 +47,10 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     const params *p = pv;
     (void)m;
     (void)y;
-    if (!env->liquid)
+    if (env->liquid <= 0.0)
         return;
     double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
-    double w = p->ref_mol_s * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
+    double w = p->ref_mol_s * env->liquid * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
                exp((env->t_surf_k - p->t0_k) / p->te_k);
     vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }

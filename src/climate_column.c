@@ -1,0 +1,350 @@
+/* climate_column.c: the radiative column climate backend.
+ *
+ * The column (column.c) gives, for a surface temperature and a dry atmosphere, the
+ * outgoing longwave radiation and the stratospheric water. Per run, these are
+ * tabulated against surface temperature on a grid of CO2 and background pressure
+ * (nodes filled lazily, when the run first needs them); the right-hand side only
+ * interpolates. The energy balance N(T) = S (1 - A(T)) / 4 - OLR(T) is then scanned
+ * on the temperature grid for its stable roots (N falling through zero), refined on
+ * the interpolant:
+ *  - a cold root (below climate.freeze_temp_k) is the frozen state, a warm root the
+ *    temperate or moist-greenhouse state; a planet stays on its branch while that
+ *    root exists, so frozen and temperate states show hysteresis;
+ *  - without a warm or cold root, absorbed flux exceeds the OLR limit: runaway.
+ * Albedo A(T): ice-covered below climate.column.ice_cover_temp_k, blending to the
+ * temperate climate.bond_albedo at ice_free_temp_k, then to the (lower) steam albedo
+ * as water vapour absorbs more sunlight; all of it scaled by (Teff/5772 K)^exponent,
+ * lower around cooler stars (Rayleigh scattering). */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "climate_internal.h"
+#include "volev/column.h"
+#include "volev/reservoir.h"
+#include "volev/units.h"
+#include "volev/water.h"
+
+#define T_MIN 150.0
+#define T_STEP 2.5
+#define NT 141 /* 150 K .. 500 K */
+#define LOG_P_MIN (-3) /* log10 Pa of the pressure grids */
+#define LOG_P_MAX 9
+#define PER_DECADE 4
+#define NP ((LOG_P_MAX - LOG_P_MIN) * PER_DECADE + 1)
+
+typedef struct {
+    float olr[NT];      /* W/m^2 */
+    float log_f[NT];    /* ln of the stratospheric H2O mole fraction (wet only) */
+} node;
+
+typedef struct {
+    vl_climate_params cp;
+    vl_column_opts opts;
+    node *nodes[2][NP][NP];  /* [wet][co2][background], filled lazily, owned */
+    double w_ice[NT];        /* ice weight of the albedo at each grid temperature */
+    double w_steam[NT];      /* steam weight */
+    long nodes_built;        /* statistics for the benchmark */
+} column;
+
+static double grid_t(int j) { return T_MIN + T_STEP * j; }
+
+static double smoothstep(double x, double lo, double hi)
+{
+    if (hi <= lo)
+        return x >= hi ? 1.0 : 0.0;
+    double u = (x - lo) / (hi - lo);
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    return u * u * (3.0 - 2.0 * u);
+}
+
+/* Planetary albedo from the ice and steam weights at a surface temperature, for a star
+ * of teff (see file comment). */
+static double albedo_w(const vl_climate_params *cp, double w_ice, double w_steam, double teff)
+{
+    double warm = cp->bond_albedo + (cp->steam_albedo - cp->bond_albedo) * w_steam;
+    double a = cp->ice_albedo * w_ice + warm * (1.0 - w_ice);
+    return a * pow(teff / VL_TEFF_SUN, cp->steam_teff_exp);
+}
+
+/* Pressure at grid index i, Pa. */
+static double grid_p(int i) { return pow(10.0, LOG_P_MIN + (double)i / PER_DECADE); }
+
+/* Fractional grid position of pressure p (clamped to the grid). */
+static double grid_pos(double p_pa)
+{
+    double x = (log10(fmax(p_pa, 1e-30)) - LOG_P_MIN) * PER_DECADE;
+    return x < 0.0 ? 0.0 : x > NP - 1 ? NP - 1 : x;
+}
+
+/* Tabulate one node: OLR and stratospheric water against T for CO2 pressure p_c and
+ * background (N2-like) pressure p_b, both thin-shell pressures of the gas alone. */
+static node *build_node(column *c, int wet, int ic, int ib)
+{
+    node *n = malloc(sizeof *n);
+    if (!n)
+        return NULL;
+    double pc = grid_p(ic), pb = grid_p(ib);
+    double m_co2 = vl_species_molar_mass(VL_SP_CO2), m_n2 = vl_species_molar_mass(VL_SP_N2);
+    vl_column_air air;
+    air.p_dry_pa = pc + pb;
+    air.q_co2 = pc / air.p_dry_pa;
+    air.m_dry = air.p_dry_pa / (pc / m_co2 + pb / m_n2);
+    air.cp_dry = air.q_co2 * VL_CP_CO2 + (1.0 - air.q_co2) * VL_CP_N2;
+    vl_column_opts o = c->opts;
+    o.wet = wet;
+    double olr = 0.0;
+    for (int j = 0; j < NT; j++) {
+        vl_column_out out;
+        vl_column_eval(&o, &air, grid_t(j), olr, &out);
+        olr = out.olr;
+        n->olr[j] = (float)out.olr;
+        n->log_f[j] = (float)log(fmax(out.f_strat, 1e-30));
+    }
+    c->nodes_built++;
+    return n;
+}
+
+/* The node (built on first use; the table is a per-run cache). */
+static const node *get_node(const column *cc, int wet, int ic, int ib)
+{
+    column *c = (column *)cc; /* lazily filled cache: not shared between threads */
+    if (!c->nodes[wet][ic][ib])
+        c->nodes[wet][ic][ib] = build_node(c, wet, ic, ib);
+    return c->nodes[wet][ic][ib];
+}
+
+/* OLR and ln f_strat on the temperature grid for the given pressures (bilinear in
+ * log pressure). Returns 0 on allocation failure. */
+static int interpolate(const column *c, int wet, double p_co2, double p_bg, double *olr,
+                       double *log_f)
+{
+    double xc = grid_pos(p_co2), xb = grid_pos(p_bg);
+    int ic = (int)xc < NP - 1 ? (int)xc : NP - 2, ib = (int)xb < NP - 1 ? (int)xb : NP - 2;
+    double fc = xc - ic, fb = xb - ib;
+    const node *n00 = get_node(c, wet, ic, ib), *n10 = get_node(c, wet, ic + 1, ib);
+    const node *n01 = get_node(c, wet, ic, ib + 1), *n11 = get_node(c, wet, ic + 1, ib + 1);
+    if (!n00 || !n10 || !n01 || !n11)
+        return 0;
+    double w00 = (1 - fc) * (1 - fb), w10 = fc * (1 - fb), w01 = (1 - fc) * fb, w11 = fc * fb;
+    for (int j = 0; j < NT; j++) {
+        olr[j] = w00 * n00->olr[j] + w10 * n10->olr[j] + w01 * n01->olr[j] + w11 * n11->olr[j];
+        log_f[j] = w00 * n00->log_f[j] + w10 * n10->log_f[j] + w01 * n01->log_f[j] +
+                   w11 * n11->log_f[j];
+    }
+    return 1;
+}
+
+/* The energy balance on the grid for env's star and atmosphere. */
+typedef struct {
+    double net[NT];    /* absorbed - OLR, W/m^2 */
+    double olr[NT];
+    double log_f[NT];
+    double alb[NT];
+    int cold;          /* grid cell of the lowest stable root below freezing, or -1 */
+    int warm;          /* grid cell of the lowest stable root at or above freezing, or -1 */
+} balance;
+
+static double root_in(const balance *b, int j)
+{
+    return grid_t(j) + T_STEP * b->net[j] / (b->net[j] - b->net[j + 1]);
+}
+
+static void dry_pressures(const vl_env *env, double *p_co2, double *p_bg)
+{
+    double k = env->g / env->area_m2;
+    *p_co2 = env->mass_kg[VL_GAS_CO2] * k;
+    *p_bg = (env->mass_kg[VL_GAS_N2] + env->mass_kg[VL_GAS_O2] + env->mass_kg[VL_GAS_H2]) * k;
+}
+
+static void compute_balance(const column *c, int wet, const vl_env *env, balance *b)
+{
+    double p_co2, p_bg;
+    dry_pressures(env, &p_co2, &p_bg);
+    if (!interpolate(c, wet, p_co2, p_bg, b->olr, b->log_f))
+        for (int j = 0; j < NT; j++) /* out of memory: no equilibrium, reported as NaN */
+            b->olr[j] = b->log_f[j] = NAN;
+    double teff = env->star.teff_k;
+    b->cold = b->warm = -1;
+    for (int j = 0; j < NT; j++) {
+        b->alb[j] = wet ? albedo_w(&c->cp, c->w_ice[j], c->w_steam[j], teff) : c->cp.bond_albedo;
+        b->net[j] = env->instellation * (1.0 - b->alb[j]) / 4.0 - b->olr[j];
+    }
+    for (int j = 0; j + 1 < NT; j++) {
+        if (!(b->net[j] > 0.0 && b->net[j + 1] <= 0.0))
+            continue;
+        if (root_in(b, j) < c->cp.freeze_temp_k) {
+            if (b->cold < 0)
+                b->cold = j;
+        } else if (b->warm < 0) {
+            b->warm = j;
+        }
+    }
+}
+
+/* Runaway and moist-greenhouse thresholds in S_eff units: the largest flux with a warm
+ * equilibrium, and the flux that puts the warm equilibrium at f_strat = threshold. */
+static void thresholds(const column *c, const balance *b, const vl_env *env, vl_env *out)
+{
+    double s_run = 0.0, s_moist = NAN, thr = log(c->cp.moist_threshold);
+    for (int j = 0; j < NT; j++) {
+        if (grid_t(j) < c->cp.freeze_temp_k)
+            continue;
+        double s_eq = 4.0 * b->olr[j] / (1.0 - b->alb[j]);
+        if (s_eq > s_run)
+            s_run = s_eq;
+        if (isnan(s_moist) && j > 0 && b->log_f[j - 1] < thr && b->log_f[j] >= thr)
+            s_moist = s_eq;
+    }
+    (void)env;
+    out->s_runaway = s_run / VL_S_EARTH;
+    out->s_moist = isnan(s_moist) ? INFINITY : s_moist / VL_S_EARTH;
+}
+
+/* Interpolate ln f_strat at temperature t on the grid. */
+static double log_f_at(const balance *b, double t)
+{
+    double x = (t - T_MIN) / T_STEP;
+    int j = x < 0.0 ? 0 : x >= NT - 1 ? NT - 2 : (int)x;
+    double u = x - j;
+    return b->log_f[j] + u * (b->log_f[j + 1] - b->log_f[j]);
+}
+
+/* Surface temperature on the branch of the regime in force: the cold branch (T below
+ * freezing) for the frozen regime, the warm branch otherwise. Where the branch's root
+ * exists it is returned; once the branch has vanished (past a saddle-node, before the
+ * integrator has switched regime) the "ghost" is returned, the temperature where the
+ * imbalance comes closest to zero, so that T_s stays continuous within a regime. */
+static double branch_temp(const column *c, const balance *b, int regime)
+{
+    int cold = regime == VL_REGIME_FROZEN;
+    int j = cold ? b->cold : b->warm;
+    if (j >= 0)
+        return root_in(b, j);
+    int lo = 0, hi = NT - 1;
+    for (int k = 0; k < NT; k++) {
+        if (grid_t(k) < c->cp.freeze_temp_k)
+            lo = cold ? lo : k + 1;
+        else if (cold) {
+            hi = k;
+            break;
+        }
+    }
+    if (lo > hi)
+        lo = hi;
+    int best = lo;
+    for (int k = lo; k <= hi; k++)
+        if (fabs(b->net[k]) < fabs(b->net[best]))
+            best = k;
+    if (best == 0 || best == NT - 1)
+        return grid_t(best);
+    /* vertex of the parabola through the three points around the closest approach */
+    double y0 = b->net[best - 1], y1 = b->net[best], y2 = b->net[best + 1];
+    double den = y0 - 2.0 * y1 + y2;
+    double off = den != 0.0 ? 0.5 * (y0 - y2) / den : 0.0;
+    off = off < -1.0 ? -1.0 : off > 1.0 ? 1.0 : off;
+    return grid_t(best) + off * T_STEP;
+}
+
+static void column_eval(const void *state, double water_kg, vl_env *env)
+{
+    const column *c = state;
+    const vl_climate_params *cp = &c->cp;
+    int wet = env->regime != VL_REGIME_DRY;
+    balance b;
+    compute_balance(c, wet, env, &b);
+    thresholds(c, &b, env, env);
+    double t = branch_temp(c, &b, env->regime), log_f = log_f_at(&b, t);
+    env->t_balance_k = t;
+    int runaway = env->regime == VL_REGIME_RUNAWAY;
+    env->t_surf_k = runaway ? cp->runaway_surface_temp_k : t;
+
+    vl_dry_air air;
+    vl_climate_dry_air(env, &air);
+    double water = fmax(water_kg, 0.0);
+    int supercritical = runaway || env->t_surf_k >= VL_WATER_TC_K;
+    env->vapour_kg = supercritical ? water
+                                   : vl_climate_saturated_vapour(vl_water_psat(env->t_surf_k),
+                                                                 env->g, env->area_m2, &air, water);
+    env->ocean_kg = water - env->vapour_kg;
+    env->mass_kg[VL_GAS_H2O] = env->vapour_kg;
+    env->liquid = 0.0;
+    if (wet && !runaway && env->t_surf_k < VL_WATER_TC_K) /* the ice-free share of the ocean */
+        env->liquid = smoothstep(env->t_surf_k, cp->ice_cover_k, cp->ice_free_k);
+    if (runaway) { /* steam throughout: the upper atmosphere has the bulk vapour fraction */
+        double mol_v = env->vapour_kg / vl_species_molar_mass(VL_SP_H2O);
+        env->f_strat = mol_v + air.mol > 0.0 ? mol_v / (mol_v + air.mol) : 0.0;
+    } else {
+        env->f_strat = wet ? exp(log_f) : 0.0;
+    }
+}
+
+static int column_classify(const void *state, double water_kg, const vl_env *env)
+{
+    const column *c = state;
+    if (water_kg < c->cp.dry_threshold_kg)
+        return VL_REGIME_DRY;
+    balance b;
+    compute_balance(c, 1, env, &b);
+    int warm_ok = b.warm >= 0, cold_ok = b.cold >= 0;
+    if (env->regime == VL_REGIME_FROZEN && cold_ok)
+        return VL_REGIME_FROZEN;
+    if (!warm_ok) /* too hot for any equilibrium, or only the frozen one (or none: colder
+                     than the grid) is left */
+        return b.net[NT - 1] > 0.0 ? VL_REGIME_RUNAWAY : VL_REGIME_FROZEN;
+    double log_f = log_f_at(&b, branch_temp(c, &b, VL_REGIME_TEMPERATE));
+    return exp(log_f) >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
+}
+
+static void *column_create(const vl_scenario *sc, vl_status *st)
+{
+    const vl_climate_params *cp = &sc->climate;
+    if (cp->ice_cover_k > cp->ice_free_k || cp->steam_start_k > cp->steam_full_k) {
+        vl_fail(st, VL_ERR_INPUT, sc->path, 0,
+                "climate.column: ice_cover_temp_k <= ice_free_temp_k and steam_start_temp_k <= "
+                "steam_full_temp_k are required");
+        return NULL;
+    }
+    column *c = calloc(1, sizeof *c);
+    if (!c) {
+        vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        return NULL;
+    }
+    c->cp = *cp;
+    double g = VL_G_NEWTON * sc->planet.mass_kg / (sc->planet.radius_m * sc->planet.radius_m);
+    c->opts = (vl_column_opts){.g = g,
+                               .k_h2o = cp->k_h2o,
+                               .k_co2 = cp->k_co2,
+                               .p0 = cp->p0_pa,
+                               .n_h2o = cp->n_h2o,
+                               .n_co2 = cp->n_co2,
+                               .u_co2_sat = cp->u_co2_sat,
+                               .k_cia = cp->k_cia,
+                               .strat_offset_k = cp->strat_offset_k,
+                               .wet = 1};
+    for (int j = 0; j < NT; j++) {
+        c->w_ice[j] = 1.0 - smoothstep(grid_t(j), cp->ice_cover_k, cp->ice_free_k);
+        c->w_steam[j] = smoothstep(grid_t(j), cp->steam_start_k, cp->steam_full_k);
+    }
+    return c;
+}
+
+static void column_destroy(void *state)
+{
+    column *c = state;
+    if (!c)
+        return;
+    for (int w = 0; w < 2; w++)
+        for (int i = 0; i < NP; i++)
+            for (int k = 0; k < NP; k++)
+                free(c->nodes[w][i][k]);
+    free(c);
+}
+
+const vl_climate_backend vl_column_backend = {
+    .name = "column",
+    .create = column_create,
+    .destroy = column_destroy,
+    .eval = column_eval,
+    .classify = column_classify,
+};
