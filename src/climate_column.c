@@ -25,9 +25,13 @@
 #include "volev/units.h"
 #include "volev/water.h"
 
+/* Temperature grid: 2.5 K steps from 150 to 400 K (where climates are decided), 10 K
+ * steps to 1000 K, 25 K steps to 2500 K (hot dry states). */
 #define T_MIN 150.0
-#define T_STEP 2.5
-#define NT 141 /* 150 K .. 500 K */
+#define N_FINE 100  /* 2.5 K intervals, 150..400 K */
+#define N_MID 60    /* 10 K intervals, 400..1000 K */
+#define N_HOT 60    /* 25 K intervals, 1000..2500 K */
+#define NT (N_FINE + N_MID + N_HOT + 1)
 #define LOG_P_MIN (-3) /* log10 Pa of the pressure grids */
 #define LOG_P_MAX 9
 #define PER_DECADE 4
@@ -47,7 +51,23 @@ typedef struct {
     long nodes_built;        /* statistics for the benchmark */
 } column;
 
-static double grid_t(int j) { return T_MIN + T_STEP * j; }
+static double grid_t(int j)
+{
+    if (j <= N_FINE)
+        return T_MIN + 2.5 * j;
+    if (j <= N_FINE + N_MID)
+        return 400.0 + 10.0 * (j - N_FINE);
+    return 1000.0 + 25.0 * (j - N_FINE - N_MID);
+}
+
+/* Fractional grid index of temperature t (clamped to the grid). */
+static double grid_index(double t)
+{
+    double x = t <= 400.0    ? (t - T_MIN) / 2.5
+               : t <= 1000.0 ? N_FINE + (t - 400.0) / 10.0
+                             : N_FINE + N_MID + (t - 1000.0) / 25.0;
+    return x < 0.0 ? 0.0 : x > NT - 1 ? NT - 1 : x;
+}
 
 static double smoothstep(double x, double lo, double hi)
 {
@@ -93,13 +113,18 @@ static node *build_node(column *c, int wet, int ic, int ib)
     air.cp_dry = air.q_co2 * VL_CP_CO2 + (1.0 - air.q_co2) * VL_CP_N2;
     vl_column_opts o = c->opts;
     o.wet = wet;
-    double olr = 0.0;
+    double olr = 0.0, log_f = 0.0;
     for (int j = 0; j < NT; j++) {
-        vl_column_out out;
-        vl_column_eval(&o, &air, grid_t(j), olr, &out);
-        olr = out.olr;
-        n->olr[j] = (float)out.olr;
-        n->log_f[j] = (float)log(fmax(out.f_strat, 1e-30));
+        /* a wet column exists only below the critical point; above it the steam
+         * column's values are held (OLR at its limit, saturated stratosphere) */
+        if (!wet || grid_t(j) < VL_WATER_TC_K - 5.0) {
+            vl_column_out out;
+            vl_column_eval(&o, &air, grid_t(j), olr, &out);
+            olr = out.olr;
+            log_f = log(fmax(out.f_strat, 1e-30));
+        }
+        n->olr[j] = (float)olr;
+        n->log_f[j] = (float)log_f;
     }
     c->nodes_built++;
     return n;
@@ -147,7 +172,7 @@ typedef struct {
 
 static double root_in(const balance *b, int j)
 {
-    return grid_t(j) + T_STEP * b->net[j] / (b->net[j] - b->net[j + 1]);
+    return grid_t(j) + (grid_t(j + 1) - grid_t(j)) * b->net[j] / (b->net[j] - b->net[j + 1]);
 }
 
 static void dry_pressures(const vl_env *env, double *p_co2, double *p_bg)
@@ -204,8 +229,8 @@ static void thresholds(const column *c, const balance *b, const vl_env *env, vl_
 /* Interpolate ln f_strat at temperature t on the grid. */
 static double log_f_at(const balance *b, double t)
 {
-    double x = (t - T_MIN) / T_STEP;
-    int j = x < 0.0 ? 0 : x >= NT - 1 ? NT - 2 : (int)x;
+    double x = grid_index(t);
+    int j = x >= NT - 1 ? NT - 2 : (int)x;
     double u = x - j;
     return b->log_f[j] + u * (b->log_f[j + 1] - b->log_f[j]);
 }
@@ -243,7 +268,8 @@ static double branch_temp(const column *c, const balance *b, int regime)
     double den = y0 - 2.0 * y1 + y2;
     double off = den != 0.0 ? 0.5 * (y0 - y2) / den : 0.0;
     off = off < -1.0 ? -1.0 : off > 1.0 ? 1.0 : off;
-    return grid_t(best) + off * T_STEP;
+    return grid_t(best) + off * (off < 0.0 ? grid_t(best) - grid_t(best - 1)
+                                            : grid_t(best + 1) - grid_t(best));
 }
 
 static void column_eval(const void *state, double water_kg, vl_env *env)

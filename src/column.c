@@ -24,8 +24,8 @@
 #include "volev/units.h"
 #include "volev/water.h"
 
-#define MAX_LEVELS 400
-#define STEP_K 2.5 /* target temperature step of the tropospheric integration */
+#define MAX_LEVELS 200
+#define STEP_K 4.0 /* target temperature step of the tropospheric integration */
 
 typedef struct {
     double t, pa, pc; /* temperature, non-condensing and vapour pressure, Pa */
@@ -47,6 +47,18 @@ static double slope(const vl_column_opts *o, const vl_column_air *air, double t,
     return dry * num / (1.0 + l * r / (r_a * t));
 }
 
+/* x^n with the common exponents done without pow(). */
+static double power(double x, double n)
+{
+    if (n == 1.0)
+        return x;
+    if (n == 0.5)
+        return sqrt(x);
+    if (n == 0.0)
+        return 1.0;
+    return pow(x, n);
+}
+
 /* Band saturation of CO2: the column's CO2 optical depth grows as u_sat ln(1 + u/u_sat)
  * with the pressure-weighted CO2 column u = q p_s (p_s/p0)^n / ((n + 1) g) (kg/m^2;
  * line strength and width enter together, as in the strong-line limit): linear for
@@ -55,7 +67,7 @@ static double slope(const vl_column_opts *o, const vl_column_air *air, double t,
 static double co2_saturation(const vl_column_opts *o, const vl_column_air *air)
 {
     double ps = air->p_dry_pa;
-    double u = air->q_co2 * ps * pow(ps / o->p0, o->n_co2) / ((o->n_co2 + 1.0) * o->g);
+    double u = air->q_co2 * ps * power(ps / o->p0, o->n_co2) / ((o->n_co2 + 1.0) * o->g);
     if (o->u_co2_sat <= 0.0 || u <= 0.0)
         return 1.0;
     return o->u_co2_sat / u * log1p(u / o->u_co2_sat);
@@ -71,8 +83,8 @@ static void kappa(const vl_column_opts *o, const vl_column_air *air, double sat,
     double q_w = wet_mass + dry_mass > 0.0 ? wet_mass / (wet_mass + dry_mass) : 0.0;
     double q_c = air->q_co2 * (1.0 - q_w);
     double x = (lv->pa + lv->pc) / o->p0;
-    *k_w = o->k_h2o * q_w * pow(x, o->n_h2o) / o->g;
-    *k_c = (o->k_co2 * sat * q_c * pow(x, o->n_co2) + o->k_cia * q_c * q_c * x) / o->g;
+    *k_w = o->k_h2o * q_w * power(x, o->n_h2o) / o->g;
+    *k_c = (o->k_co2 * sat * q_c * power(x, o->n_co2) + o->k_cia * q_c * q_c * x) / o->g;
 }
 
 /* Levels of the troposphere from the surface (index 0) to the tropopause; returns count. */
@@ -139,12 +151,19 @@ void vl_column_eval_fixed(const vl_column_opts *o, const vl_column_air *air, dou
     double tau_strat = (kw_prev / (o->n_h2o + 1.0) + kc_prev / (o->n_co2 + 1.0)) * p_trop;
     double tau_tot = tau_up[n - 1] + tau_strat;
     const double d = VL_COLUMN_DIFFUSIVITY;
-    double olr = VL_SIGMA_SB * pow(t_strat, 4) * (1.0 - exp(-d * tau_strat));
+    double ts2 = t_strat * t_strat;
+    double olr = VL_SIGMA_SB * ts2 * ts2 * -expm1(-d * tau_strat);
+    /* transmission to space from each level; layer source = mean of the level sigma T^4 */
+    double tr_above = exp(-d * (tau_tot - tau_up[n - 1]));
+    double b_above = lv[n - 1].t * lv[n - 1].t * lv[n - 1].t * lv[n - 1].t;
     for (int i = n - 1; i > 0; i--) {
-        double b = 0.5 * VL_SIGMA_SB * (pow(lv[i].t, 4) + pow(lv[i - 1].t, 4));
-        olr += b * (exp(-d * (tau_tot - tau_up[i])) - exp(-d * (tau_tot - tau_up[i - 1])));
+        double tr = exp(-d * (tau_tot - tau_up[i - 1]));
+        double b = lv[i - 1].t * lv[i - 1].t * lv[i - 1].t * lv[i - 1].t;
+        olr += 0.5 * VL_SIGMA_SB * (b + b_above) * (tr_above - tr);
+        tr_above = tr;
+        b_above = b;
     }
-    olr += VL_SIGMA_SB * pow(t_s, 4) * exp(-d * tau_tot);
+    olr += VL_SIGMA_SB * t_s * t_s * t_s * t_s * exp(-d * tau_tot);
     out->olr = olr;
     out->t_strat = t_strat;
     out->p_trop = p_trop;

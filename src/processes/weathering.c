@@ -1,7 +1,10 @@
 /* weathering.c: continental silicate weathering (Walker, Hays & Kasting 1981, JGR
  * 86:9776): W = W0 f_liq (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te), drawing
  * CO2 into carbonate rock; f_liq is the ice-free share of the ocean from the climate
- * (0 without liquid water), which keeps the rate continuous through freezing. */
+ * (0 without liquid water), which keeps the rate continuous through freezing. The
+ * kinetic rate W_kin is capped by the supply of fresh rock (West 2012; Foley 2015,
+ * ApJ 812:36): W = W_max (1 - exp(-W_kin / W_max)), with the kinetic prefactor chosen
+ * so that W equals reference_rate in the reference state. */
 #include <math.h>
 #include <stddef.h>
 
@@ -16,6 +19,7 @@ typedef struct {
     double pco2_0_pa;  /* reference CO2 partial pressure */
     double land;       /* land fraction */
     double land_ref;   /* land fraction at W0 */
+    double max_mol_s;  /* W_max, supply limit */
 } params;
 
 #define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
@@ -37,9 +41,23 @@ static const vl_param table[] = {
       "present Earth, common practice"),
     R("reference_land_fraction", "", 1.0, 0.29, 1e-3, 1.0, land_ref, "land fraction at W0",
       "present Earth, common practice"),
+    R("supply_limit_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 59.0, 1e-6, 1e9, max_mol_s,
+      "W_max: the most CO2 the supply of fresh rock can draw down",
+      "ten times the present rate, order of Foley 2015's supply limit, from memory"),
 };
 
 static const char *const columns[] = {"weathering_co2_kg_s"};
+
+/* The supply limit must exceed the reference rate. */
+static int check(const void *pv, const vl_scenario *sc, vl_status *st)
+{
+    const params *p = pv;
+    if (p->max_mol_s <= p->ref_mol_s)
+        return vl_fail(st, VL_ERR_INPUT, sc->path, 0,
+                       "processes.weathering.supply_limit_tmol_yr must exceed "
+                       "reference_rate_tmol_yr");
+    return VL_OK;
+}
 
 static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
                   vl_flux *fx)
@@ -50,8 +68,10 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     if (env->liquid <= 0.0)
         return;
     double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
-    double w = p->ref_mol_s * env->liquid * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
+    double kin0 = -p->max_mol_s * log1p(-p->ref_mol_s / p->max_mol_s);
+    double w = kin0 * env->liquid * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
                exp((env->t_surf_k - p->t0_k) / p->te_k);
+    w = p->max_mol_s * -expm1(-w / p->max_mol_s);
     vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 
@@ -61,5 +81,6 @@ const vl_process vl_process_weathering = {
     .refs = "Walker, Hays & Kasting 1981",
     VL_PROCESS_TABLES(table, params, columns),
     .default_enabled = 1,
+    .check = check,
     .rates = rates,
 };
