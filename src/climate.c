@@ -74,6 +74,19 @@ int vl_climate_classify(const vl_climate *c, double water_kg, const vl_env *env)
     return c->backend->classify(c->state, water_kg, env);
 }
 
+size_t vl_climate_curve(const vl_climate *c, const vl_env *env, int wet, vl_curve *out)
+{
+    return c->backend->curve ? c->backend->curve(c->state, env, wet, out) : 0;
+}
+
+void vl_climate_table_stats(const vl_climate *c, long *nodes, double *build_s)
+{
+    *nodes = 0;
+    *build_s = 0.0;
+    if (c->backend->stats)
+        c->backend->stats(c->state, nodes, build_s);
+}
+
 /* The regime's output name, or "invalid" for a number outside enum vl_regime. */
 const char *vl_regime_name(int regime)
 {

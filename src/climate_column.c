@@ -18,6 +18,7 @@
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
+#include <time.h>
 
 #include "climate_internal.h"
 #include "volev/column.h"
@@ -49,6 +50,7 @@ typedef struct {
     double w_ice[NT];        /* ice weight of the albedo at each grid temperature */
     double w_steam[NT];      /* steam weight */
     long nodes_built;        /* statistics for the benchmark */
+    double build_s;          /* wall time spent building nodes */
 } column;
 
 static double grid_t(int j)
@@ -104,6 +106,8 @@ static node *build_node(column *c, int wet, int ic, int ib)
     node *n = malloc(sizeof *n);
     if (!n)
         return NULL;
+    struct timespec w0, w1;
+    clock_gettime(CLOCK_MONOTONIC, &w0);
     double pc = grid_p(ic), pb = grid_p(ib);
     double m_co2 = vl_species_molar_mass(VL_SP_CO2), m_n2 = vl_species_molar_mass(VL_SP_N2);
     vl_column_air air;
@@ -127,6 +131,8 @@ static node *build_node(column *c, int wet, int ic, int ib)
         n->log_f[j] = (float)log_f;
     }
     c->nodes_built++;
+    clock_gettime(CLOCK_MONOTONIC, &w1);
+    c->build_s += (double)(w1.tv_sec - w0.tv_sec) + 1e-9 * (double)(w1.tv_nsec - w0.tv_nsec);
     return n;
 }
 
@@ -322,6 +328,27 @@ static int column_classify(const void *state, double water_kg, const vl_env *env
     return exp(log_f) >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
 }
 
+static size_t column_curve(const void *state, const vl_env *env, int wet, vl_curve *out)
+{
+    balance b;
+    compute_balance(state, wet, env, &b);
+    for (int j = 0; j < NT; j++) {
+        out->t_k[j] = grid_t(j);
+        out->olr[j] = b.olr[j];
+        out->absorbed[j] = b.olr[j] + b.net[j];
+        out->albedo[j] = b.alb[j];
+        out->f_strat[j] = wet ? exp(b.log_f[j]) : 0.0;
+    }
+    return NT;
+}
+
+static void column_stats(const void *state, long *nodes, double *build_s)
+{
+    const column *c = state;
+    *nodes = c->nodes_built;
+    *build_s = c->build_s;
+}
+
 static void *column_create(const vl_scenario *sc, vl_status *st)
 {
     const vl_climate_params *cp = &sc->climate;
@@ -373,4 +400,6 @@ const vl_climate_backend vl_column_backend = {
     .destroy = column_destroy,
     .eval = column_eval,
     .classify = column_classify,
+    .curve = column_curve,
+    .stats = column_stats,
 };

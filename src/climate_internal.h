@@ -15,6 +15,10 @@ typedef struct vl_climate_backend {
     void (*eval)(const void *state, double water_kg, vl_env *env);
     /* The vl_climate_classify contract (climate.h). */
     int (*classify)(const void *state, double water_kg, const vl_env *env);
+    /* Optional: the vl_climate_curve contract. */
+    size_t (*curve)(const void *state, const vl_env *env, int wet, vl_curve *out);
+    /* Optional: table statistics. */
+    void (*stats)(const void *state, long *nodes, double *build_s);
 } vl_climate_backend;
 
 extern const vl_climate_backend vl_hzfit_backend;   /* climate_hzfit.c */

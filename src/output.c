@@ -221,6 +221,11 @@ static void summary(vl_output *o, const vl_run_stats *s)
     fprintf(f, "rhs_evaluations,%ld,count\n", s->rhs_calls);
     fprintf(f, "steps,%ld,count\n", s->steps);
     fprintf(f, "events,%ld,count\n", s->events);
+    long nodes;
+    double build_s;
+    vl_climate_table_stats(m->climate, &nodes, &build_s);
+    fprintf(f, "climate_table_nodes,%ld,count\n", nodes);
+    fprintf(f, "climate_table_build_s,%.6f,s\n", build_s);
     fprintf(f, "wall_time_s,%.6f,s\n", s->wall_s);
 }
 

@@ -206,6 +206,37 @@ START_TEST(validate_and_processes)
 }
 END_TEST
 
+START_TEST(balance_curves)
+{
+    make_tmp();
+    write_file("quick.cfg", quick);
+    ck_assert_int_eq(volev("balance quick.cfg --age-yr 4.05e9 -o b"), 0);
+    char *csv = slurp("b/balance.csv");
+    ck_assert_ptr_nonnull(csv);
+    ck_assert_ptr_nonnull(strstr(csv, "surface_temp_k,olr_w_m2,absorbed_w_m2,net_w_m2,albedo,strat_h2o"));
+    ck_assert_ptr_nonnull(strstr(csv, "# stable equilibria (K):"));
+    ck_assert_ptr_nonnull(strstr(csv, "# runaway threshold s_eff"));
+    free(csv);
+    /* outside the run's ages, and with a climate that has no OLR curve */
+    ck_assert_int_eq(volev("balance quick.cfg --age-yr 1e6 -o c"), 2);
+    ck_assert_int_eq(volev("balance quick.cfg --age-yr abc"), 2);
+    ck_assert_int_eq(volev("balance quick.cfg --set climate.model=hz_fit -o d"), 3);
+    assert_err_contains("balance needs climate.model");
+    ck_assert(!exists("d/balance.csv"));
+    if (system("command -v gnuplot >/dev/null 2>&1") == 0) {
+        char plots[1024];
+        snprintf(plots, sizeof plots, "%s/plots", vl_test_top());
+        setenv("VOLEV_PLOTS_DIR", plots, 1);
+        ck_assert_int_eq(volev("plot b --format svg"), 0);
+        char *svg = slurp("b/balance.svg");
+        ck_assert_ptr_nonnull(svg);
+        ck_assert_ptr_nonnull(strstr(svg, "<svg")); /* SVG root element (W3C SVG 1.1) */
+        free(svg);
+    }
+    remove_tmp();
+}
+END_TEST
+
 /* docs/parameters.md is generated from the tables by `make docs`; it must be current. */
 START_TEST(parameter_reference_current)
 {
@@ -262,6 +293,7 @@ Suite *vl_suite_cli(void)
     tcase_add_test(tc, bad_input_leaves_nothing);
     tcase_add_test(tc, run_writes_and_reproduces);
     tcase_add_test(tc, validate_and_processes);
+    tcase_add_test(tc, balance_curves);
     tcase_add_test(tc, parameter_reference_current);
     tcase_add_test(tc, plot_renders_png);
     suite_add_tcase(s, tc);

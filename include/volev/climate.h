@@ -24,6 +24,24 @@ void vl_climate_eval(const vl_climate *c, double water_kg, vl_env *env);
 /* The regime the conditions in env call for (env filled by vl_climate_eval). */
 int vl_climate_classify(const vl_climate *c, double water_kg, const vl_env *env);
 
+/* The energy-balance curves at the instant in env (star and dry atmosphere): for each
+ * surface temperature of the climate's grid, OLR, absorbed stellar flux, planetary
+ * albedo and stratospheric H2O mixing ratio. wet: over an ocean (1) or without water (0).
+ * Returns the number of points (at most VL_CURVE_MAX), or 0 if the backend has no
+ * such curves (hz_fit). */
+#define VL_CURVE_MAX 512
+typedef struct vl_curve {
+    double t_k[VL_CURVE_MAX];
+    double olr[VL_CURVE_MAX];       /* W/m^2 */
+    double absorbed[VL_CURVE_MAX];  /* W/m^2 */
+    double albedo[VL_CURVE_MAX];
+    double f_strat[VL_CURVE_MAX];
+} vl_curve;
+size_t vl_climate_curve(const vl_climate *c, const vl_env *env, int wet, vl_curve *out);
+
+/* Table statistics: nodes computed so far and the wall time spent on them. */
+void vl_climate_table_stats(const vl_climate *c, long *nodes, double *build_s);
+
 /* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
 enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,
                    VL_HZ_EARLY_MARS, VL_NHZ };

@@ -13,6 +13,7 @@ static const struct {
 } commands[] = {
     {"run", vl_cli_run, "run SCENARIO [-o DIR] [--set KEY=VALUE]...  simulate one history"},
     {"validate", vl_cli_validate, "validate SCENARIO [--set KEY=VALUE]...  check a scenario, list every parameter"},
+    {"balance", vl_cli_balance, "balance SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...  energy-balance curves at one age"},
     {"processes", vl_cli_processes, "processes  list processes and parameters with units, defaults, bounds, references"},
     {"plot", vl_cli_plot, "plot DIR [--format png|pdf|svg]  render the history figure of a run"},
     {NULL, NULL, NULL},

@@ -1,5 +1,6 @@
-/* plot.c: `volev plot DIR [--format png|pdf|svg]`: render DIR/history.FORMAT from
- * DIR/series.csv with plots/history.gp through gnuplot. */
+/* plot.c: `volev plot DIR [--format png|pdf|svg]`: render the figures of what DIR
+ * holds through gnuplot: DIR/history.FORMAT from a run's series.csv (plots/history.gp),
+ * DIR/balance.FORMAT from `volev balance`'s balance.csv (plots/balance.gp). */
 #include <errno.h>
 #include <libgen.h>
 #include <spawn.h>
@@ -13,13 +14,13 @@
 
 extern char **environ;
 
-/* Find history.gp: $VOLEV_PLOTS_DIR, then ../plots and ../share/volev/plots beside the
+/* Find plots/NAME: $VOLEV_PLOTS_DIR, then ../plots and ../share/volev/plots beside the
  * executable. */
-static int find_script(char *out, size_t n)
+static int find_script(const char *name, char *out, size_t n)
 {
     const char *env = getenv("VOLEV_PLOTS_DIR");
     if (env) {
-        snprintf(out, n, "%s/history.gp", env);
+        snprintf(out, n, "%s/%s", env, name);
         return access(out, R_OK);
     }
     char exe[4096];
@@ -30,11 +31,40 @@ static int find_script(char *out, size_t n)
     const char *dir = dirname(exe);
     static const char *const rel[] = {"../plots", "../share/volev/plots", "plots"};
     for (size_t i = 0; i < sizeof rel / sizeof rel[0]; i++) {
-        snprintf(out, n, "%s/%s/history.gp", dir, rel[i]);
+        snprintf(out, n, "%s/%s/%s", dir, rel[i], name);
         if (access(out, R_OK) == 0)
             return 0;
     }
     return -1;
+}
+
+/* Render DIR/FIGURE.FMT from DIR/DATA with plots/SCRIPT; prints the figure's path. */
+static int render(const char *dir, const char *data, const char *script_name, const char *figure,
+                  const char *fmt, vl_status *st)
+{
+    char datafile[4200], events[4200], outfile[4200], script[4200], expr[16384];
+    snprintf(datafile, sizeof datafile, "%s/%s", dir, data);
+    snprintf(events, sizeof events, "%s/events.csv", dir);
+    snprintf(outfile, sizeof outfile, "%s/%s.%s", dir, figure, fmt);
+    if (find_script(script_name, script, sizeof script) != 0)
+        return vl_fail(st, VL_ERR_TOOL, NULL, 0,
+                       "cannot find plots/%s (set VOLEV_PLOTS_DIR to the plots folder)",
+                       script_name);
+    snprintf(expr, sizeof expr, "datafile='%s'; eventfile='%s'; outfile='%s'; fmt='%s'", datafile,
+             access(events, R_OK) == 0 ? events : "", outfile, fmt);
+    char *args[] = {"gnuplot", "-e", expr, script, NULL};
+    pid_t pid;
+    int err = posix_spawnp(&pid, "gnuplot", NULL, NULL, args, environ);
+    if (err != 0)
+        return vl_fail(st, VL_ERR_TOOL, NULL, 0, "cannot run gnuplot: %s (install gnuplot-nox)",
+                       strerror(err));
+    int status;
+    if (waitpid(pid, &status, 0) < 0 || !WIFEXITED(status) || WEXITSTATUS(status) != 0) {
+        remove(outfile);
+        return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot failed rendering %s", outfile);
+    }
+    printf("%s\n", outfile);
+    return VL_OK;
 }
 
 int vl_cli_plot(int argc, char **argv)
@@ -60,38 +90,22 @@ int vl_cli_plot(int argc, char **argv)
     if (strchr(dir, '\'') || strchr(dir, '\\'))
         return vl_cli_usage_error(argv[0], "folder names with quotes or backslashes are not supported");
 
+    static const struct {
+        const char *data, *script, *figure;
+    } kinds[] = {{"series.csv", "history.gp", "history"}, {"balance.csv", "balance.gp", "balance"}};
     vl_status st;
     vl_status_clear(&st);
-    char series[4200], events[4200], outfile[4200], script[4200], expr[16384];
-    snprintf(series, sizeof series, "%s/series.csv", dir);
-    snprintf(events, sizeof events, "%s/events.csv", dir);
-    snprintf(outfile, sizeof outfile, "%s/history.%s", dir, fmt);
-    if (access(series, R_OK) != 0) {
-        vl_fail(&st, VL_ERR_IO, series, 0, "cannot read: %s (is %s the output of 'volev run'?)",
-                strerror(errno), dir);
-        return vl_cli_report(&st);
+    int found = 0;
+    for (size_t k = 0; k < sizeof kinds / sizeof kinds[0] && st.code == VL_OK; k++) {
+        char data[4200];
+        snprintf(data, sizeof data, "%s/%s", dir, kinds[k].data);
+        if (access(data, R_OK) != 0)
+            continue;
+        found = 1;
+        render(dir, kinds[k].data, kinds[k].script, kinds[k].figure, fmt, &st);
     }
-    if (find_script(script, sizeof script) != 0) {
-        vl_fail(&st, VL_ERR_TOOL, NULL, 0,
-                "cannot find plots/history.gp (set VOLEV_PLOTS_DIR to the plots folder)");
-        return vl_cli_report(&st);
-    }
-    snprintf(expr, sizeof expr, "datafile='%s'; eventfile='%s'; outfile='%s'; fmt='%s'", series,
-             events, outfile, fmt);
-    char *args[] = {"gnuplot", "-e", expr, script, NULL};
-    pid_t pid;
-    int err = posix_spawnp(&pid, "gnuplot", NULL, NULL, args, environ);
-    if (err != 0) {
-        vl_fail(&st, VL_ERR_TOOL, NULL, 0, "cannot run gnuplot: %s (install gnuplot-nox)",
-                strerror(err));
-        return vl_cli_report(&st);
-    }
-    int status;
-    if (waitpid(pid, &status, 0) < 0 || !WIFEXITED(status) || WEXITSTATUS(status) != 0) {
-        remove(outfile);
-        vl_fail(&st, VL_ERR_TOOL, script, 0, "gnuplot failed rendering %s", outfile);
-        return vl_cli_report(&st);
-    }
-    printf("%s\n", outfile);
-    return VL_OK;
+    if (!found && st.code == VL_OK)
+        vl_fail(&st, VL_ERR_IO, dir, 0,
+                "nothing to plot: no series.csv (volev run) or balance.csv (volev balance) here");
+    return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
 }

@@ -1,0 +1,152 @@
+/* balance.c: `volev balance SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...`:
+ * the energy-balance curves (OLR, absorbed flux, albedo, stratospheric water against
+ * surface temperature) of the scenario's initial atmosphere around its star at AGE,
+ * written to DIR/balance.csv for plots/balance.gp -- the figure that shows where a
+ * runaway begins. */
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "args.h"
+#include "cli.h"
+#include "volev/model.h"
+#include "volev/output.h"
+#include "volev/units.h"
+
+/* Parse and remove "--age-yr AGE" from argv; 0, or VL_ERR_USAGE (printed). */
+static int take_age(int *argc, char **argv, double *age_yr, int *given)
+{
+    *given = 0;
+    for (int i = 1; i < *argc; i++) {
+        if (strcmp(argv[i], "--age-yr") != 0)
+            continue;
+        char *end;
+        if (i + 1 >= *argc)
+            return vl_cli_usage_error(argv[0], "--age-yr needs a stellar age in years");
+        *age_yr = strtod(argv[i + 1], &end);
+        if (*end || !(*age_yr > 0.0))
+            return vl_cli_usage_error(argv[0], "--age-yr '%s': expected a positive number of years",
+                                      argv[i + 1]);
+        *given = 1;
+        memmove(&argv[i], &argv[i + 2], (size_t)(*argc - i - 2) * sizeof *argv);
+        *argc -= 2;
+        i--;
+    }
+    return 0;
+}
+
+/* Write the curves and the equilibria they imply (stable: absorbed falls through OLR). */
+static int write_curves(const char *path, const vl_model *m, const vl_env *env, int wet,
+                        const vl_curve *cv, size_t n, vl_status *st)
+{
+    char tmp[VL_PATH_MAX + 64], hash[17];
+    if (vl_output_scenario_hash(m->sc, hash, st) != VL_OK)
+        return st->code;
+    snprintf(tmp, sizeof tmp, "%s.tmp", path);
+    FILE *f = fopen(tmp, "w");
+    if (!f)
+        return vl_fail(st, VL_ERR_IO, tmp, 0, "cannot write: %s", strerror(errno));
+    fprintf(f, "# volev %s\n# resolved scenario hash (FNV-1a 64): %s\n", vl_version(), hash);
+    fprintf(f, "# stellar age %.6g yr: instellation %.6g W/m^2 (s_eff %.6g), Teff %.6g K\n",
+            env->t_s / VL_YR, env->instellation, env->s_eff, env->star.teff_k);
+    fprintf(f, "# dry atmosphere: CO2 %.6g bar, N2 %.6g bar, O2 %.6g bar, H2 %.6g bar (alone); %s\n",
+            env->mass_kg[VL_GAS_CO2] * m->pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_N2] * m->pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_O2] * m->pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_H2] * m->pa_per_kg / VL_BAR, wet ? "over an ocean" : "no water");
+    fprintf(f, "# runaway threshold s_eff %.6g; moist-greenhouse threshold s_eff %.6g\n",
+            env->s_runaway, env->s_moist);
+    fprintf(f, "# stable equilibria (K):");
+    int any = 0;
+    for (size_t j = 0; j + 1 < n; j++) {
+        double a = cv->absorbed[j] - cv->olr[j], b = cv->absorbed[j + 1] - cv->olr[j + 1];
+        if (a > 0.0 && b <= 0.0) {
+            fprintf(f, " %.2f", cv->t_k[j] + (cv->t_k[j + 1] - cv->t_k[j]) * a / (a - b));
+            any = 1;
+        }
+    }
+    fprintf(f, "%s\n", any ? "" : " none (absorbed exceeds OLR everywhere: runaway)");
+    fprintf(f, "surface_temp_k,olr_w_m2,absorbed_w_m2,net_w_m2,albedo,strat_h2o\n");
+    for (size_t j = 0; j < n; j++)
+        fprintf(f, "%.6g,%.8g,%.8g,%.8g,%.6g,%.6g\n", cv->t_k[j], cv->olr[j], cv->absorbed[j],
+                cv->absorbed[j] - cv->olr[j], cv->albedo[j], cv->f_strat[j]);
+    if ((ferror(f) | fclose(f)) || rename(tmp, path) != 0) {
+        unlink(tmp);
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot write: %s", strerror(errno));
+    }
+    return VL_OK;
+}
+
+/* Default folder: NAME-balance, or NAME-balance.1, ... if taken. */
+static void default_dir(const vl_scenario *sc, char *buf, size_t n)
+{
+    struct stat sb;
+    snprintf(buf, n, "%s-balance", sc->name);
+    for (int k = 1; k < 10000 && stat(buf, &sb) == 0; k++)
+        snprintf(buf, n, "%s-balance.%d", sc->name, k);
+}
+
+int vl_cli_balance(int argc, char **argv)
+{
+    double age_yr = 0.0;
+    int given;
+    if (take_age(&argc, argv, &age_yr, &given))
+        return VL_ERR_USAGE;
+    vl_cli_args a;
+    int rc = vl_cli_parse_args(argc, argv, 1, &a);
+    if (rc) {
+        vl_cli_args_free(&a);
+        return rc;
+    }
+    vl_status st;
+    vl_scenario *sc;
+    vl_model *m;
+    vl_cli_load(&a, &sc, &m, &st);
+    char dir[VL_PATH_MAX], path[VL_PATH_MAX + 16];
+    if (m) {
+        const vl_run_params *rp = &sc->run;
+        double t = given ? age_yr * VL_YR : rp->start_s;
+        if (t < rp->start_s || t > rp->end_s)
+            vl_fail(&st, VL_ERR_USAGE, NULL, 0,
+                    "balance: --age-yr %.6g is outside the run's ages [%.6g, %.6g] yr", age_yr,
+                    rp->start_s / VL_YR, rp->end_s / VL_YR);
+        double y[VL_NRES];
+        vl_model_initial_state(m, y);
+        int wet = y[VL_R_WATER] >= sc->climate.dry_threshold_kg;
+        vl_env env;
+        vl_curve *cv = malloc(sizeof *cv);
+        size_t n = 0;
+        if (st.code == VL_OK && !cv)
+            vl_fail(&st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        if (st.code == VL_OK) {
+            vl_model_env(m, t, y, wet ? VL_REGIME_TEMPERATE : VL_REGIME_DRY, &env);
+            n = vl_climate_curve(m->climate, &env, wet, cv);
+            if (n == 0)
+                vl_fail(&st, VL_ERR_INPUT, sc->path, 0,
+                        "balance needs climate.model = \"column\" (the habitable-zone fits have "
+                        "no OLR curve)");
+        }
+        if (st.code == VL_OK) {
+            if (a.out)
+                snprintf(dir, sizeof dir, "%s", a.out);
+            else
+                default_dir(sc, dir, sizeof dir);
+            if (mkdir(dir, 0777) != 0 && errno != EEXIST)
+                vl_fail(&st, VL_ERR_IO, dir, 0, "cannot create output folder: %s", strerror(errno));
+        }
+        if (st.code == VL_OK) {
+            snprintf(path, sizeof path, "%s/balance.csv", dir);
+            if (write_curves(path, m, &env, wet, cv, n, &st) == VL_OK)
+                printf("output: %s\n", dir);
+        }
+        free(cv);
+    }
+    rc = st.code == VL_OK ? VL_OK : vl_cli_report(&st);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+    vl_cli_args_free(&a);
+    return rc;
+}
