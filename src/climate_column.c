@@ -49,6 +49,11 @@ typedef struct {
     node *nodes[2][NP][NP];  /* [wet][co2][background], filled lazily, owned */
     double w_ice[NT];        /* ice weight of the albedo at each grid temperature */
     double w_steam[NT];      /* steam weight */
+    /* one-entry cache of the last balance: the Jacobian's perturbations of reservoirs
+     * that do not touch the atmosphere, and classify after eval, reuse it */
+    int cache_valid, cache_wet;
+    double cache_key[4];     /* p_co2, p_bg, instellation, Teff */
+    struct balance_s *cache;
     long nodes_built;        /* statistics for the benchmark */
     double build_s;          /* wall time spent building nodes */
 } column;
@@ -80,13 +85,12 @@ static double smoothstep(double x, double lo, double hi)
     return u * u * (3.0 - 2.0 * u);
 }
 
-/* Planetary albedo from the ice and steam weights at a surface temperature, for a star
- * of teff (see file comment). */
-static double albedo_w(const vl_climate_params *cp, double w_ice, double w_steam, double teff)
+/* Planetary albedo from the ice and steam weights at a surface temperature, for a
+ * Sun-like star (the caller scales it with Teff; see file comment). */
+static double albedo_w(const vl_climate_params *cp, double w_ice, double w_steam)
 {
     double warm = cp->bond_albedo + (cp->steam_albedo - cp->bond_albedo) * w_steam;
-    double a = cp->ice_albedo * w_ice + warm * (1.0 - w_ice);
-    return a * pow(teff / VL_TEFF_SUN, cp->steam_teff_exp);
+    return cp->ice_albedo * w_ice + warm * (1.0 - w_ice);
 }
 
 /* Pressure at grid index i, Pa. */
@@ -167,7 +171,7 @@ static int interpolate(const column *c, int wet, double p_co2, double p_bg, doub
 }
 
 /* The energy balance on the grid for env's star and atmosphere. */
-typedef struct {
+typedef struct balance_s {
     double net[NT];    /* absorbed - OLR, W/m^2 */
     double olr[NT];
     double log_f[NT];
@@ -188,17 +192,17 @@ static void dry_pressures(const vl_env *env, double *p_co2, double *p_bg)
     *p_bg = (env->mass_kg[VL_GAS_N2] + env->mass_kg[VL_GAS_O2] + env->mass_kg[VL_GAS_H2]) * k;
 }
 
-static void compute_balance(const column *c, int wet, const vl_env *env, balance *b)
+/* The balance at env (wet: over an ocean), into b. */
+static void fill_balance(const column *c, int wet, const vl_env *env, double p_co2, double p_bg,
+                         balance *b)
 {
-    double p_co2, p_bg;
-    dry_pressures(env, &p_co2, &p_bg);
     if (!interpolate(c, wet, p_co2, p_bg, b->olr, b->log_f))
         for (int j = 0; j < NT; j++) /* out of memory: no equilibrium, reported as NaN */
             b->olr[j] = b->log_f[j] = NAN;
-    double teff = env->star.teff_k;
+    double scale = pow(env->star.teff_k / VL_TEFF_SUN, c->cp.steam_teff_exp);
     b->cold = b->warm = -1;
     for (int j = 0; j < NT; j++) {
-        b->alb[j] = wet ? albedo_w(&c->cp, c->w_ice[j], c->w_steam[j], teff) : c->cp.bond_albedo;
+        b->alb[j] = wet ? scale * albedo_w(&c->cp, c->w_ice[j], c->w_steam[j]) : c->cp.bond_albedo;
         b->net[j] = env->instellation * (1.0 - b->alb[j]) / 4.0 - b->olr[j];
     }
     for (int j = 0; j + 1 < NT; j++) {
@@ -211,6 +215,26 @@ static void compute_balance(const column *c, int wet, const vl_env *env, balance
             b->warm = j;
         }
     }
+}
+
+/* The balance at env, from the one-entry cache when the dry atmosphere, the flux and
+ * the star are those of the previous call. NULL only when out of memory. */
+static const balance *get_balance(const column *cc, int wet, const vl_env *env)
+{
+    column *c = (column *)cc; /* the cache, like the table, is per model */
+    double key[4];
+    dry_pressures(env, &key[0], &key[1]);
+    key[2] = env->instellation;
+    key[3] = env->star.teff_k;
+    if (c->cache && c->cache_valid && c->cache_wet == wet && memcmp(key, c->cache_key, sizeof key) == 0)
+        return c->cache;
+    if (!c->cache && !(c->cache = malloc(sizeof *c->cache)))
+        return NULL;
+    fill_balance(c, wet, env, key[0], key[1], c->cache);
+    memcpy(c->cache_key, key, sizeof key);
+    c->cache_wet = wet;
+    c->cache_valid = 1;
+    return c->cache;
 }
 
 /* Runaway and moist-greenhouse thresholds in S_eff units: the largest flux with a warm
@@ -283,10 +307,13 @@ static void column_eval(const void *state, double water_kg, vl_env *env)
     const column *c = state;
     const vl_climate_params *cp = &c->cp;
     int wet = env->regime != VL_REGIME_DRY;
-    balance b;
-    compute_balance(c, wet, env, &b);
-    thresholds(c, &b, env, env);
-    double t = branch_temp(c, &b, env->regime), log_f = log_f_at(&b, t);
+    const balance *b = get_balance(c, wet, env);
+    if (!b) { /* out of memory: a NaN state stops the integrator with a message */
+        env->t_surf_k = env->t_balance_k = env->f_strat = NAN;
+        return;
+    }
+    thresholds(c, b, env, env);
+    double t = branch_temp(c, b, env->regime), log_f = log_f_at(b, t);
     env->t_balance_k = t;
     int runaway = env->regime == VL_REGIME_RUNAWAY;
     env->t_surf_k = runaway ? cp->runaway_surface_temp_k : t;
@@ -316,28 +343,30 @@ static int column_classify(const void *state, double water_kg, const vl_env *env
     const column *c = state;
     if (water_kg < c->cp.dry_threshold_kg)
         return VL_REGIME_DRY;
-    balance b;
-    compute_balance(c, 1, env, &b);
-    int warm_ok = b.warm >= 0, cold_ok = b.cold >= 0;
+    const balance *b = get_balance(c, 1, env);
+    if (!b)
+        return env->regime;
+    int warm_ok = b->warm >= 0, cold_ok = b->cold >= 0;
     if (env->regime == VL_REGIME_FROZEN && cold_ok)
         return VL_REGIME_FROZEN;
     if (!warm_ok) /* too hot for any equilibrium, or only the frozen one (or none: colder
                      than the grid) is left */
-        return b.net[NT - 1] > 0.0 ? VL_REGIME_RUNAWAY : VL_REGIME_FROZEN;
-    double log_f = log_f_at(&b, branch_temp(c, &b, VL_REGIME_TEMPERATE));
+        return b->net[NT - 1] > 0.0 ? VL_REGIME_RUNAWAY : VL_REGIME_FROZEN;
+    double log_f = log_f_at(b, branch_temp(c, b, VL_REGIME_TEMPERATE));
     return exp(log_f) >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
 }
 
 static size_t column_curve(const void *state, const vl_env *env, int wet, vl_curve *out)
 {
-    balance b;
-    compute_balance(state, wet, env, &b);
+    const balance *b = get_balance(state, wet, env);
+    if (!b)
+        return 0;
     for (int j = 0; j < NT; j++) {
         out->t_k[j] = grid_t(j);
-        out->olr[j] = b.olr[j];
-        out->absorbed[j] = b.olr[j] + b.net[j];
-        out->albedo[j] = b.alb[j];
-        out->f_strat[j] = wet ? exp(b.log_f[j]) : 0.0;
+        out->olr[j] = b->olr[j];
+        out->absorbed[j] = b->olr[j] + b->net[j];
+        out->albedo[j] = b->alb[j];
+        out->f_strat[j] = wet ? exp(b->log_f[j]) : 0.0;
     }
     return NT;
 }
@@ -391,6 +420,7 @@ static void column_destroy(void *state)
         for (int i = 0; i < NP; i++)
             for (int k = 0; k < NP; k++)
                 free(c->nodes[w][i][k]);
+    free(c->cache);
     free(c);
 }
 

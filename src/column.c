@@ -31,8 +31,10 @@ typedef struct {
     double t, pa, pc; /* temperature, non-condensing and vapour pressure, Pa */
 } level;
 
-/* d ln p_a / d ln T on the moist pseudo-adiabat (wet) or the dry adiabat. */
-static double slope(const vl_column_opts *o, const vl_column_air *air, double t, double pa)
+/* d ln p_a / d ln T on the moist pseudo-adiabat (wet; psat = p_sat(t)) or the dry
+ * adiabat. */
+static double slope(const vl_column_opts *o, const vl_column_air *air, double t, double psat,
+                    double pa)
 {
     double r_a = VL_R_GAS / air->m_dry;
     double dry = air->cp_dry / r_a;
@@ -41,7 +43,7 @@ static double slope(const vl_column_opts *o, const vl_column_air *air, double t,
     double m_w = vl_species_molar_mass(VL_SP_H2O);
     double r_c = VL_R_GAS / m_w;
     double l = vl_water_latent(t);
-    double r = (m_w / air->m_dry) * vl_water_psat(t) / pa;
+    double r = (m_w / air->m_dry) * psat / pa;
     double num = 1.0 + (VL_WATER_CP_VAPOUR / air->cp_dry +
                         (l / (r_c * t) - 1.0) * l / (air->cp_dry * t)) * r;
     return dry * num / (1.0 + l * r / (r_a * t));
@@ -106,9 +108,9 @@ static int troposphere(const vl_column_opts *o, const vl_column_air *air, double
         if (i == n || !isfinite(y))
             continue;
         /* midpoint rule in ln T */
-        double k1 = slope(o, air, t, exp(y));
+        double k1 = slope(o, air, t, lv[i].pc, exp(y));
         double tm = exp(x + 0.5 * dx);
-        double k2 = slope(o, air, tm, exp(y + 0.5 * dx * k1));
+        double k2 = slope(o, air, tm, o->wet ? vl_water_psat(tm) : 0.0, exp(y + 0.5 * dx * k1));
         y += dx * k2;
         x += dx;
     }
@@ -182,7 +184,7 @@ void vl_column_eval(const vl_column_opts *o, const vl_column_air *air, double t_
         if (t_strat < 1.0)
             t_strat = 1.0;
         vl_column_eval_fixed(o, air, t_s, t_strat, out);
-        if (fabs(out->olr - olr) < 1e-6 * olr)
+        if (fabs(out->olr - olr) < 1e-5 * olr)
             break;
         olr = out->olr;
     }

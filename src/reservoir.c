@@ -26,13 +26,14 @@ static const struct {
 static const double atomic_weight[VL_NELEMENTS] = {VL_AW_H, VL_AW_C, VL_AW_N, VL_AW_O};
 static const char *const element_name[VL_NELEMENTS] = {"H", "C", "N", "O"};
 
-double vl_species_molar_mass(int s)
-{
-    double m = 0.0;
-    for (int e = 0; e < VL_NELEMENTS; e++)
-        m += species[s].atoms[e] * atomic_weight[e];
-    return m * 1e-3;
-}
+/* Molar masses, kg/mol, as constant expressions of the atomic weights. */
+static const double molar_mass[VL_NSPECIES] = {
+#define VL_X(id, name, h, c, n, o) (h * VL_AW_H + c * VL_AW_C + n * VL_AW_N + o * VL_AW_O) * 1e-3,
+    VL_SPECIES(VL_X)
+#undef VL_X
+};
+
+double vl_species_molar_mass(int s) { return molar_mass[s]; }
 
 int vl_species_atoms(int s, int el) { return species[s].atoms[el]; }
 const char *vl_species_name(int s) { return species[s].name; }
