@@ -8,6 +8,7 @@
 
 #include "climate_internal.h"
 #include "volev/reservoir.h"
+#include "volev/water.h"
 
 /* Backends indexed by enum vl_climate_model. */
 static const vl_climate_backend *const backends[] = {
@@ -121,4 +122,15 @@ double vl_climate_saturated_vapour(double p_sat_pa, double g, double area_m2,
     double d = sqrt(b * b + 4.0 * c);
     double mv = b > 0.0 ? 2.0 * c / (b + d) : 0.5 * (d - b);
     return fmin(mv, water_kg);
+}
+
+void vl_climate_partition(double water_kg, int all_vapour, const vl_dry_air *air, vl_env *env)
+{
+    double water = fmax(water_kg, 0.0);
+    env->vapour_kg = all_vapour || env->t_surf_k >= VL_WATER_TC_K
+                         ? water
+                         : vl_climate_saturated_vapour(vl_water_psat(env->t_surf_k), env->g,
+                                                       env->area_m2, air, water);
+    env->ocean_kg = water - env->vapour_kg;
+    env->mass_kg[VL_GAS_H2O] = env->vapour_kg;
 }

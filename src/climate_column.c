@@ -320,13 +320,7 @@ static void column_eval(const void *state, double water_kg, vl_env *env)
 
     vl_dry_air air;
     vl_climate_dry_air(env, &air);
-    double water = fmax(water_kg, 0.0);
-    int supercritical = runaway || env->t_surf_k >= VL_WATER_TC_K;
-    env->vapour_kg = supercritical ? water
-                                   : vl_climate_saturated_vapour(vl_water_psat(env->t_surf_k),
-                                                                 env->g, env->area_m2, &air, water);
-    env->ocean_kg = water - env->vapour_kg;
-    env->mass_kg[VL_GAS_H2O] = env->vapour_kg;
+    vl_climate_partition(water_kg, runaway, &air, env);
     env->liquid = 0.0;
     if (wet && !runaway && env->t_surf_k < VL_WATER_TC_K) /* the ice-free share of the ocean */
         env->liquid = smoothstep(env->t_surf_k, cp->ice_cover_k, cp->ice_free_k);

@@ -119,13 +119,7 @@ static void hzfit_eval(const void *state, double water_kg, vl_env *env)
     int runaway = env->regime == VL_REGIME_RUNAWAY;
     env->t_surf_k = runaway ? cp->runaway_surface_temp_k : env->t_balance_k;
 
-    double water = fmax(water_kg, 0.0);
-    int supercritical = runaway || env->t_surf_k >= VL_WATER_TC_K;
-    env->vapour_kg = supercritical ? water
-                                   : vl_climate_saturated_vapour(vl_water_psat(env->t_surf_k),
-                                                                 env->g, env->area_m2, &air, water);
-    env->ocean_kg = water - env->vapour_kg;
-    env->mass_kg[VL_GAS_H2O] = env->vapour_kg;
+    vl_climate_partition(water_kg, runaway, &air, env);
     env->liquid = 0.0;
     if (env->regime != VL_REGIME_RUNAWAY && env->regime != VL_REGIME_DRY &&
         env->t_surf_k < VL_WATER_TC_K) /* ice spreads over the 10 K below freezing */

@@ -39,4 +39,9 @@ void vl_climate_dry_air(const vl_env *env, vl_dry_air *air);
 double vl_climate_saturated_vapour(double p_sat_pa, double g, double area_m2,
                                    const vl_dry_air *air, double water_kg);
 
+/* Fill env->vapour_kg, ocean_kg and mass_kg[VL_GAS_H2O] for the surface water water_kg
+ * at env->t_surf_k: all vapour when all_vapour (runaway) or above T_c, else saturated
+ * over the stable phase (vl_climate_saturated_vapour). */
+void vl_climate_partition(double water_kg, int all_vapour, const vl_dry_air *air, vl_env *env);
+
 #endif

@@ -42,9 +42,25 @@ int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
 
 void vl_cli_args_free(vl_cli_args *a) { free(a->sets); }
 
-void vl_cli_load(const vl_cli_args *a, vl_scenario **sc, vl_model **m, vl_status *st)
+int vl_cli_start(int argc, char **argv, int allow_out, vl_cli_args *a, vl_scenario **sc,
+                 vl_model **m, vl_status *st)
 {
     vl_status_clear(st);
+    *sc = NULL;
+    *m = NULL;
+    int rc = vl_cli_parse_args(argc, argv, allow_out, a);
+    if (rc)
+        return rc;
     *sc = vl_scenario_load(a->scenario, a->sets, a->nsets, st);
     *m = *sc ? vl_model_new(*sc, st) : NULL;
+    return 0;
+}
+
+int vl_cli_finish(vl_cli_args *a, vl_scenario *sc, vl_model *m, const vl_status *st)
+{
+    int rc = st->code == VL_OK ? VL_OK : vl_cli_report(st);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+    vl_cli_args_free(a);
+    return rc;
 }

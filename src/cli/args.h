@@ -19,9 +19,14 @@ void vl_cli_args_free(vl_cli_args *a);
 
 struct vl_scenario;
 struct vl_model;
-/* Load a->scenario with a->sets and build its model; on failure *sc and/or *m stay
- * NULL and st says why. */
-void vl_cli_load(const vl_cli_args *a, struct vl_scenario **sc, struct vl_model **m,
-                 vl_status *st);
+/* Parse argv (see vl_cli_parse_args), load the scenario with its overrides and build
+ * its model. Returns VL_ERR_USAGE (printed) for a bad command line; otherwise 0, with
+ * *sc and *m NULL and st filled if loading failed. */
+int vl_cli_start(int argc, char **argv, int allow_out, vl_cli_args *a, struct vl_scenario **sc,
+                 struct vl_model **m, vl_status *st);
+
+/* Report st if it holds an error, free what vl_cli_start made; returns the exit code. */
+int vl_cli_finish(vl_cli_args *a, struct vl_scenario *sc, struct vl_model *m,
+                  const vl_status *st);
 
 #endif

@@ -96,15 +96,13 @@ int vl_cli_balance(int argc, char **argv)
     if (take_age(&argc, argv, &age_yr, &given))
         return VL_ERR_USAGE;
     vl_cli_args a;
-    int rc = vl_cli_parse_args(argc, argv, 1, &a);
-    if (rc) {
-        vl_cli_args_free(&a);
-        return rc;
-    }
     vl_status st;
     vl_scenario *sc;
     vl_model *m;
-    vl_cli_load(&a, &sc, &m, &st);
+    if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
+        vl_cli_args_free(&a);
+        return VL_ERR_USAGE;
+    }
     char dir[VL_PATH_MAX], path[VL_PATH_MAX + 16];
     if (m) {
         const vl_run_params *rp = &sc->run;
@@ -144,9 +142,5 @@ int vl_cli_balance(int argc, char **argv)
         }
         free(cv);
     }
-    rc = st.code == VL_OK ? VL_OK : vl_cli_report(&st);
-    vl_model_free(m);
-    vl_scenario_free(sc);
-    vl_cli_args_free(&a);
-    return rc;
+    return vl_cli_finish(&a, sc, m, &st);
 }

@@ -36,15 +36,13 @@ static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
 int vl_cli_run(int argc, char **argv)
 {
     vl_cli_args a;
-    int rc = vl_cli_parse_args(argc, argv, 1, &a);
-    if (rc) {
-        vl_cli_args_free(&a);
-        return rc;
-    }
     vl_status st;
     vl_scenario *sc;
     vl_model *m;
-    vl_cli_load(&a, &sc, &m, &st);
+    if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
+        vl_cli_args_free(&a);
+        return VL_ERR_USAGE;
+    }
     vl_output *out = NULL;
     char dir[VL_PATH_MAX];
     if (m) {
@@ -65,9 +63,5 @@ int vl_cli_run(int argc, char **argv)
             vl_output_abort(out);
         }
     }
-    rc = st.code == VL_OK ? VL_OK : vl_cli_report(&st);
-    vl_model_free(m);
-    vl_scenario_free(sc);
-    vl_cli_args_free(&a);
-    return rc;
+    return vl_cli_finish(&a, sc, m, &st);
 }
