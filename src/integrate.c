@@ -128,12 +128,18 @@ typedef struct {
     unsigned long exhausted; /* bit r: reservoir r below its floor and armed */
 } signature_t;
 
+/* The signature at (t, y); with cols (m->ncolumns) also the process flux columns. */
 static signature_t signature(const vl_model *m, double t, const double *y, int regime,
-                             unsigned long armed)
+                             unsigned long armed, double *cols)
 {
     vl_env env;
     signature_t s = {0, 0};
-    vl_model_env(m, t, y, regime, &env);
+    if (cols) {
+        double dydt[VL_NRES];
+        vl_model_rhs(m, t, y, regime, dydt, cols, &env);
+    } else {
+        vl_model_env(m, t, y, regime, &env);
+    }
     s.regime = vl_climate_classify(m->climate, y[VL_R_WATER] > 0.0 ? y[VL_R_WATER] : 0.0, &env);
     for (int r = 0; r < VL_NRES; r++)
         if ((armed >> r & 1UL) && y[r] < vl_reservoir_floor(r))
@@ -243,7 +249,7 @@ static int locate(runner_t *r, stepper_t *sub, double t0, const double *y0, doub
         int rc = advance_to(sub, &t, tm, &h, ym, NULL, st);
         if (rc != VL_OK)
             return rc;
-        signature_t s = signature(r->m, tm, ym, r->c->regime, armed);
+        signature_t s = signature(r->m, tm, ym, r->c->regime, armed, NULL);
         if (same(s, r->c->regime)) {
             ta = tm;
             memcpy(ya, ym, sizeof ya);
@@ -260,12 +266,21 @@ static int locate(runner_t *r, stepper_t *sub, double t0, const double *y0, doub
 static int settle_regime(const vl_model *m, double t, const double *y, int regime)
 {
     for (int pass = 0; pass < 4; pass++) {
-        signature_t s = signature(m, t, y, regime, 0);
+        signature_t s = signature(m, t, y, regime, 0, NULL);
         if (s.regime == regime)
             break;
         regime = s.regime;
     }
     return regime;
+}
+
+/* Trapezoid step of the channel budget; prev becomes now. */
+static void accumulate(vl_run_stats *s, size_t n, double *prev, const double *now, double dt)
+{
+    for (size_t c = 0; c < n; c++) {
+        s->channel_kg[c] += 0.5 * (prev[c] + now[c]) * dt;
+        prev[c] = now[c];
+    }
 }
 
 static unsigned long rearm(const double *y, unsigned long armed)
@@ -293,6 +308,9 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
     if (rc == VL_OK)
         rc = emit_row(r, t, y, st);
     double h = fmin(1e3 * VL_YR, 1e-3 * (rp->end_s - rp->start_s));
+    /* flux columns at the last accepted point, for the channel budget */
+    double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
+    signature(m, t, y, r->c->regime, 0, prev);
     for (size_t k = 1; k < nout && rc == VL_OK; k++) {
         while (t < tout[k] && rc == VL_OK) {
             double t0 = t;
@@ -310,12 +328,14 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
                              t / VL_YR);
                 break;
             }
-            signature_t s = signature(m, t, y, r->c->regime, armed);
+            signature_t s = signature(m, t, y, r->c->regime, armed, now);
             if (!same(s, r->c->regime)) {
                 rc = locate(r, sub, t0, y0, &t, y, armed, &s, st);
                 if (rc != VL_OK)
                     break;
                 r->stats->time_in_regime_s[r->c->regime] += t - t0;
+                signature(m, t, y, r->c->regime, 0, now);
+                accumulate(r->stats, m->ncolumns, prev, now, t - t0);
                 for (int q = 0; q < VL_NRES && rc == VL_OK; q++)
                     if (s.exhausted >> q & 1UL)
                         rc = emit_event(r, t, "reservoir_exhausted", vl_reservoir_name(q), st);
@@ -327,10 +347,12 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
                 }
                 if (rc == VL_OK)
                     rc = emit_row(r, t, y, st);
+                signature(m, t, y, r->c->regime, 0, prev); /* the new regime's fluxes */
                 stepper_reset(main_s);
                 h = fmax(rp->event_tol_s, 1e-9 * t);
             } else {
                 r->stats->time_in_regime_s[r->c->regime] += t - t0;
+                accumulate(r->stats, m->ncolumns, prev, now, t - t0);
             }
             armed = rearm(y, armed);
         }
@@ -355,6 +377,10 @@ int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats
     ctx_t *c = calloc(1, sizeof *c);
     stepper_t main_s = {0}, sub = {0};
     int rc;
+    if (m->ncolumns > VL_MAX_COLUMNS) {
+        free(c);
+        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "more than %d flux columns", VL_MAX_COLUMNS);
+    }
     if (!c || !stepper_init(&main_s, c, &m->sc->run) || !stepper_init(&sub, c, &m->sc->run)) {
         rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
     } else {

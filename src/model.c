@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "volev/units.h"
+#include "volev/upper.h"
 
 /* A track with an xuv_lsun column replaces star.xuv.*: setting those keys is an error,
  * not a silent no-op. */
@@ -150,6 +151,7 @@ void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl
     env->regime = regime;
     vl_climate_eval(m->climate, pos(y[VL_R_WATER]), env);
     finish_atmosphere(m, env);
+    vl_upper_eval(sc, env);
     for (size_t i = 0; i < vl_nprocesses; i++)
         if (sc->proc[i].enabled && vl_processes[i]->prepare)
             vl_processes[i]->prepare(sc->proc[i].params, m, y, env);

@@ -102,7 +102,8 @@ static void series_header(vl_output *o)
             VL_TO_KG);
     fprintf(f, "time_yr,regime,surface_temp_k,surface_water_to,ocean_to,p_surf_bar,p_h2o_bar,"
                "p_co2_bar,p_n2_bar,p_o2_bar,p_h2_bar,instellation_w_m2,s_eff,f_xuv_w_m2,"
-               "luminosity_lsun,strat_h2o,h_escape_kg_s,o_escape_kg_s");
+               "luminosity_lsun,strat_h2o,h_escape_kg_s,o_escape_kg_s,c_escape_kg_s,"
+               "n_escape_kg_s,exobase_temp_k,exobase_alt_km,magnetopause_rp");
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%s_kg", vl_reservoir_name(r));
     for (size_t c = 0; c < o->m->ncolumns; c++)
@@ -160,6 +161,8 @@ static int row_cb(void *ctx, double t, const double *y, const double *dydt, cons
             env->p_pa[VL_GAS_CO2] * bar, env->p_pa[VL_GAS_N2] * bar, env->p_pa[VL_GAS_O2] * bar,
             env->p_pa[VL_GAS_H2] * bar, env->instellation, env->s_eff, env->f_xuv,
             env->star.l_bol_w / VL_L_SUN, env->f_strat, dydt[VL_R_SPACE_H], dydt[VL_R_SPACE_O]);
+    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g", dydt[VL_R_SPACE_C], dydt[VL_R_SPACE_N],
+            env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3, env->r_mp_rp);
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%.10g", clamp0(y[r]));
     for (size_t c = 0; c < o->m->ncolumns; c++)
@@ -211,6 +214,13 @@ static void summary(vl_output *o, const vl_run_stats *s)
         fprintf(f, "first_%s,%.10g,yr\n", o->event_names[k], o->first_event[k] / VL_YR);
     for (int r = 0; r < VL_NREGIMES; r++)
         fprintf(f, "time_%s,%.10g,yr\n", vl_regime_name(r), s->time_in_regime_s[r] / VL_YR);
+    for (size_t c = 0; c < m->ncolumns; c++) {
+        const char *name = m->col_name[c];
+        size_t len = strlen(name);
+        /* a column "x_kg_s" integrates to "x_kg" */
+        int tail = len > 5 && strcmp(name + len - 5, "_kg_s") == 0;
+        fprintf(f, "total_%.*s,%.10g,kg\n", (int)(tail ? len - 5 : len), name, s->channel_kg[c]);
+    }
     for (int el = 0; el < VL_NELEMENTS; el++) {
         double t0 = s->totals0[el], d = fabs(s->totals1[el] - t0);
         fprintf(f, "residual_%s,%.3e,relative\n", vl_element_name(el), t0 > 0.0 ? d / t0 : d);

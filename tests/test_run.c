@@ -109,6 +109,14 @@ START_TEST(earth_history)
     ck_assert(event_index(&c, "runaway_onset") < 0);
     ck_assert(s.min_mass_kg > -1.0);
     ck_assert(c.rows > 250);
+    /* the channel budget: water photolysed (its H escapes) integrates to the hydrogen in
+     * space, H/H2O = 2.016/18.015 by mass [C]; trapezoid over steps: 1e-2 */
+    int k = -1;
+    for (size_t i = 0; i < m->ncolumns; i++)
+        if (strcmp(m->col_name[i], "photolysis_h2o_kg_s") == 0)
+            k = (int)i;
+    ck_assert_int_ge(k, 0);
+    ck_assert_rel(s.channel_kg[k] * 2.016 / 18.015, s.y_final[VL_R_SPACE_H], 1e-2);
     vl_model_free(m);
     vl_scenario_free(sc);
 }

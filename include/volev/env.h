@@ -48,6 +48,18 @@ typedef struct vl_env {
     double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
     double liquid;            /* ice-free fraction of the ocean (0 without a liquid ocean) */
 
+    /* Upper atmosphere and magnetosphere (upper.c), before the prepare hooks. */
+    double f_xuv_rel;         /* f_xuv over present Earth's 4.6e-3 W/m^2 (Ribas et al. 2005) */
+    double t_exo_k;           /* exobase temperature, K */
+    double r_tb_m;            /* radius of the thermosphere base (homopause), m */
+    double r_exo_m;           /* exobase radius, m */
+    double n_exo_m3;          /* total number density at the exobase, m^-3 */
+    double m_exo_kg;          /* mean mass of the thermosphere's particles, kg */
+    double g_exo;             /* gravity at the exobase, m/s^2 */
+    double b_eq_t;            /* equatorial surface field of the dipole, T (0: none) */
+    double r_mp_rp;           /* magnetopause (or induced obstacle) stand-off, planet radii */
+    double cap_fraction;      /* surface share of the open polar caps (dipole mapping of r_mp) */
+
     /* Upper-atmosphere escape budget, published by prepare hooks (0 when off). */
     double esc_mass_flux;     /* energy-limited mass flux, kg m^-2 s^-1 (surface-area normalised) */
     double esc_h_diffusion;   /* diffusion-limited H flux, atoms m^-2 s^-1 */

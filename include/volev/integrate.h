@@ -6,6 +6,8 @@
 #include "volev/env.h"
 #include "volev/model.h"
 
+#define VL_MAX_COLUMNS 128
+
 typedef struct vl_run_stats {
     long rhs_calls;            /* right-hand-side evaluations, Jacobian included */
     long steps;                /* accepted steps */
@@ -15,6 +17,8 @@ typedef struct vl_run_stats {
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
     double time_in_regime_s[VL_NREGIMES];
     double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
+    double channel_kg[VL_MAX_COLUMNS]; /* time integral of each process flux column, kg
+                                          (trapezoid over accepted steps) */
 } vl_run_stats;
 
 typedef struct vl_run_sink {

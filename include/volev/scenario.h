@@ -40,6 +40,13 @@ typedef struct vl_planet_params {
     double radius_m;
     double orbit_m;            /* semi-major axis */
     double eccentricity;
+    double dipole_am2;         /* magnetic dipole moment, A m^2 (0: unmagnetised) */
+    double t_exo_ref_k;        /* exobase temperature at present Earth's XUV, CO2-free */
+    double t_exo_xuv_exp;      /* T_exo ~ (F_XUV / F_ref)^this */
+    double t_exo_co2_cooling;  /* T_exo divided by (1 + this * x_CO2) */
+    double thermo_base_pa;     /* pressure of the thermosphere base (homopause), Pa */
+    double cross_section_m2;   /* collision cross-section in the exobase criterion, m^2 */
+    double obstacle_rp;        /* induced-magnetosphere obstacle, planet radii */
 } vl_planet_params;
 
 typedef struct vl_inventory_params {
