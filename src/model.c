@@ -101,6 +101,9 @@ void vl_model_initial_state(const vl_model *m, double y[VL_NRES])
     y[VL_R_CARBONATE] = in->carbonate_pa * kg_per_pa;
     y[VL_R_MANTLE_C] = in->mantle_co2_pa * kg_per_pa;
     y[VL_R_MANTLE_N] = in->mantle_n2_pa * kg_per_pa;
+    for (size_t i = 0; i < vl_nprocesses; i++)
+        if (m->sc->proc[i].enabled && vl_processes[i]->initial)
+            vl_processes[i]->initial(m->sc->proc[i].params, m, y);
 }
 
 static double pos(double v) { return v > 0.0 ? v : 0.0; }

@@ -21,6 +21,9 @@ typedef struct vl_process {
     const char *const *columns;/* output column names of its fluxes (each kg/s) */
     size_t ncolumns;
     int default_enabled;
+    /* Optional: add to the initial state (kg) after the inventory, e.g. a pool that the
+     * process will draw from during the run. */
+    void (*initial)(const void *params, const vl_model *m, double *y);
     /* Optional: cross-check parameters against the scenario at load time. */
     int (*check)(const void *params, const vl_scenario *sc, vl_status *st);
     /* Optional: publish to env before any rates are evaluated (registry order). */
