@@ -103,7 +103,8 @@ static void series_header(vl_output *o)
     fprintf(f, "time_yr,regime,surface_temp_k,surface_water_to,ocean_to,p_surf_bar,p_h2o_bar,"
                "p_co2_bar,p_n2_bar,p_o2_bar,p_h2_bar,instellation_w_m2,s_eff,f_xuv_w_m2,"
                "luminosity_lsun,strat_h2o,h_escape_kg_s,o_escape_kg_s,c_escape_kg_s,"
-               "n_escape_kg_s,exobase_temp_k,exobase_alt_km,magnetopause_rp");
+               "n_escape_kg_s,exobase_temp_k,exobase_alt_km,magnetopause_rp,escape_lambda_h,"
+               "h_escape_limit");
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%s_kg", vl_reservoir_name(r));
     for (size_t c = 0; c < o->m->ncolumns; c++)
@@ -161,8 +162,9 @@ static int row_cb(void *ctx, double t, const double *y, const double *dydt, cons
             env->p_pa[VL_GAS_CO2] * bar, env->p_pa[VL_GAS_N2] * bar, env->p_pa[VL_GAS_O2] * bar,
             env->p_pa[VL_GAS_H2] * bar, env->instellation, env->s_eff, env->f_xuv,
             env->star.l_bol_w / VL_L_SUN, env->f_strat, dydt[VL_R_SPACE_H], dydt[VL_R_SPACE_O]);
-    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g", dydt[VL_R_SPACE_C], dydt[VL_R_SPACE_N],
-            env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3, env->r_mp_rp);
+    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d", dydt[VL_R_SPACE_C], dydt[VL_R_SPACE_N],
+            env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3, env->r_mp_rp,
+            env->lambda_h, env->esc_h_limit);
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%.10g", clamp0(y[r]));
     for (size_t c = 0; c < o->m->ncolumns; c++)

@@ -61,6 +61,7 @@ void vl_upper_eval(const vl_scenario *sc, vl_env *env)
                                ? h_exo * log(n_col_tb * pl->cross_section_m2)
                                : 0.0);
     env->r_tb_m = rp + z_tb;
+    env->n_tb_m3 = p_tb / (VL_K_BOLTZMANN * t_low);
     env->r_exo_m = rp + z_exo;
     env->m_exo_kg = m;
     env->g_exo = VL_G_NEWTON * pl->mass_kg / (env->r_exo_m * env->r_exo_m);
@@ -71,4 +72,18 @@ void vl_upper_eval(const vl_scenario *sc, vl_env *env)
     double r_mp = vl_upper_magnetopause_rp(env->b_eq_t, env->wind_pressure_pa);
     env->r_mp_rp = fmax(r_mp, pl->obstacle_rp);
     env->cap_fraction = r_mp > pl->obstacle_rp ? 1.0 - sqrt(1.0 - 1.0 / r_mp) : 0.0;
+}
+
+void vl_upper_h_escape(vl_env *env, double h_el)
+{
+    double jeans = fmin(env->esc_h_jeans, h_el);
+    double cap = (1.0 - env->esc_hydro) * jeans + env->esc_hydro * h_el;
+    if (env->esc_h_diffusion <= cap) {
+        env->esc_h_flux = env->esc_h_diffusion;
+        env->esc_h_limit = VL_HLIM_DIFFUSION;
+    } else {
+        env->esc_h_flux = cap;
+        env->esc_h_limit = env->esc_hydro < 0.5 && env->esc_h_jeans < h_el ? VL_HLIM_JEANS
+                                                                         : VL_HLIM_ENERGY;
+    }
 }

@@ -6,6 +6,7 @@
 #include "suites.h"
 #include "volev/model.h"
 #include "volev/units.h"
+#include "volev/upper.h"
 
 typedef struct {
     vl_scenario *sc;
@@ -57,7 +58,7 @@ START_TEST(energy_limited_earth)
      * (Watson et al. 1981 energy-limited formula) */
     ck_assert_rel(f.env.esc_mass_flux * f.m->area_m2, 1.41e3, 5e-3);
     /* far above the diffusion limit, so hydrogen escape is diffusion-limited (science.md) */
-    ck_assert_int_eq(f.env.esc_energy_limited, 0);
+    ck_assert_int_eq(f.env.esc_h_limit, VL_HLIM_DIFFUSION);
     teardown(&f);
 }
 END_TEST
@@ -117,6 +118,8 @@ START_TEST(crossover_flux_earth)
     /* science.md [C] from Hunten, Pepin & Walker 1987: Earth, 400 K: F_ref = 1.27e13 cm^-2 s^-1 */
     double f_ref = 1.27e17;
     f.env.esc_h_diffusion = HUGE_VAL;
+    f.env.esc_h_jeans = HUGE_VAL; /* test the drag law alone: no exobase cap */
+    f.env.esc_hydro = 0.0;
     f.env.esc_mass_flux = 0.99 * f_ref * m_h;
     o->prepare(p, f.m, f.y, &f.env);
     ck_assert_double_eq(f.env.esc_o_flux, 0.0);
@@ -168,6 +171,120 @@ START_TEST(photon_limit_caps)
 }
 END_TEST
 
+START_TEST(diffusion_through_background)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    double m_n2 = vl_species_molar_mass(VL_SP_N2) / VL_AVOGADRO;
+    double m_co2 = vl_species_molar_mass(VL_SP_CO2) / VL_AVOGADRO;
+    f.env.f_strat = 1e-12; /* a molecular background: no water-borne O */
+    f.env.m_background_kg = m_n2;
+    h->prepare(p, f.m, f.y, &f.env);
+    double in_n2 = f.env.esc_h_diffusion;
+    f.env.m_background_kg = m_co2;
+    h->prepare(p, f.m, f.y, &f.env);
+    /* Hunten 1973: phi ~ (m_a - m_H2); CO2 against N2: (44.009 - 2.016)/(28.014 - 2.016) [C] */
+    ck_assert_rel(f.env.esc_h_diffusion / in_n2, (44.009 - 2.016) / (28.014 - 2.016), 1e-9);
+    (void)m_co2;
+    /* a steam upper atmosphere (f_strat = 1): atomic H through atomic O, b(H-O) =
+     * 4.8e17 T^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory), 250 K [C] */
+    f.env.f_strat = 1.0;
+    h->prepare(p, f.m, f.y, &f.env);
+    double b = 4.8e19 * pow(250.0, 0.75);
+    double want = 2.0 * 1.0 * b * f.env.g * (VL_AW_O - VL_AW_H) * VL_AMU / (VL_K_BOLTZMANN * 250.0);
+    ck_assert_rel(f.env.esc_h_diffusion, want, 1e-9);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(jeans_and_hydrodynamic_limits)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_strat = 7.6e-6;
+    f.env.f_xuv = 4.6e-3;
+    /* a cold exobase: the Jeans limit binds (lambda ~ 23) */
+    f.env.t_exo_k = 300.0;
+    h->prepare(p, f.m, f.y, &f.env);
+    ck_assert_int_eq(f.env.esc_h_limit, VL_HLIM_JEANS);
+    ck_assert_double_eq(f.env.esc_h_flux, f.env.esc_h_jeans);
+    ck_assert(f.env.lambda_h > 20.0);
+    /* the escape parameter scales as 1/T_exo (Jeans formula) [C] */
+    double l300 = f.env.lambda_h;
+    f.env.t_exo_k = 600.0;
+    h->prepare(p, f.m, f.y, &f.env);
+    ck_assert_rel(f.env.lambda_h, 0.5 * l300, 1e-12);
+    /* across the critical parameter (2.5) the hydrodynamic weight passes 1/2 continuously */
+    double lc = 2.5, t_c = 300.0 * l300 / lc;
+    f.env.t_exo_k = t_c * (1.0 - 1e-9);
+    h->prepare(p, f.m, f.y, &f.env);
+    ck_assert_rel(f.env.esc_hydro, 0.5, 1e-6);
+    f.env.t_exo_k = t_c * (1.0 + 1e-9);
+    h->prepare(p, f.m, f.y, &f.env);
+    ck_assert_rel(f.env.esc_hydro, 0.5, 1e-6);
+    /* the cap blends min(Jeans, energy) into the energy limit with that weight */
+    vl_env e = f.env;
+    e.esc_h_diffusion = HUGE_VAL;
+    e.esc_h_jeans = 2.385e10;
+    e.esc_hydro = 0.25;
+    vl_upper_h_escape(&e, 1.7e14);
+    ck_assert_rel(e.esc_h_flux, 0.75 * 2.385e10 + 0.25 * 1.7e14, 1e-12);
+    /* deep in the hydrodynamic regime, with water-rich diffusion: energy-limited */
+    f.env.f_strat = 1.0;
+    f.env.t_exo_k = 20.0 * t_c;
+    h->prepare(p, f.m, f.y, &f.env);
+    ck_assert_double_eq(f.env.esc_hydro, 1.0);
+    ck_assert_int_eq(f.env.esc_h_limit, VL_HLIM_ENERGY);
+    ck_assert_rel(f.env.esc_h_flux, f.env.esc_mass_flux / (VL_AW_H * VL_AMU), 1e-12);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(radiative_cooling_option)
+{
+    fixture f;
+    const char *sets[] = {"processes.hydrogen_escape.radiative_cooling=true",
+                          "processes.hydrogen_escape.cooling_co2=3.7"};
+    setup_earth(&f, sets, 2);
+    const void *p;
+    const vl_process *h = proc("hydrogen_escape", f.sc, &p);
+    f.env.f_xuv = 4.6e-3;
+    f.env.f_strat = 0.0;
+    f.env.x[VL_GAS_CO2] = 0.0;
+    h->prepare(p, f.m, f.y, &f.env);
+    double base = f.env.esc_mass_flux;
+    f.env.x[VL_GAS_CO2] = 0.965; /* Venus-like */
+    h->prepare(p, f.m, f.y, &f.env);
+    /* eps / (1 + c_CO2 x_CO2) (docs/escape.md) [C] */
+    ck_assert_rel(f.env.esc_mass_flux, base / (1.0 + 3.7 * 0.965), 1e-12);
+    teardown(&f);
+}
+END_TEST
+
+START_TEST(oxygen_jeans)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    f.y[VL_R_O2] = 1.2e18;
+    double dydt[VL_NRES], *cols = calloc(f.m->ncolumns, sizeof *cols);
+    int k = -1;
+    for (size_t i = 0; i < f.m->ncolumns; i++)
+        if (strcmp(f.m->col_name[i], "jeans_o_kg_s") == 0)
+            k = (int)i;
+    ck_assert_int_ge(k, 0);
+    vl_env e;
+    vl_model_rhs(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, cols, &e);
+    /* Earth today: lambda_O ~ 16 lambda_H ~ 110: O Jeans loss negligible (< 1 g/s) */
+    ck_assert(cols[k] >= 0.0 && cols[k] < 1e-3);
+    free(cols);
+    teardown(&f);
+}
+END_TEST
+
 Suite *vl_suite_escape(void)
 {
     Suite *s = suite_create("escape");
@@ -178,6 +295,10 @@ Suite *vl_suite_escape(void)
     tcase_add_test(tc, crossover_flux_earth);
     tcase_add_test(tc, photolysis_follows_escape);
     tcase_add_test(tc, photon_limit_caps);
+    tcase_add_test(tc, diffusion_through_background);
+    tcase_add_test(tc, jeans_and_hydrodynamic_limits);
+    tcase_add_test(tc, radiative_cooling_option);
+    tcase_add_test(tc, oxygen_jeans);
     suite_add_tcase(s, tc);
     return s;
 }

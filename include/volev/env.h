@@ -16,6 +16,9 @@ enum vl_regime {
     VL_NREGIMES
 };
 
+/* What limits thermal hydrogen escape (output column h_escape_limit). */
+enum vl_h_limit { VL_HLIM_DIFFUSION = 0, VL_HLIM_JEANS = 1, VL_HLIM_ENERGY = 2 };
+
 /* Atmospheric gases (index into p_pa and x). */
 enum vl_gas { VL_GAS_H2O, VL_GAS_CO2, VL_GAS_N2, VL_GAS_O2, VL_GAS_H2, VL_NGASES };
 
@@ -54,6 +57,7 @@ typedef struct vl_env {
     double r_tb_m;            /* radius of the thermosphere base (homopause), m */
     double r_exo_m;           /* exobase radius, m */
     double n_exo_m3;          /* total number density at the exobase, m^-3 */
+    double n_tb_m3;           /* total number density at the thermosphere base, m^-3 */
     double m_exo_kg;          /* mean mass of the thermosphere's particles, kg */
     double g_exo;             /* gravity at the exobase, m/s^2 */
     double b_eq_t;            /* equatorial surface field of the dipole, T (0: none) */
@@ -66,7 +70,10 @@ typedef struct vl_env {
     double esc_h_flux;        /* H escape flux the budget allows, atoms m^-2 s^-1 */
     double esc_o_flux;        /* O escape flux dragged with it, atoms m^-2 s^-1 */
     double esc_water_share;   /* fraction of the homopause hydrogen carried by H2O */
-    int esc_energy_limited;   /* 1 if the energy limit binds, 0 if diffusion */
+    double esc_h_jeans;       /* Jeans-limited H flux (exobase density in diffusive equilibrium), atoms m^-2 s^-1 of surface */
+    double esc_hydro;         /* weight 0..1 of the hydrodynamic regime (escape parameter below critical) */
+    double lambda_h;          /* Jeans escape parameter of H at the exobase */
+    int esc_h_limit;          /* what limits hydrogen escape: enum vl_h_limit */
     double photolysis_mol_s;  /* net H2O photolysed (its H escapes), mol/s */
 } vl_env;
 

@@ -29,7 +29,9 @@ enum vl_species {
  * floor_kg is the depletion band: outflows from a reservoir are ramped linearly to
  * zero as its mass falls below floor_kg, so no mass goes negative and the RHS stays
  * continuous; a reservoir below its floor is "exhausted". Carbon held in rock
- * (carbonate, mantle) is counted as CO2 equivalent. */
+ * (carbonate, mantle) is counted as CO2 equivalent. The impactor_* reservoirs hold
+ * the volatiles the impactor population has yet to deliver (filled at the start by
+ * the impacts process when its delivery is on, 0 otherwise). */
 #define VL_RESERVOIRS(X)                                   \
     X(WATER, "surface_water", VL_SP_H2O, 1.0e9)            \
     X(MANTLE_WATER, "mantle_water", VL_SP_H2O, 1.0e9)      \
@@ -44,7 +46,10 @@ enum vl_species {
     X(SPACE_H, "space_h", VL_SP_H, 1.0e3)                  \
     X(SPACE_C, "space_c", VL_SP_C, 1.0e3)                  \
     X(SPACE_N, "space_n", VL_SP_N, 1.0e3)                  \
-    X(SPACE_O, "space_o", VL_SP_O, 1.0e3)
+    X(SPACE_O, "space_o", VL_SP_O, 1.0e3)                  \
+    X(IMPACT_WATER, "impactor_water", VL_SP_H2O, 1.0e9)    \
+    X(IMPACT_CO2, "impactor_co2", VL_SP_CO2, 1.0e6)        \
+    X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6)
 
 enum vl_reservoir {
 #define VL_X(id, name, sp, fl) VL_R_##id,

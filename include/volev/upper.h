@@ -23,4 +23,10 @@ double vl_upper_magnetopause_rp(double b_eq_t, double p_ram_pa);
 double vl_upper_jeans_flux(double n_m3, double m_kg, double t_k, double r_m, double mp_kg,
                            double *lambda_out);
 
+/* Thermal hydrogen escape, atoms m^-2 s^-1 of surface: the lesser of the diffusion limit
+ * and the exobase cap, where the cap blends the Jeans limit (min with the energy limit
+ * h_el) into the energy limit as the flow turns hydrodynamic (weight env->esc_hydro).
+ * Sets env->esc_h_flux and env->esc_h_limit; continuous in every input. */
+void vl_upper_h_escape(vl_env *env, double h_el);
+
 #endif

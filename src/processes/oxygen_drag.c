@@ -13,6 +13,7 @@
 
 #include "volev/model.h"
 #include "volev/units.h"
+#include "volev/upper.h"
 
 typedef struct {
     double temp_k; /* temperature of the escaping flow */
@@ -42,8 +43,7 @@ static void prepare(const void *pv, const vl_model *m, const double *y, vl_env *
     double h_el = env->esc_mass_flux / m_h;
     if (h_el > X_H * phi)
         h_el = (env->esc_mass_flux + m_o * X_O * phi) / (m_h + m_o * X_O / X_H);
-    env->esc_energy_limited = h_el < env->esc_h_diffusion;
-    env->esc_h_flux = env->esc_energy_limited ? h_el : env->esc_h_diffusion;
+    vl_upper_h_escape(env, h_el);
     double f_o = (X_O / X_H) * env->esc_h_flux - X_O * phi;
     env->esc_o_flux = f_o > 0.0 ? f_o : 0.0;
 }
