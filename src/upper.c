@@ -10,7 +10,9 @@
  * B_eq = mu0 M/(4 pi R_p^3); an unmagnetised planet (or a field too weak to hold the
  * wind off the ionosphere) has an induced obstacle at planet.induced_obstacle_rp.
  * Polar caps: dipole field lines from r_mp reach the surface at colatitude theta with
- * sin^2 theta = R_p/R_mp; both caps cover 1 - cos theta of the surface. */
+ * sin^2 theta = R_p/R_mp; both caps cover 1 - cos theta of the surface, tapered by
+ * (1 - r_obs/R_mp) so that the open area vanishes continuously when the field can no
+ * longer hold the wind above the induced obstacle r_obs. */
 #include "volev/upper.h"
 
 #include <math.h>
@@ -71,7 +73,9 @@ void vl_upper_eval(const vl_scenario *sc, vl_env *env)
     env->b_eq_t = VL_MU0 * pl->dipole_am2 / (4.0 * VL_PI * rp * rp * rp);
     double r_mp = vl_upper_magnetopause_rp(env->b_eq_t, env->wind_pressure_pa);
     env->r_mp_rp = fmax(r_mp, pl->obstacle_rp);
-    env->cap_fraction = r_mp > pl->obstacle_rp ? 1.0 - sqrt(1.0 - 1.0 / r_mp) : 0.0;
+    env->cap_fraction = r_mp > pl->obstacle_rp ? (1.0 - sqrt(1.0 - 1.0 / r_mp)) *
+                                                     (1.0 - pl->obstacle_rp / r_mp)
+                                               : 0.0;
 }
 
 void vl_upper_h_escape(vl_env *env, double h_el)

@@ -50,9 +50,12 @@ START_TEST(earth_upper_atmosphere)
     ck_assert_rel(e.b_eq_t, 3.09e-5, 5e-3);
     /* present solar wind: magnetopause near 10 R_E (textbook 10-11) */
     ck_assert_msg(e.r_mp_rp > 8.0 && e.r_mp_rp < 12.0, "R_mp = %g", e.r_mp_rp);
-    /* polar caps: sin^2 theta = 1/R_mp, both caps 1 - cos theta of the surface [C];
-     * Earth's auroral ovals near 70 deg latitude (textbook) -> a few per cent */
-    ck_assert_rel(e.cap_fraction, 1.0 - sqrt(1.0 - 1.0 / e.r_mp_rp), 1e-12);
+    /* polar caps: sin^2 theta = 1/R_mp, both caps 1 - cos theta of the surface, tapered
+     * by 1 - r_obs/R_mp (docs/escape.md) [C]; Earth's auroral ovals near 70 deg latitude
+     * (textbook) -> a few per cent */
+    ck_assert_rel(e.cap_fraction,
+                  (1.0 - sqrt(1.0 - 1.0 / e.r_mp_rp)) * (1.0 - sc->planet.obstacle_rp / e.r_mp_rp),
+                  1e-12);
     ck_assert(e.cap_fraction > 0.03 && e.cap_fraction < 0.08);
     /* present exobase: ~1000 K (mean solar activity) and a few hundred km (from memory) */
     ck_assert_msg(e.t_exo_k > 900.0 && e.t_exo_k < 1100.0, "T_exo = %g", e.t_exo_k);
