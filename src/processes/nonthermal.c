@@ -31,6 +31,7 @@
 #include <math.h>
 #include <stddef.h>
 
+#include "registry.h"
 #include "volev/model.h"
 #include "volev/units.h"
 
@@ -338,12 +339,11 @@ static void polar_demand(const params *p, const vl_model *m, const vl_env *env, 
     photon_guard(p, m, env, env->cap_fraction, q);
 }
 
-/* Capped H demand of the process called name, particles/s (0 if off or uncapped). */
-static double capped_h(const vl_model *m, const vl_env *env, const char *name,
+/* Capped H demand of process i (registry.h), particles/s (0 if off or uncapped). */
+static double capped_h(const vl_model *m, const vl_env *env, int i,
                        void (*demand)(const params *, const vl_model *, const vl_env *, double *))
 {
-    int i = vl_process_find(name);
-    if (i < 0 || !m->sc->proc[i].enabled)
+    if (!m->sc->proc[i].enabled)
         return 0.0;
     const params *p = m->sc->proc[i].params;
     if (!p->h_capped)
@@ -359,12 +359,11 @@ static double capped_h(const vl_model *m, const vl_env *env, const char *name,
  * hydrogen_escape is off (no budget) or the diffusion limit is unbounded. */
 static double h_room_factor(const vl_model *m, const vl_env *env)
 {
-    int he = vl_process_find("hydrogen_escape");
-    if (he < 0 || !m->sc->proc[he].enabled || !isfinite(env->esc_h_diffusion))
+    if (!m->sc->proc[VL_PROC_hydrogen_escape].enabled || !isfinite(env->esc_h_diffusion))
         return 1.0;
     double room = fmax(env->esc_h_diffusion - env->esc_h_flux, 0.0) * m->area_m2;
-    double total = capped_h(m, env, "ion_pickup", pickup_demand) +
-                   capped_h(m, env, "polar_outflow", polar_demand);
+    double total = capped_h(m, env, VL_PROC_ion_pickup, pickup_demand) +
+                   capped_h(m, env, VL_PROC_polar_outflow, polar_demand);
     return total > 0.0 ? softmin(total, room) / total : 0.0;
 }
 
