@@ -6,6 +6,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "volev/interior.h"
 #include "volev/units.h"
 #include "volev/upper.h"
 
@@ -145,6 +146,7 @@ void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl
     env->lya_flux = env->star.lya_flux_1au * (VL_AU / a) * (VL_AU / a) / sqrt(1.0 - e * e);
     env->wind_pressure_pa =
         env->star.wind_mdot_kg_s * env->star.wind_speed_m_s / (4.0 * VL_PI * a * a);
+    env->heat_flow_rel = vl_interior_heat_flow_rel(&sc->interior, t_s);
     env->g = m->g;
     env->area_m2 = m->area_m2;
     env->mass_kg[VL_GAS_CO2] = pos(y[VL_R_CO2]);

@@ -31,6 +31,7 @@ typedef struct vl_env {
     double lya_flux;          /* H2O-dissociating photons at the planet, m^-2 s^-1 */
     double wind_pressure_pa;  /* stellar wind ram pressure at the planet, Pa */
 
+    double heat_flow_rel;     /* interior heat flow over its reference-age value */
     double g;                 /* surface gravity, m/s^2 */
     double area_m2;           /* planet surface area, m^2 */
 

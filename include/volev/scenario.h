@@ -49,6 +49,21 @@ typedef struct vl_planet_params {
     double obstacle_rp;        /* induced-magnetosphere obstacle, planet radii */
 } vl_planet_params;
 
+enum vl_heat_model { VL_HEAT_RADIOGENIC, VL_HEAT_EXPONENTIAL, VL_HEAT_POWER_LAW };
+#define VL_HEAT_CHOICES "radiogenic|exponential|power_law"
+enum vl_tectonics { VL_TECTONICS_MOBILE, VL_TECTONICS_STAGNANT };
+#define VL_TECTONICS_CHOICES "mobile_lid|stagnant_lid"
+
+typedef struct vl_interior_params {
+    int heat_model;            /* enum vl_heat_model */
+    double heat_flow_w;        /* present (reference-age) heat flow, W */
+    double ref_age_s;          /* age at which the heat flow has that value */
+    double efold_s;            /* exponential: e-folding time */
+    double power_exp;          /* power_law: Q ~ (t/t_ref)^-n */
+    double share[4];           /* radiogenic: present heat shares of U-238, U-235, Th-232, K-40 */
+    int tectonics;             /* enum vl_tectonics */
+} vl_interior_params;
+
 typedef struct vl_inventory_params {
     double surface_water_kg;   /* file: TO */
     double mantle_water_kg;    /* file: TO */
@@ -114,6 +129,7 @@ typedef struct vl_scenario {
     char name[256];            /* file name without folder and extension */
     vl_star_params star;
     vl_planet_params planet;
+    vl_interior_params interior;
     vl_inventory_params inventory;
     vl_climate_params climate;
     vl_run_params run;
