@@ -11,6 +11,7 @@
 
 #include <ctype.h>
 #include <errno.h>
+#include <pthread.h>
 #include <libconfig.h>
 #include <limits.h>
 #include <math.h>
@@ -79,13 +80,41 @@ static void list_text(const char *list, const char *joiner, char *buf, size_t n)
 /* ------------------------------------------------------------------ the index */
 
 /* Row i and its full dotted key (written into key). */
+/* Full keys of every parameter, built once (the tables are constant): lookups by key
+ * run on every load and every resolved-scenario write. */
+#define CACHE_MAX 2048
+#define CACHE_KEY 128
+static char key_cache[CACHE_MAX][CACHE_KEY];
+static size_t key_cache_n;
+static pthread_once_t key_cache_once = PTHREAD_ONCE_INIT;
+
+static void build_key_cache(void)
+{
+    size_t n = vl_param_count();
+    key_cache_n = n < CACHE_MAX ? n : CACHE_MAX;
+    for (size_t i = 0; i < key_cache_n; i++) {
+        const vl_param *p;
+        void *base;
+        const char *prefix;
+        vl_param_at(NULL, i, &p, &base, &prefix);
+        snprintf(key_cache[i], CACHE_KEY, "%s%s", prefix, p->key);
+    }
+}
+
+/* The full key of parameter i (cached). */
+static const char *cached_key(size_t i)
+{
+    pthread_once(&key_cache_once, build_key_cache);
+    return i < key_cache_n ? key_cache[i] : "";
+}
+
 static const vl_param *param_key(size_t i, char *key, size_t n)
 {
     const vl_param *p;
     void *base;
     const char *prefix;
     vl_param_at(NULL, i, &p, &base, &prefix);
-    snprintf(key, n, "%s%s", prefix, p->key);
+    snprintf(key, n, "%s", cached_key(i));
     return p;
 }
 
@@ -102,15 +131,9 @@ static void *slot_of(const vl_scenario *sc, size_t i, const vl_param **pp)
 static long find_key(const char *key)
 {
     size_t n = vl_param_count();
-    for (size_t i = 0; i < n; i++) {
-        const vl_param *p;
-        void *base;
-        const char *prefix;
-        vl_param_at(NULL, i, &p, &base, &prefix);
-        size_t plen = strlen(prefix);
-        if (strncmp(key, prefix, plen) == 0 && strcmp(key + plen, p->key) == 0)
+    for (size_t i = 0; i < n; i++)
+        if (strcmp(key, cached_key(i)) == 0)
             return (long)i;
-    }
     return -1;
 }
 
@@ -118,9 +141,8 @@ static long find_key(const char *key)
 static int is_group(const char *path)
 {
     size_t len = strlen(path), n = vl_param_count();
-    char key[KEY_MAX];
     for (size_t i = 0; i < n; i++) {
-        param_key(i, key, sizeof key);
+        const char *key = cached_key(i);
         if (strncmp(key, path, len) == 0 && key[len] == '.')
             return 1;
     }
@@ -407,10 +429,17 @@ static const char *row_problem(const vl_param *p)
 static int check_tables(vl_status *st)
 {
     size_t n = vl_param_count();
+    if (n > CACHE_MAX)
+        return vl_fail(st, VL_ERR_INTERNAL, "", 0, "more than %d parameters", CACHE_MAX);
     char key[KEY_MAX], other[KEY_MAX];
     for (size_t i = 0; i < n; i++) {
         const vl_param *p = param_key(i, key, sizeof key);
         const char *why = row_problem(p);
+        void *base;
+        const char *prefix;
+        vl_param_at(NULL, i, &p, &base, &prefix);
+        if (!why && strlen(prefix) + strlen(p->key) >= CACHE_KEY)
+            why = "key too long";
         if (!why && find_key(key) != (long)i)
             why = "key defined twice";
         if (!why && is_group(key))
