@@ -7,7 +7,8 @@
  * interpolates. The energy balance N(T) = S (1 - A(T)) / 4 - OLR(T) is then scanned
  * on the temperature grid for its stable roots (N falling through zero), refined on
  * the interpolant:
- *  - a cold root (below climate.freeze_temp_k) is the frozen state, a warm root the
+ *  - a cold root (below the middle of the ice-albedo ramp, where roots are unstable) is
+ *    the frozen (snowball) state, a warm root the
  *    temperate or moist-greenhouse state; a planet stays on its branch while that
  *    root exists, so frozen and temperate states show hysteresis;
  *  - without a warm or cold root, absorbed flux exceeds the OLR limit: runaway.
@@ -180,6 +181,11 @@ typedef struct balance_s {
     int warm;          /* grid cell of the lowest stable root at or above freezing, or -1 */
 } balance;
 
+/* Temperature separating the frozen (snowball) branch from the warm one: the middle of
+ * the ice-albedo ramp, where the albedo feedback is strongest and equilibria unstable,
+ * so that a stable root crossing it is a label change, not a jump. */
+static double split_temp(const column *c) { return 0.5 * (c->cp.ice_cover_k + c->cp.ice_free_k); }
+
 static double root_in(const balance *b, int j)
 {
     return grid_t(j) + (grid_t(j + 1) - grid_t(j)) * b->net[j] / (b->net[j] - b->net[j + 1]);
@@ -208,7 +214,7 @@ static void fill_balance(const column *c, int wet, const vl_env *env, double p_c
     for (int j = 0; j + 1 < NT; j++) {
         if (!(b->net[j] > 0.0 && b->net[j + 1] <= 0.0))
             continue;
-        if (root_in(b, j) < c->cp.freeze_temp_k) {
+        if (root_in(b, j) < split_temp(c)) {
             if (b->cold < 0)
                 b->cold = j;
         } else if (b->warm < 0) {
@@ -243,7 +249,7 @@ static void thresholds(const column *c, const balance *b, const vl_env *env, vl_
 {
     double s_run = 0.0, s_moist = NAN, thr = log(c->cp.moist_threshold);
     for (int j = 0; j < NT; j++) {
-        if (grid_t(j) < c->cp.freeze_temp_k)
+        if (grid_t(j) < split_temp(c))
             continue;
         double s_eq = 4.0 * b->olr[j] / (1.0 - b->alb[j]);
         if (s_eq > s_run)
@@ -278,7 +284,7 @@ static double branch_temp(const column *c, const balance *b, int regime)
         return root_in(b, j);
     int lo = 0, hi = NT - 1;
     for (int k = 0; k < NT; k++) {
-        if (grid_t(k) < c->cp.freeze_temp_k)
+        if (grid_t(k) < split_temp(c))
             lo = cold ? lo : k + 1;
         else if (cold) {
             hi = k;
