@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "volev/interior.h"
+#include "volev/ocean.h"
 #include "volev/units.h"
 #include "volev/upper.h"
 
@@ -133,6 +134,27 @@ static void finish_atmosphere(const vl_model *m, vl_env *env)
     env->m_background_kg = bg_mol > 0.0 ? bg_mass / bg_mol / VL_AVOGADRO : m_h2o;
 }
 
+/* The atmospheric part of the surface CO2 over an ocean (ocean.h), in two passes: at
+ * VL_OCEAN_FIRST_PASS_K, then at the surface temperature the climate gives for that
+ * first split (not below the freezing point: an ice-covered ocean stays at it). The
+ * climate is then evaluated again by the caller. Continuous in y for a fixed regime. */
+static void split_surface_co2(const vl_model *m, const double *y, vl_env *env)
+{
+    double surface = pos(y[VL_R_CO2]), water = pos(y[VL_R_WATER]);
+    double ocean_m3 = water / VL_OCEAN_DENSITY_KG_M3;
+    vl_ocean_air air = {0.0, 0.0, m->pa_per_kg};
+    static const int others[3][2] = {
+        {VL_GAS_N2, VL_SP_N2}, {VL_GAS_O2, VL_SP_O2}, {VL_GAS_H2, VL_SP_H2}};
+    for (int i = 0; i < 3; i++) {
+        air.other_kg += env->mass_kg[others[i][0]];
+        air.other_mol += env->mass_kg[others[i][0]] / vl_species_molar_mass(others[i][1]);
+    }
+    env->mass_kg[VL_GAS_CO2] = vl_ocean_atm_co2(surface, ocean_m3, VL_OCEAN_FIRST_PASS_K, &air);
+    vl_climate_eval(m->climate, water, env);
+    double t_ocean = fmax(env->t_surf_k, m->sc->climate.freeze_temp_k);
+    env->mass_kg[VL_GAS_CO2] = vl_ocean_atm_co2(surface, ocean_m3, t_ocean, &air);
+}
+
 void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl_env *env)
 {
     const vl_scenario *sc = m->sc;
@@ -154,6 +176,8 @@ void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl
     env->mass_kg[VL_GAS_O2] = pos(y[VL_R_O2]);
     env->mass_kg[VL_GAS_H2] = pos(y[VL_R_H2]);
     env->regime = regime;
+    if (vl_ocean_holds_carbon(regime) && y[VL_R_WATER] > 0.0)
+        split_surface_co2(m, y, env);
     vl_climate_eval(m->climate, pos(y[VL_R_WATER]), env);
     finish_atmosphere(m, env);
     vl_upper_eval(sc, env);

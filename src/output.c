@@ -33,6 +33,7 @@ struct vl_output {
     double first_event[64];   /* first time of each distinct event name, s */
     char event_names[64][32];
     int nevent_names;
+    int last_regime;          /* regime of the latest row (the summary's split of the CO2) */
 };
 
 const char *vl_version(void) { return VL_VERSION " (git " VL_GIT_REV ")"; }
@@ -104,7 +105,7 @@ static void series_header(vl_output *o)
                "p_co2_bar,p_n2_bar,p_o2_bar,p_h2_bar,instellation_w_m2,s_eff,f_xuv_w_m2,"
                "luminosity_lsun,strat_h2o,h_escape_kg_s,o_escape_kg_s,c_escape_kg_s,"
                "n_escape_kg_s,exobase_temp_k,exobase_alt_km,magnetopause_rp,escape_lambda_h,"
-               "h_escape_limit");
+               "h_escape_limit,ocean_co2_kg");
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%s_kg", vl_reservoir_name(r));
     for (size_t c = 0; c < o->m->ncolumns; c++)
@@ -120,6 +121,7 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
         return NULL;
     }
     o->m = m;
+    o->last_regime = VL_REGIME_TEMPERATE;
     snprintf(o->dir, sizeof o->dir, "%s", dir);
     if (vl_output_scenario_hash(m->sc, o->hash, st) != VL_OK) {
         free(o);
@@ -149,6 +151,13 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
 
 static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
 
+/* CO2 dissolved in the ocean, kg: the surface CO2 less the atmospheric part that the
+ * ocean partition (ocean.h, called by vl_model_env) left in env. */
+static double ocean_co2(const double *y, const vl_env *env)
+{
+    return clamp0(clamp0(y[VL_R_CO2]) - env->mass_kg[VL_GAS_CO2]);
+}
+
 static int row_cb(void *ctx, double t, const double *y, const double *dydt, const vl_env *env,
                   const double *columns, vl_status *st)
 {
@@ -162,9 +171,10 @@ static int row_cb(void *ctx, double t, const double *y, const double *dydt, cons
             env->p_pa[VL_GAS_CO2] * bar, env->p_pa[VL_GAS_N2] * bar, env->p_pa[VL_GAS_O2] * bar,
             env->p_pa[VL_GAS_H2] * bar, env->instellation, env->s_eff, env->f_xuv,
             env->star.l_bol_w / VL_L_SUN, env->f_strat, dydt[VL_R_SPACE_H], dydt[VL_R_SPACE_O]);
-    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d", dydt[VL_R_SPACE_C], dydt[VL_R_SPACE_N],
-            env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3, env->r_mp_rp,
-            env->lambda_h, env->esc_h_limit);
+    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d,%.10g", dydt[VL_R_SPACE_C],
+            dydt[VL_R_SPACE_N], env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3,
+            env->r_mp_rp, env->lambda_h, env->esc_h_limit, ocean_co2(y, env));
+    o->last_regime = env->regime;
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%.10g", clamp0(y[r]));
     for (size_t c = 0; c < o->m->ncolumns; c++)
@@ -201,7 +211,7 @@ static void summary(vl_output *o, const vl_run_stats *s)
     double pa = m->pa_per_kg / VL_BAR;
     double h_per_water = 2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O);
     vl_env env;
-    vl_model_env(m, m->sc->run.end_s, y, VL_REGIME_TEMPERATE, &env);
+    vl_model_env(m, m->sc->run.end_s, y, o->last_regime, &env);
     header(o, f);
     fprintf(f, "# scenario: %s\n", m->sc->path);
     fprintf(f, "name,value,unit\n");
@@ -210,7 +220,8 @@ static void summary(vl_output *o, const vl_run_stats *s)
     fprintf(f, "final_surface_water,%.10g,TO\n", clamp0(y[VL_R_WATER]) / VL_TO_KG);
     fprintf(f, "water_lost_to_space,%.10g,TO\n", y[VL_R_SPACE_H] / h_per_water / VL_TO_KG);
     fprintf(f, "o2_accumulated,%.10g,bar\n", clamp0(y[VL_R_O2]) * pa);
-    fprintf(f, "final_co2,%.10g,bar\n", clamp0(y[VL_R_CO2]) * pa);
+    fprintf(f, "final_co2,%.10g,bar\n", env.mass_kg[VL_GAS_CO2] * pa);
+    fprintf(f, "final_ocean_co2,%.10g,kg\n", ocean_co2(y, &env));
     fprintf(f, "final_co2_mole_fraction,%.10g,ppmv\n", env.x[VL_GAS_CO2] * 1e6);
     for (int k = 0; k < o->nevent_names; k++)
         fprintf(f, "first_%s,%.10g,yr\n", o->event_names[k], o->first_event[k] / VL_YR);

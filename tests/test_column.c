@@ -113,6 +113,7 @@ typedef struct {
     vl_scenario *sc;
     vl_model *m;
     double y[VL_NRES];
+    double co2_air_kg;  /* the CO2 the air holds (x_co2); y[VL_R_CO2] adds the ocean's */
 } planet;
 
 static void make_planet(planet *p, double x_co2, const char *extra)
@@ -129,6 +130,7 @@ static void make_planet(planet *p, double x_co2, const char *extra)
     p->y[VL_R_N2] = VL_BAR / p->m->pa_per_kg;
     p->y[VL_R_CO2] = p->y[VL_R_N2] * x_co2 / (1.0 - x_co2) * mc / mn;
     p->y[VL_R_WATER] = VL_TO_KG;
+    p->co2_air_kg = p->y[VL_R_CO2];
 }
 
 static void free_planet(planet *p)
@@ -138,8 +140,17 @@ static void free_planet(planet *p)
 }
 
 /* env at instellation s_eff (units of 1361 W/m^2) in regime. */
-static void env_at(const planet *p, double s_eff, int regime, vl_env *env)
+static void env_at(planet *p, double s_eff, int regime, vl_env *env)
 {
+    /* VL_R_CO2 is the CO2 of air and ocean together (ocean.h): find, by bisection in
+     * log, the amount whose atmospheric part in this regime is co2_air_kg */
+    double want = p->co2_air_kg, lo = log(want), hi = log(want) + log(1e4);
+    for (int i = 0; i < 60; i++) {
+        p->y[VL_R_CO2] = exp(0.5 * (lo + hi));
+        vl_model_env(p->m, 4.57e9 * VL_YR, p->y, regime, env);
+        *(env->mass_kg[VL_GAS_CO2] < want ? &lo : &hi) = log(p->y[VL_R_CO2]);
+    }
+    p->y[VL_R_CO2] = exp(hi);
     vl_model_env(p->m, 4.57e9 * VL_YR, p->y, regime, env);
     env->instellation = s_eff * VL_S_EARTH;
     env->s_eff = s_eff;
@@ -245,7 +256,7 @@ START_TEST(table_matches_column)
     vl_column_opts o = default_opts(p.m->g);
     double mc = vl_species_molar_mass(VL_SP_CO2), mn = vl_species_molar_mass(VL_SP_N2);
     vl_column_air a;
-    double pc = p.y[VL_R_CO2] * p.m->pa_per_kg, pn = p.y[VL_R_N2] * p.m->pa_per_kg;
+    double pc = e.mass_kg[VL_GAS_CO2] * p.m->pa_per_kg, pn = p.y[VL_R_N2] * p.m->pa_per_kg;
     a.p_dry_pa = pc + pn;
     a.q_co2 = pc / a.p_dry_pa;
     a.m_dry = a.p_dry_pa / (pc / mc + pn / mn);

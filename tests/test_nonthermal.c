@@ -17,7 +17,7 @@
 #define M_H (VL_AW_H * 1e-3 / VL_AVOGADRO)
 #define M_C (VL_AW_C * 1e-3 / VL_AVOGADRO)
 
-/* Documented defaults (docs/escape_nonthermal.md): Mars reference drivers [C]. */
+/* Documented defaults (docs/escape.md): Mars reference drivers [C]. */
 #define MARS_XUV 1.9806e-3    /* W/m^2: 4.6 erg cm^-2 s^-1 (Ribas et al. 2005) / 1.524^2 */
 #define MARS_WIND 0.7717e-9   /* Pa: 2e-14 M_sun/yr at 400 km/s, at 1.524 au */
 #define MARS_VESC 4.885e3     /* m/s: Mars's exobase at 200 km */

@@ -31,11 +31,12 @@ enum vl_species {
  * continuous; a reservoir below its floor is "exhausted". Carbon held in rock
  * (carbonate, mantle) is counted as CO2 equivalent. The impactor_* reservoirs hold
  * the volatiles the impactor population has yet to deliver (filled at the start by
- * the impacts process when its delivery is on, 0 otherwise). */
+ * the impacts process when its delivery is on, 0 otherwise). crust_nitrogen holds
+ * nitrogen fixed from the atmosphere and buried (nitrogen_burial). */
 #define VL_RESERVOIRS(X)                                   \
     X(WATER, "surface_water", VL_SP_H2O, 1.0e9)            \
     X(MANTLE_WATER, "mantle_water", VL_SP_H2O, 1.0e9)      \
-    X(CO2, "atm_co2", VL_SP_CO2, 1.0e6)                    \
+    X(CO2, "surface_co2", VL_SP_CO2, 1.0e6)                \
     X(CARBONATE, "carbonate_rock", VL_SP_CO2, 1.0e6)       \
     X(MANTLE_C, "mantle_carbon", VL_SP_CO2, 1.0e6)         \
     X(N2, "atm_n2", VL_SP_N2, 1.0e6)                       \
@@ -49,7 +50,8 @@ enum vl_species {
     X(SPACE_O, "space_o", VL_SP_O, 1.0e3)                  \
     X(IMPACT_WATER, "impactor_water", VL_SP_H2O, 1.0e9)    \
     X(IMPACT_CO2, "impactor_co2", VL_SP_CO2, 1.0e6)        \
-    X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6)
+    X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6)           \
+    X(CRUST_N, "crust_nitrogen", VL_SP_N2, 1.0e6)
 
 enum vl_reservoir {
 #define VL_X(id, name, sp, fl) VL_R_##id,

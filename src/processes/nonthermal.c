@@ -1,5 +1,5 @@
 /* nonthermal.c: non-thermal escape, four processes sharing one scaling law
- * (docs/escape_nonthermal.md; science.md section 7):
+ * (docs/escape.md; science.md section 7):
  *   ion_pickup            ions picked up by the stellar wind (O+, H+, CO2+, N+)
  *   sputtering            neutrals knocked out by re-impacting pickup ions (O, CO2, N)
  *   photochemical_escape  hot atoms from dissociative recombination (O; C, N)
@@ -219,7 +219,7 @@ static const vl_param polar_table[] = {
         "changes two- to three-fold (Yau et al. 1985); 1 is the low end"),
     ROW("wind_exponent", "", 1.0, 0.0, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
         "0: the wind acts through the open-cap area (~p^(1/6) for a distant magnetopause); "
-        "b = 1 gives of order 1e5 kg/s of O around young M dwarfs (docs/escape_nonthermal.md)"),
+        "b = 1 gives of order 1e5 kg/s of O around young M dwarfs (docs/escape.md)"),
     PHOTON_ROW,
     H_CAP_ROW,
 };

@@ -1,7 +1,13 @@
 /* outgassing.c: volcanic outgassing of CO2, N2 and H2O from the mantle reservoirs,
- * V(t) = V0 (Q(t)/Q0)^m with an exponentially declining heat flow
- * Q(t)/Q0 = exp((t_ref - t)/tau_Q) (the power law in heat flow: Lehmer et al. 2020,
- * Nat. Commun. 11:6153, m = 1-2). */
+ * driven by the interior heat flow Q(t)/Q0 = env->heat_flow_rel (interior.c):
+ *   mobile lid:    V = V0 (Q/Q0)^m             (Lehmer et al. 2020, Nat. Commun.
+ *                                                11:6153: m = 1-2)
+ *   stagnant lid:  V = f_sl V0 (Q/Q0)^m_sl      (melting under a thick lid only: no
+ *                                                ridges or arcs; Foley & Smye 2018,
+ *                                                Astrobiology 18:873; Tosi et al. 2017,
+ *                                                A&A 605:A71, both from memory)
+ * V0 is the mantle-derived flux; CO2 returned at arcs from subducted carbonate is the
+ * carbonate_recycling process (docs/cycles.md). */
 #include <math.h>
 #include <stddef.h>
 
@@ -9,43 +15,62 @@
 #include "volev/units.h"
 
 typedef struct {
-    double co2_mol_s, n2_mol_s, h2o_mol_s; /* V0 at reference age */
-    double efold_s;                        /* tau_Q */
+    double co2_mol_s, n2_mol_s, h2o_mol_s; /* V0 at the interior's reference age */
     double exponent;                       /* m */
-    double ref_age_s;                      /* t_ref */
+    double stagnant_factor;                /* f_sl */
+    double stagnant_exponent;              /* m_sl */
 } params;
 
 #define TMOL_YR (1e12 / VL_YR)
-#define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+#define MOBILE "planet.interior.tectonics=mobile_lid"
+#define STAGNANT "planet.interior.tectonics=stagnant_lid"
+#define R(k, unit, si, d, lo, hi, f, doc, ref, needs)                                      \
+    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
 
 static const vl_param table[] = {
-    R("co2_tmol_yr", "Tmol/yr", TMOL_YR, 5.9, 0.0, 1e6, co2_mol_s,
-      "CO2 outgassing at the reference age",
-      "Gerlach 2011, Eos 92:201: 0.26 Gt CO2/yr = 5.9 Tmol/yr"),
+    R("co2_tmol_yr", "Tmol/yr", TMOL_YR, 2.0, 0.0, 1e6, co2_mol_s,
+      "mantle-derived CO2 outgassing at the reference age of the heat flow (arc return of "
+      "subducted carbonate not included)",
+      "Gerlach 2011, Eos 92:201: all volcanoes 5.9 Tmol/yr, less the ~3.9 Tmol/yr that "
+      "carbonate_recycling returns in scenarios/earth.cfg today; of the order of the "
+      "mid-ocean-ridge flux, ~2 Tmol/yr (Marty & Tolstikhin 1998, Chem. Geol. 145:233, "
+      "from memory)", NULL),
     R("n2_tmol_yr", "Tmol/yr", TMOL_YR, 1e-3, 0.0, 1e6, n2_mol_s,
-      "N2 outgassing at the reference age", "order of the mantle N flux, from memory"),
+      "N2 outgassing at the reference age", "order of the mantle N flux, from memory", NULL),
     R("h2o_tmol_yr", "Tmol/yr", TMOL_YR, 0.0, 0.0, 1e6, h2o_mol_s,
       "net (juvenile) H2O outgassing at the reference age",
-      "0: arc water is recycled; net mantle exchange arrives with the interior cycles"),
-    R("heat_flow_efold_gyr", "Gyr", 1e9 * VL_YR, 4.3, 0.1, 1e3, efold_s,
-      "e-folding time of the mantle heat flow",
-      "radiogenic heat about twice today's 3 Gyr ago, from memory"),
+      "0: arc water is recycled; net mantle exchange arrives with the interior cycles", NULL),
     R("heat_flow_exponent", "", 1.0, 1.0, 0.0, 3.0, exponent,
-      "m in V ~ Q^m", "Lehmer et al. 2020: m = 1-2"),
-    R("reference_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, ref_age_s,
-      "stellar age at which the rates apply", "present solar age, from memory"),
+      "m in V ~ (Q/Q0)^m (mobile lid)", "Lehmer et al. 2020: m = 1-2", MOBILE),
+    R("stagnant_lid_factor", "", 1.0, 0.1, 0.0, 1.0, stagnant_factor,
+      "f_sl: stagnant-lid outgassing over the mobile-lid rate at the same heat flow",
+      "from memory: a stagnant lid of Earth's size outgasses a few to a few tens of bar "
+      "of CO2 over 4.5 Gyr (Tosi et al. 2017), an order of magnitude below Earth's "
+      "time-integrated volcanic flux", STAGNANT),
+    R("stagnant_lid_exponent", "", 1.0, 2.0, 0.0, 5.0, stagnant_exponent,
+      "m_sl in V ~ (Q/Q0)^m_sl (stagnant lid): melting under the lid falls faster than "
+      "the heat flow",
+      "from memory: stagnant-lid outgassing wanes within a few Gyr as the mantle cools "
+      "(Foley & Smye 2018); 2 is the top of the mobile-lid range of Lehmer et al. 2020", STAGNANT),
 };
 
 static const char *const columns[] = {"outgas_co2_kg_s", "outgas_n2_kg_s", "outgas_h2o_kg_s"};
+
+/* V / V0 at the heat flow in env for the scenario's tectonic mode. */
+static double heat_scale(const params *p, const vl_model *m, const vl_env *env)
+{
+    double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
+    if (m->sc->interior.tectonics == VL_TECTONICS_STAGNANT)
+        return p->stagnant_factor * pow(q, p->stagnant_exponent);
+    return pow(q, p->exponent);
+}
 
 static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
                   vl_flux *fx)
 {
     const params *p = pv;
-    (void)m;
     (void)y;
-    double s = exp(p->exponent * (p->ref_age_s - env->t_s) / p->efold_s);
+    double s = heat_scale(p, m, env);
     vl_flux_move(fx, VL_R_MANTLE_C, VL_R_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);
     vl_flux_move(fx, VL_R_MANTLE_N, VL_R_N2, s * p->n2_mol_s * vl_species_molar_mass(VL_SP_N2), 1);
     vl_flux_move(fx, VL_R_MANTLE_WATER, VL_R_WATER,
@@ -54,8 +79,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
 
 const vl_process vl_process_outgassing = {
     .name = "outgassing",
-    .summary = "volcanic outgassing of CO2, N2, H2O scaled by a declining heat flow",
-    .refs = "Gerlach 2011; Lehmer et al. 2020",
+    .summary = "volcanic outgassing of CO2, N2, H2O scaled by the interior heat flow",
+    .refs = "Gerlach 2011; Lehmer et al. 2020; Foley & Smye 2018; Tosi et al. 2017",
     VL_PROCESS_TABLES(table, params, columns),
     .default_enabled = 1,
     .rates = rates,

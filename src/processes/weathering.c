@@ -1,10 +1,13 @@
 /* weathering.c: continental silicate weathering (Walker, Hays & Kasting 1981, JGR
- * 86:9776): W = W0 f_liq (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te), drawing
- * CO2 into carbonate rock; f_liq is the ice-free share of the ocean from the climate
- * (0 without liquid water), which keeps the rate continuous through freezing. The
- * kinetic rate W_kin is capped by the supply of fresh rock (West 2012; Foley 2015,
- * ApJ 812:36): W = W_max (1 - exp(-W_kin / W_max)), with the kinetic prefactor chosen
- * so that W equals reference_rate in the reference state. */
+ * 86:9776): W_kin = k f_liq (f_land/f_land,0) (pCO2/pCO2_0)^beta exp((T - T0)/Te) R(T),
+ * drawing CO2 into carbonate rock; f_liq is the ice-free share of the ocean from the
+ * climate (0 without liquid water), which keeps the rate continuous through freezing.
+ * R(T) is an optional runoff factor, [max(0, 1 + RUN (T - T0))]^0.65 (Berner &
+ * Kothavala 2001, AJS 301:182, GEOCARB III, from memory), off by default because Te
+ * already stands for the whole temperature dependence in the estimates it comes from
+ * (Lehmer et al. 2020). The kinetic rate is capped by the supply of fresh rock (West
+ * 2012; Foley 2015, ApJ 812:36): W = W_max (1 - exp(-W_kin / W_max)), with k chosen so
+ * that W equals reference_rate in the reference state. */
 #include <math.h>
 #include <stddef.h>
 
@@ -20,15 +23,19 @@ typedef struct {
     double land;       /* land fraction */
     double land_ref;   /* land fraction at W0 */
     double max_mol_s;  /* W_max, supply limit */
+    int runoff;        /* apply R(T) */
+    double runoff_per_k; /* RUN */
+    double runoff_exp; /* exponent of the runoff factor */
 } params;
 
 #define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
     {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
 
 static const vl_param table[] = {
-    R("reference_rate_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 5.9, 0.0, 1e6, ref_mol_s,
+    R("reference_rate_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 4.4, 0.0, 1e6, ref_mol_s,
       "CO2 drawdown at the reference state",
-      "equal to the default present outgassing (steady state today), common practice"),
+      "present total CO2 supply 5.9 Tmol/yr (Gerlach 2011, Eos 92:201) less the default "
+      "seafloor weathering 1.5 Tmol/yr: steady state today (docs/cycles.md)"),
     R("co2_exponent", "", 1.0, 0.3, 0.0, 1.0, beta, "beta",
       "Walker, Hays & Kasting 1981, from memory; Lehmer et al. 2020: 0.1-0.5"),
     R("temp_efold_k", "K", 1.0, 13.7, 1.0, 100.0, te_k, "Te",
@@ -44,6 +51,18 @@ static const vl_param table[] = {
     R("supply_limit_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 59.0, 1e-6, 1e9, max_mol_s,
       "W_max: the most CO2 the supply of fresh rock can draw down",
       "ten times the present rate, order of Foley 2015's supply limit, from memory"),
+    {"runoff", VL_PT_BOOL, "", 1.0, 0.0, 0.0, 1.0, NULL, NULL, offsetof(params, runoff),
+     "multiply the kinetic rate by the runoff factor [max(0, 1 + RUN (T - T0))]^exponent",
+     "off: Te of Walker, Hays & Kasting 1981 and Lehmer et al. 2020 is the whole "
+     "temperature dependence", NULL, 0},
+    {"runoff_per_k", VL_PT_REAL, "1/K", 1.0, 0.038, 0.0, 1.0, NULL, NULL,
+     offsetof(params, runoff_per_k), "RUN: fractional rise of runoff per kelvin",
+     "Berner & Kothavala 2001 (GEOCARB III), from memory", "processes.weathering.runoff=true",
+     0},
+    {"runoff_exponent", VL_PT_REAL, "", 1.0, 0.65, 0.0, 2.0, NULL, NULL,
+     offsetof(params, runoff_exp), "exponent of the runoff factor",
+     "Berner & Kothavala 2001 (GEOCARB III), from memory", "processes.weathering.runoff=true",
+     0},
 };
 
 static const char *const columns[] = {"weathering_co2_kg_s"};
@@ -59,6 +78,15 @@ static int check(const void *pv, const vl_scenario *sc, vl_status *st)
     return VL_OK;
 }
 
+/* Runoff factor R(T) = [max(0, 1 + RUN (T - T0))]^e (Berner & Kothavala 2001), 1 when off. */
+static double runoff(const params *p, double t_k)
+{
+    if (!p->runoff)
+        return 1.0;
+    double r = 1.0 + p->runoff_per_k * (t_k - p->t0_k);
+    return r > 0.0 ? pow(r, p->runoff_exp) : 0.0;
+}
+
 static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
                   vl_flux *fx)
 {
@@ -70,7 +98,7 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
     double kin0 = -p->max_mol_s * log1p(-p->ref_mol_s / p->max_mol_s);
     double w = kin0 * env->liquid * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
-               exp((env->t_surf_k - p->t0_k) / p->te_k);
+               exp((env->t_surf_k - p->t0_k) / p->te_k) * runoff(p, env->t_surf_k);
     w = p->max_mol_s * -expm1(-w / p->max_mol_s);
     vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }
