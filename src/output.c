@@ -30,6 +30,8 @@ struct vl_output {
     FILE *f[NFILES];
     char tmp[NFILES][VL_PATH_MAX + 64];
     char hash[17];
+    char *resolved;           /* resolved scenario text (owned): hashed at open, written at commit */
+    size_t resolved_len;
     double first_event[64];   /* first time of each distinct event name, s */
     char event_names[64][32];
     int nevent_names;
@@ -123,14 +125,18 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
     o->m = m;
     o->last_regime = VL_REGIME_TEMPERATE;
     snprintf(o->dir, sizeof o->dir, "%s", dir);
-    if (vl_output_scenario_hash(m->sc, o->hash, st) != VL_OK) {
+    o->resolved = resolved_text(m->sc, &o->resolved_len, st);
+    if (!o->resolved) {
         free(o);
         return NULL;
     }
+    snprintf(o->hash, sizeof o->hash, "%016llx",
+             (unsigned long long)fnv1a(o->resolved, o->resolved_len));
     if (mkdir(dir, 0777) == 0)
         o->created_dir = 1;
     else if (errno != EEXIST) {
         vl_fail(st, VL_ERR_IO, dir, 0, "cannot create output folder: %s", strerror(errno));
+        free(o->resolved);
         free(o);
         return NULL;
     }
@@ -255,7 +261,9 @@ static void summary(vl_output *o, const vl_run_stats *s)
 int vl_output_commit(vl_output *o, const vl_run_stats *stats, vl_status *st)
 {
     summary(o, stats);
-    int rc = vl_scenario_write_resolved(o->m->sc, o->f[F_RESOLVED], st);
+    int rc = fwrite(o->resolved, 1, o->resolved_len, o->f[F_RESOLVED]) == o->resolved_len
+                 ? VL_OK
+                 : io_fail(st, o->tmp[F_RESOLVED]);
     for (int i = 0; i < NFILES; i++) {
         if (o->f[i] && (ferror(o->f[i]) | fclose(o->f[i])) && rc == VL_OK)
             rc = io_fail(st, o->tmp[i]);
@@ -271,6 +279,7 @@ int vl_output_commit(vl_output *o, const vl_run_stats *stats, vl_status *st)
         vl_output_abort(o);
         return rc;
     }
+    free(o->resolved);
     free(o);
     return VL_OK;
 }
@@ -287,5 +296,6 @@ void vl_output_abort(vl_output *o)
     }
     if (o->created_dir)
         rmdir(o->dir);
+    free(o->resolved);
     free(o);
 }

@@ -73,7 +73,11 @@ static const vl_process *run(fixture *f, const char *name, double *cols, double 
     memset(cols, 0, p->ncolumns * sizeof cols[0]);
     memset(dydt, 0, VL_NRES * sizeof dydt[0]);
     vl_flux fx = {f->y, dydt, cols, 0};
-    p->rates(f->sc->proc[i].params, f->m, f->y, &f->env, &fx);
+    vl_env e = f->env; /* as the model does: the process's prepare hook, then its rates */
+    e.nt_h_factor_set = 0;
+    if (p->prepare)
+        p->prepare(f->sc->proc[i].params, f->m, f->y, &e);
+    p->rates(f->sc->proc[i].params, f->m, f->y, &e, &fx);
     return p;
 }
 

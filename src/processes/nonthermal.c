@@ -397,6 +397,18 @@ static void apply(const double q[NEL], const int map[NEL], int keep_o, vl_flux *
     }
 }
 
+/* Prepare hook of ion_pickup and polar_outflow: the shared H room factor, once per
+ * evaluation (both processes' rates need it). */
+static void room_prepare(const void *pv, const vl_model *m, const double *y, vl_env *env)
+{
+    (void)pv;
+    (void)y;
+    if (!env->nt_h_factor_set) {
+        env->nt_h_factor = h_room_factor(m, env);
+        env->nt_h_factor_set = 1;
+    }
+}
+
 static void pickup_rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
                          vl_flux *fx)
 {
@@ -405,7 +417,7 @@ static void pickup_rates(const void *pv, const vl_model *m, const double *y, con
     double q[NEL];
     pickup_demand(p, m, env, q);
     if (p->h_capped)
-        q[EL_H] *= h_room_factor(m, env);
+        q[EL_H] *= env->nt_h_factor;
     apply(q, pickup_map, 0, fx);
 }
 
@@ -447,7 +459,7 @@ static void polar_rates(const void *pv, const vl_model *m, const double *y, cons
     double q[NEL];
     polar_demand(p, m, env, q);
     if (p->h_capped)
-        q[EL_H] *= h_room_factor(m, env);
+        q[EL_H] *= env->nt_h_factor;
     apply(q, polar_map, 0, fx);
 }
 
@@ -470,6 +482,7 @@ const vl_process vl_process_ion_pickup = {
     .refs = "Dong et al. 2015; Fedorov et al. 2011; Carlsson et al. 2006",
     VL_PROCESS_TABLES(pickup_table, params, pickup_cols),
     .default_enabled = 1,
+    .prepare = room_prepare,
     .rates = pickup_rates,
 };
 
@@ -498,5 +511,6 @@ const vl_process vl_process_polar_outflow = {
     VL_PROCESS_TABLES(polar_table, params, polar_cols),
     .default_enabled = 1,
     .check = polar_check,
+    .prepare = room_prepare,
     .rates = polar_rates,
 };
