@@ -50,6 +50,11 @@ static int jac(double t, const double y[], double *dfdy, double dfdt[], void *pv
         return GSL_EBADFUNC;
     memcpy(c->yt, y, sizeof c->yt);
     for (int j = 0; j < VL_NRES; j++) {
+        if (j >= VL_R_SPACE_H && j <= VL_R_SPACE_O) { /* no process reads space */
+            for (int i = 0; i < VL_NRES; i++)
+                dfdy[i * VL_NRES + j] = 0.0;
+            continue;
+        }
         double h = sq * fmax(fabs(y[j]), vl_reservoir_floor(j));
         c->yt[j] = y[j] + h;
         if (rhs(t, c->yt, c->f1, c) != GSL_SUCCESS)

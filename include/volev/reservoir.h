@@ -44,6 +44,7 @@ enum vl_species {
     X(H2, "atm_h2", VL_SP_H2, 1.0e3)                       \
     X(O2, "atm_o2", VL_SP_O2, 1.0e3)                       \
     X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3)            \
+    /* space: contiguous, and read by no process (the Jacobian skips them) */ \
     X(SPACE_H, "space_h", VL_SP_H, 1.0e3)                  \
     X(SPACE_C, "space_c", VL_SP_C, 1.0e3)                  \
     X(SPACE_N, "space_n", VL_SP_N, 1.0e3)                  \
