@@ -1,7 +1,10 @@
 /* run_tests.c: the single Check runner for every suite (tests/suites.def). */
 #include <stdlib.h>
 
+#include <stdio.h>
+
 #include "suites.h"
+#include "volev/model.h"
 
 const char *vl_test_bin(void)
 {
@@ -13,6 +16,32 @@ const char *vl_test_top(void)
 {
     const char *s = getenv("VOLEV_TOP");
     return s ? s : ".";
+}
+
+vl_scenario *vl_test_scenario(const char *rel, const char *const *sets, size_t n)
+{
+    vl_status st;
+    vl_scenario *sc;
+    if (rel) {
+        char path[4096];
+        snprintf(path, sizeof path, "%s/%s", vl_test_top(), rel);
+        sc = vl_scenario_load(path, sets, n, &st);
+        ck_assert_msg(sc != NULL, "%s:%d: %s", st.file, st.line, st.msg);
+        return sc;
+    }
+    sc = vl_scenario_new();
+    ck_assert_ptr_nonnull(sc);
+    for (size_t i = 0; i < n; i++)
+        ck_assert_msg(vl_scenario_override(sc, sets[i], &st) == VL_OK, "%s", st.msg);
+    return sc;
+}
+
+vl_model *vl_test_model(const vl_scenario *sc)
+{
+    vl_status st;
+    vl_model *m = vl_model_new(sc, &st);
+    ck_assert_msg(m != NULL, "%s", st.msg);
+    return m;
 }
 
 int main(void)

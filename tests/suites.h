@@ -18,6 +18,14 @@
                       ck_b_, ck_r_);                                                    \
     } while (0)
 
+struct vl_scenario;
+struct vl_model;
+/* A scenario with its defaults (rel NULL) or loaded from VOLEV_TOP/rel, then the
+ * overrides "KEY=VALUE"; fails the test with the loader's message on error. */
+struct vl_scenario *vl_test_scenario(const char *rel, const char *const *sets, size_t n);
+/* The model of sc; fails the test with the message on error. */
+struct vl_model *vl_test_model(const struct vl_scenario *sc);
+
 /* Paths for tests that run the program or read bundled files. */
 const char *vl_test_bin(void);   /* $VOLEV_BIN or "build/volev" */
 const char *vl_test_top(void);   /* $VOLEV_TOP or "." */

@@ -399,11 +399,8 @@ static int trace_event(void *ctx, double t, const char *name, const char *detail
 static void run_earth(const char *const *sets, size_t n, trace *tr, vl_run_stats *stats,
                       vl_scenario **sc_out, vl_model **m_out)
 {
-    char path[4096];
     vl_status st;
-    snprintf(path, sizeof path, "%s/scenarios/earth.cfg", vl_test_top());
-    vl_scenario *sc = vl_scenario_load(path, sets, n, &st);
-    ck_assert_msg(sc != NULL, "%s:%d: %s", st.file, st.line, st.msg);
+    vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, n);
     vl_model *m = model(sc);
     memset(tr, 0, sizeof *tr);
     vl_run_sink sink = {tr, trace_row, trace_event};
@@ -503,12 +500,10 @@ START_TEST(ocean_column_written)
     ck_assert_ptr_nonnull(mkdtemp(dir));
     char path[4096], run_dir[128];
     vl_status st;
-    snprintf(path, sizeof path, "%s/scenarios/earth.cfg", vl_test_top());
     snprintf(run_dir, sizeof run_dir, "%s/run", dir);
     const char *sets[] = {"run.start_yr=4.56e9", "inventory.co2_bar=0.0274",
                           "inventory.carbonate_co2_bar=80", "inventory.mantle_co2_bar=920"};
-    vl_scenario *sc = vl_scenario_load(path, sets, 4, &st);
-    ck_assert_msg(sc != NULL, "%s", st.msg);
+    vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 4);
     vl_model *m = model(sc);
     vl_output *o = vl_output_open(run_dir, m, &st);
     ck_assert_msg(o != NULL, "%s", st.msg);

@@ -118,13 +118,9 @@ typedef struct {
 
 static void make_planet(planet *p, double x_co2, const char *extra)
 {
-    vl_status st;
-    p->sc = vl_scenario_new();
     const char *sets[] = {"star.luminosity_model=constant", "star.teff_k=5772", extra};
-    for (size_t i = 0; i < (extra ? 3u : 2u); i++)
-        ck_assert_msg(vl_scenario_override(p->sc, sets[i], &st) == VL_OK, "%s", st.msg);
-    p->m = vl_model_new(p->sc, &st);
-    ck_assert_msg(p->m != NULL, "%s", st.msg);
+    p->sc = vl_test_scenario(NULL, sets, extra ? 3u : 2u);
+    p->m = vl_test_model(p->sc);
     memset(p->y, 0, sizeof p->y);
     double mc = vl_species_molar_mass(VL_SP_CO2), mn = vl_species_molar_mass(VL_SP_N2);
     p->y[VL_R_N2] = VL_BAR / p->m->pa_per_kg;

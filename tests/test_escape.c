@@ -18,13 +18,8 @@ typedef struct {
 /* Present Earth: 1 M_earth, 1 R_earth, 1 bar N2 atmosphere, one ocean, defaults otherwise. */
 static void setup_earth(fixture *f, const char *const *sets, size_t nsets)
 {
-    vl_status st;
-    f->sc = vl_scenario_new();
-    ck_assert_ptr_nonnull(f->sc);
-    for (size_t i = 0; i < nsets; i++)
-        ck_assert_msg(vl_scenario_override(f->sc, sets[i], &st) == VL_OK, "%s", st.msg);
-    f->m = vl_model_new(f->sc, &st);
-    ck_assert_msg(f->m != NULL, "%s", st.msg);
+    f->sc = vl_test_scenario(NULL, sets, nsets);
+    f->m = vl_test_model(f->sc);
     memset(f->y, 0, sizeof f->y);
     f->y[VL_R_WATER] = VL_TO_KG;
     f->y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */

@@ -320,12 +320,9 @@ END_TEST
 
 START_TEST(earth_run_with_delivery)
 {
-    char path[4096];
     vl_status st;
-    snprintf(path, sizeof path, "%s/scenarios/earth.cfg", vl_test_top());
     const char *sets[] = {"processes.impacts.enabled=true", "processes.impacts.delivery=true"};
-    vl_scenario *sc = vl_scenario_load(path, sets, 2, &st);
-    ck_assert_msg(sc != NULL, "%s:%d: %s", st.file, st.line, st.msg);
+    vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 2);
     vl_model *m = model(sc);
     double y0[VL_NRES];
     vl_model_initial_state(m, y0);

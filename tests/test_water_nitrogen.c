@@ -20,13 +20,8 @@ typedef struct {
  * flow, an ice-free ocean. */
 static void setup(fixture *f, const char *const *sets, size_t nsets)
 {
-    vl_status st;
-    f->sc = vl_scenario_new();
-    ck_assert_ptr_nonnull(f->sc);
-    for (size_t i = 0; i < nsets; i++)
-        ck_assert_msg(vl_scenario_override(f->sc, sets[i], &st) == VL_OK, "%s", st.msg);
-    f->m = vl_model_new(f->sc, &st);
-    ck_assert_msg(f->m != NULL, "%s", st.msg);
+    f->sc = vl_test_scenario(NULL, sets, nsets);
+    f->m = vl_test_model(f->sc);
     memset(f->y, 0, sizeof f->y);
     f->y[VL_R_WATER] = VL_TO_KG;
     f->y[VL_R_MANTLE_WATER] = 2.385 * VL_TO_KG;
@@ -286,13 +281,10 @@ END_TEST
 /* Earth through the library (as tests/test_run.c) with the mantle exchange on. */
 START_TEST(earth_mantle_water)
 {
-    char path[4096];
     vl_status st;
-    snprintf(path, sizeof path, "%s/scenarios/earth.cfg", vl_test_top());
     /* 2 TO in the mantle at the start (docs/cycles.md) */
     const char *sets[] = {"processes.mantle_water.enabled=true", "inventory.mantle_water_to=2"};
-    vl_scenario *sc = vl_scenario_load(path, sets, 2, &st);
-    ck_assert_msg(sc != NULL, "%s:%d: %s", st.file, st.line, st.msg);
+    vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 2);
     vl_model *m = vl_model_new(sc, &st);
     ck_assert_msg(m != NULL, "%s", st.msg);
     vl_run_stats s;
