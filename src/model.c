@@ -138,6 +138,21 @@ static void finish_atmosphere(const vl_model *m, vl_env *env)
  * VL_OCEAN_FIRST_PASS_K, then at the surface temperature the climate gives for that
  * first split (not below the freezing point: an ice-covered ocean stays at it). The
  * climate is then evaluated again by the caller. Continuous in y for a fixed regime. */
+/* vl_ocean_atm_co2 through the model's cache entry for this pass (0 or 1). */
+static double cached_atm_co2(const vl_model *cm, int pass, double surface, double ocean_m3,
+                             double t_k, const vl_ocean_air *air)
+{
+    vl_model *m = (vl_model *)cm; /* the cache is per model */
+    double key[5] = {surface, ocean_m3, t_k, air->other_kg, air->other_mol};
+    if (m->ocean_cache[pass].valid && memcmp(key, m->ocean_cache[pass].key, sizeof key) == 0)
+        return m->ocean_cache[pass].atm_kg;
+    double atm = vl_ocean_atm_co2(surface, ocean_m3, t_k, air);
+    memcpy(m->ocean_cache[pass].key, key, sizeof key);
+    m->ocean_cache[pass].atm_kg = atm;
+    m->ocean_cache[pass].valid = 1;
+    return atm;
+}
+
 static void split_surface_co2(const vl_model *m, const double *y, vl_env *env)
 {
     double surface = pos(y[VL_R_CO2]), water = pos(y[VL_R_WATER]);
@@ -149,10 +164,10 @@ static void split_surface_co2(const vl_model *m, const double *y, vl_env *env)
         air.other_kg += env->mass_kg[others[i][0]];
         air.other_mol += env->mass_kg[others[i][0]] / vl_species_molar_mass(others[i][1]);
     }
-    env->mass_kg[VL_GAS_CO2] = vl_ocean_atm_co2(surface, ocean_m3, VL_OCEAN_FIRST_PASS_K, &air);
+    env->mass_kg[VL_GAS_CO2] = cached_atm_co2(m, 0, surface, ocean_m3, VL_OCEAN_FIRST_PASS_K, &air);
     vl_climate_eval(m->climate, water, env);
     double t_ocean = fmax(env->t_surf_k, m->sc->climate.freeze_temp_k);
-    env->mass_kg[VL_GAS_CO2] = vl_ocean_atm_co2(surface, ocean_m3, t_ocean, &air);
+    env->mass_kg[VL_GAS_CO2] = cached_atm_co2(m, 1, surface, ocean_m3, t_ocean, &air);
 }
 
 void vl_model_env(const vl_model *m, double t_s, const double *y, int regime, vl_env *env)

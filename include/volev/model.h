@@ -21,6 +21,14 @@ struct vl_model {
     size_t *col_base;          /* owned; first column of each process (registry order) */
     const char **col_name;     /* owned array of borrowed names */
     size_t *col_proc;          /* owned; process index of each column */
+    /* cache of the ocean-atmosphere CO2 split, one entry per pass (the Jacobian's
+     * perturbations of reservoirs that do not touch it reuse it); a per-model cache,
+     * not shared between threads */
+    struct {
+        int valid;
+        double key[5];         /* surface CO2 kg, ocean m^3, T K, other gas kg, mol */
+        double atm_kg;         /* result */
+    } ocean_cache[2];
 };
 
 vl_model *vl_model_new(const vl_scenario *sc, vl_status *st);
