@@ -12,17 +12,46 @@ double vl_flux_ramp(int r, double m_kg)
     return m_kg >= fl ? 1.0 : m_kg / fl;
 }
 
+/* Deuterium carried by hydrogen leaving reservoir `from` at rate kg/s (of `from`'s
+ * species): the same share of its deuterium companion, times the fractionation factor
+ * f_d (D/H of the flux over D/H of the source). 0 for a reservoir without deuterium or
+ * with no mass. */
+static double deuterium_out(const vl_flux *fx, int from, double rate, double f_d)
+{
+    int d = vl_reservoir_deuterium(from);
+    if (d < 0 || !(fx->y[from] > 0.0))
+        return 0.0;
+    double yd = fx->y[d] > 0.0 ? fx->y[d] : 0.0;
+    return f_d * rate / fx->y[from] * yd;
+}
+
 double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col)
+{
+    return vl_flux_move_f(fx, from, to, kg_s, col, 1.0);
+}
+
+double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, double f_d)
 {
     double rate = kg_s * vl_flux_ramp(from, fx->y[from]);
     fx->dydt[from] -= rate;
     fx->dydt[to] += rate;
+    int dto = vl_reservoir_deuterium(to), dfrom = vl_reservoir_deuterium(from);
+    if (dfrom >= 0 && dto >= 0) {
+        double d = deuterium_out(fx, from, rate, f_d);
+        fx->dydt[dfrom] -= d;
+        fx->dydt[dto] += d;
+    }
     if (fx->columns && col >= 0)
         fx->columns[fx->col_base + (size_t)col] += rate;
     return rate;
 }
 
 double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col)
+{
+    return vl_flux_react_f(fx, r, mol_s, col, 1.0);
+}
+
+double vl_flux_react_f(vl_flux *fx, const vl_reaction *r, double mol_s, int col, double f_d)
 {
     double lim = 1.0;
     for (int i = 0; i < r->n; i++)
@@ -32,9 +61,28 @@ double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col)
                 lim = k;
         }
     double rate = mol_s * lim;
-    for (int i = 0; i < r->n; i++)
-        fx->dydt[r->res[i]] +=
-            r->nu[i] * vl_species_molar_mass(vl_reservoir_species(r->res[i])) * rate;
+    double d_total = 0.0, h_products = 0.0;
+    for (int i = 0; i < r->n; i++) {
+        int res = r->res[i];
+        double kg = r->nu[i] * vl_species_molar_mass(vl_reservoir_species(res)) * rate;
+        fx->dydt[res] += kg;
+        int d = vl_reservoir_deuterium(res);
+        if (d < 0)
+            continue;
+        if (r->nu[i] < 0.0) { /* deuterium leaves with the hydrogen of a reactant */
+            double out = deuterium_out(fx, res, -kg, f_d);
+            fx->dydt[d] -= out;
+            d_total += out;
+        } else {
+            h_products += r->nu[i] * vl_species_atoms(vl_reservoir_species(res), VL_EL_H);
+        }
+    }
+    for (int i = 0; i < r->n && h_products > 0.0; i++) { /* ... and goes with it */
+        int d = vl_reservoir_deuterium(r->res[i]);
+        if (d >= 0 && r->nu[i] > 0.0)
+            fx->dydt[d] += d_total * r->nu[i] *
+                           vl_species_atoms(vl_reservoir_species(r->res[i]), VL_EL_H) / h_products;
+    }
     if (fx->columns && col >= 0)
         fx->columns[fx->col_base + (size_t)col] +=
             fabs(r->nu[0]) * vl_species_molar_mass(vl_reservoir_species(r->res[0])) * rate;

@@ -50,7 +50,7 @@ static int jac(double t, const double y[], double *dfdy, double dfdt[], void *pv
         return GSL_EBADFUNC;
     memcpy(c->yt, y, sizeof c->yt);
     for (int j = 0; j < VL_NRES; j++) {
-        if (j >= VL_R_SPACE_H && j <= VL_R_SPACE_O) { /* no process reads space */
+        if (j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) { /* no process reads space */
             for (int i = 0; i < VL_NRES; i++)
                 dfdy[i * VL_NRES + j] = 0.0;
             continue;

@@ -106,6 +106,13 @@ void vl_model_initial_state(const vl_model *m, double y[VL_NRES])
     for (size_t i = 0; i < vl_nprocesses; i++)
         if (m->sc->proc[i].enabled && vl_processes[i]->initial)
             vl_processes[i]->initial(m->sc->proc[i].params, m, y);
+    /* deuterium at the initial D/H in every hydrogen reservoir: kg D = kg H x R m_D/m_H */
+    for (int r = 0; r < VL_NRES; r++) {
+        int d = vl_reservoir_deuterium(r);
+        if (d >= 0)
+            y[d] = y[r] * vl_reservoir_element_fraction(r, VL_EL_H) * in->initial_dh *
+                   VL_AW_D / VL_AW_H;
+    }
 }
 
 static double pos(double v) { return v > 0.0 ? v : 0.0; }

@@ -157,6 +157,15 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
 
 static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
 
+double vl_output_dh(const double *y, int r)
+{
+    int d = vl_reservoir_deuterium(r);
+    double h_mol = clamp0(y[r]) * vl_reservoir_element_fraction(r, VL_EL_H) / (VL_AW_H * 1e-3);
+    if (d < 0 || !(h_mol > 0.0))
+        return 0.0;
+    return clamp0(y[d]) / (VL_AW_D * 1e-3) / h_mol;
+}
+
 /* CO2 dissolved in the ocean, kg: the surface CO2 less the atmospheric part that the
  * ocean partition (ocean.h, called by vl_model_env) left in env. */
 static double ocean_co2(const double *y, const vl_env *env)
@@ -226,6 +235,11 @@ static void summary(vl_output *o, const vl_run_stats *s)
     fprintf(f, "final_surface_water,%.10g,TO\n", clamp0(y[VL_R_WATER]) / VL_TO_KG);
     fprintf(f, "water_lost_to_space,%.10g,TO\n", y[VL_R_SPACE_H] / h_per_water / VL_TO_KG);
     fprintf(f, "o2_accumulated,%.10g,bar\n", clamp0(y[VL_R_O2]) * pa);
+    fprintf(f, "final_dh_water,%.10g,ratio\n", vl_output_dh(y, VL_R_WATER));
+    fprintf(f, "dh_enrichment,%.10g,ratio\n",
+            m->sc->inventory.initial_dh > 0.0
+                ? vl_output_dh(y, VL_R_WATER) / m->sc->inventory.initial_dh
+                : 0.0);
     fprintf(f, "final_co2,%.10g,bar\n", env.mass_kg[VL_GAS_CO2] * pa);
     fprintf(f, "final_ocean_co2,%.10g,kg\n", ocean_co2(y, &env));
     fprintf(f, "final_co2_mole_fraction,%.10g,ppmv\n", env.x[VL_GAS_CO2] * 1e6);

@@ -154,6 +154,9 @@ const vl_param vl_core_params[] = {
          "carbonate rock, as CO2-equivalent pressure", "", NULL),
     REAL("inventory.mantle_co2_bar", "bar", VL_BAR, 0.0, 0.0, 1e6, inventory.mantle_co2_pa,
          "mantle carbon available to outgassing, as CO2-equivalent pressure", "", NULL),
+    REAL("inventory.initial_dh", "", 1.0, 155.76e-6, 0.0, 1.0, inventory.initial_dh,
+         "D/H atom ratio of every hydrogen reservoir at the start",
+         "VSMOW 155.76e-6 (Hagemann, Nief & Roth 1970), from memory", NULL),
     REAL("inventory.mantle_n2_bar", "bar", VL_BAR, 0.0, 0.0, 1e6, inventory.mantle_n2_pa,
          "mantle nitrogen available to outgassing, as N2-equivalent pressure", "", NULL),
 

@@ -7,7 +7,7 @@ static const struct {
     const char *name;
     int atoms[VL_NELEMENTS];
 } species[VL_NSPECIES] = {
-#define VL_X(id, name, h, c, n, o) {name, {h, c, n, o}},
+#define VL_X(id, name, h, c, n, o, d) {name, {h, c, n, o, d}},
     VL_SPECIES(VL_X)
 #undef VL_X
 };
@@ -23,12 +23,13 @@ static const struct {
 };
 
 /* Element order matches enum vl_element. */
-static const double atomic_weight[VL_NELEMENTS] = {VL_AW_H, VL_AW_C, VL_AW_N, VL_AW_O};
-static const char *const element_name[VL_NELEMENTS] = {"H", "C", "N", "O"};
+static const double atomic_weight[VL_NELEMENTS] = {VL_AW_H, VL_AW_C, VL_AW_N, VL_AW_O, VL_AW_D};
+static const char *const element_name[VL_NELEMENTS] = {"H", "C", "N", "O", "D"};
 
 /* Molar masses, kg/mol, as constant expressions of the atomic weights. */
 static const double molar_mass[VL_NSPECIES] = {
-#define VL_X(id, name, h, c, n, o) (h * VL_AW_H + c * VL_AW_C + n * VL_AW_N + o * VL_AW_O) * 1e-3,
+#define VL_X(id, name, h, c, n, o, d)                                                        \
+    (h * VL_AW_H + c * VL_AW_C + n * VL_AW_N + o * VL_AW_O + d * VL_AW_D) * 1e-3,
     VL_SPECIES(VL_X)
 #undef VL_X
 };
@@ -46,4 +47,22 @@ double vl_reservoir_element_fraction(int r, int el)
 {
     int s = reservoirs[r].species;
     return species[s].atoms[el] * atomic_weight[el] * 1e-3 / vl_species_molar_mass(s);
+}
+
+int vl_reservoir_deuterium(int r)
+{
+    switch (r) {
+    case VL_R_WATER:
+        return VL_R_D_WATER;
+    case VL_R_MANTLE_WATER:
+        return VL_R_D_MANTLE_WATER;
+    case VL_R_H2:
+        return VL_R_D_H2;
+    case VL_R_IMPACT_WATER:
+        return VL_R_D_IMPACT_WATER;
+    case VL_R_SPACE_H:
+        return VL_R_SPACE_D;
+    default:
+        return -1;
+    }
 }

@@ -91,3 +91,36 @@ void vl_upper_h_escape(vl_env *env, double h_el)
                                                                          : VL_HLIM_ENERGY;
     }
 }
+
+double vl_upper_drag_fractionation(double m_c_kg)
+{
+    double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU;
+    if (!(m_c_kg > m_h))
+        return 1.0;
+    double f = (m_c_kg - m_d) / (m_c_kg - m_h);
+    return f < 0.0 ? 0.0 : f > 1.0 ? 1.0 : f;
+}
+
+/* Weight of a when the smaller of a and b binds: 1/(1 + (a/b)^8), smooth. */
+static double smaller_weight(double a, double b)
+{
+    if (!(a > 0.0))
+        return 1.0;
+    if (!(b > 0.0) || !isfinite(a))
+        return 0.0;
+    if (!isfinite(b))
+        return 1.0;
+    double x = 8.0 * (log(a) - log(b));
+    return x > 700.0 ? 0.0 : 1.0 / (1.0 + exp(x));
+}
+
+void vl_upper_d_fractionation(vl_env *env, double h_el, double f_el)
+{
+    double s_j = smaller_weight(env->esc_h_jeans, h_el);
+    double f_kin = s_j * env->esc_f_jeans + (1.0 - s_j) * f_el;
+    double f_cap = (1.0 - env->esc_hydro) * f_kin + env->esc_hydro * f_el;
+    double jeans = fmin(env->esc_h_jeans, h_el);
+    double cap = (1.0 - env->esc_hydro) * jeans + env->esc_hydro * h_el;
+    double s_d = smaller_weight(env->esc_h_diffusion, cap);
+    env->esc_d_frac = s_d * env->esc_f_dl + (1.0 - s_d) * f_cap;
+}

@@ -76,6 +76,9 @@ typedef struct vl_env {
     double lambda_h;          /* Jeans escape parameter of H at the exobase */
     int esc_h_limit;          /* what limits hydrogen escape: enum vl_h_limit */
     double photolysis_mol_s;  /* net H2O photolysed (its H escapes), mol/s */
+    double esc_f_dl;          /* D fractionation factor of diffusion-limited escape */
+    double esc_f_jeans;       /* D fractionation factor of Jeans escape */
+    double esc_d_frac;        /* D fractionation factor of thermal hydrogen escape (blended) */
     double nt_h_factor;       /* share of the capped non-thermal H demand that fits the diffusion room */
     int nt_h_factor_set;      /* 1 once a prepare hook has computed nt_h_factor */
 } vl_env;

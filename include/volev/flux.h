@@ -33,10 +33,20 @@ double vl_flux_ramp(int r, double m_kg);
  * rate (after the ramp) is added to the process's column col (if col >= 0) and returned. */
 double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col);
 
+/* The same, with hydrogen carrying deuterium at f_d times the source's D/H (the
+ * fractionation factor of an escape process; vl_flux_move uses 1). Deuterium moves
+ * between the companions of H-bearing reservoirs (vl_reservoir_deuterium). */
+double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, double f_d);
+
 /* Run reaction r at extent rate mol_s (>= 0): reservoir i changes by nu_i * M_i * rate.
  * Ramped by every consumed reservoir. Column col gets the mass rate of the first
  * term, kg/s. Returns the applied extent rate, mol/s. */
 double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col);
+
+/* The same with deuterium fractionation f_d (see vl_flux_move_f): deuterium leaves each
+ * H-bearing reactant with its hydrogen and is shared among the H-bearing products in
+ * proportion to their hydrogen. */
+double vl_flux_react_f(vl_flux *fx, const vl_reaction *r, double mol_s, int col, double f_d);
 
 /* 0 if r balances every element to 1e-12 relative; else nonzero with a reason in why. */
 int vl_reaction_check(const vl_reaction *r, char *why, size_t n);

@@ -25,6 +25,9 @@ void vl_output_abort(vl_output *o);
 /* FNV-1a 64-bit hash of the resolved scenario text, as 16 hex digits in buf[17]. */
 int vl_output_scenario_hash(const vl_scenario *sc, char buf[17], vl_status *st);
 
+/* D/H atom ratio of H-bearing reservoir r in state y (0 without hydrogen). */
+double vl_output_dh(const double *y, int r);
+
 /* Version string "VERSION (git REV)". */
 const char *vl_version(void);
 

@@ -4,22 +4,25 @@
 #define VOLEV_RESERVOIR_H
 
 /* Elements tracked by the ledger. */
-enum vl_element { VL_EL_H, VL_EL_C, VL_EL_N, VL_EL_O, VL_NELEMENTS };
+enum vl_element { VL_EL_H, VL_EL_C, VL_EL_N, VL_EL_O, VL_EL_D, VL_NELEMENTS };
 
-/* Species: X(ID, name, nH, nC, nN, nO) -- atoms per formula unit. */
-#define VL_SPECIES(X)            \
-    X(H2O, "H2O", 2, 0, 0, 1)    \
-    X(CO2, "CO2", 0, 1, 0, 2)    \
-    X(N2, "N2", 0, 0, 2, 0)      \
-    X(H2, "H2", 2, 0, 0, 0)      \
-    X(O2, "O2", 0, 0, 0, 2)      \
-    X(H, "H", 1, 0, 0, 0)        \
-    X(C, "C", 0, 1, 0, 0)        \
-    X(N, "N", 0, 0, 1, 0)        \
-    X(O, "O", 0, 0, 0, 1)
+/* Species: X(ID, name, nH, nC, nN, nO, nD) -- atoms per formula unit. Deuterium is a
+ * tracer of its own: the H-bearing reservoirs hold protium-weighted masses and each has
+ * a deuterium companion (vl_reservoir_deuterium). */
+#define VL_SPECIES(X)               \
+    X(H2O, "H2O", 2, 0, 0, 1, 0)    \
+    X(CO2, "CO2", 0, 1, 0, 2, 0)    \
+    X(N2, "N2", 0, 0, 2, 0, 0)      \
+    X(H2, "H2", 2, 0, 0, 0, 0)      \
+    X(O2, "O2", 0, 0, 0, 2, 0)      \
+    X(H, "H", 1, 0, 0, 0, 0)        \
+    X(C, "C", 0, 1, 0, 0, 0)        \
+    X(N, "N", 0, 0, 1, 0, 0)        \
+    X(O, "O", 0, 0, 0, 1, 0)        \
+    X(D, "D", 0, 0, 0, 0, 1)
 
 enum vl_species {
-#define VL_X(id, name, h, c, n, o) VL_SP_##id,
+#define VL_X(id, name, h, c, n, o, d) VL_SP_##id,
     VL_SPECIES(VL_X)
 #undef VL_X
     VL_NSPECIES
@@ -44,15 +47,20 @@ enum vl_species {
     X(H2, "atm_h2", VL_SP_H2, 1.0e3)                       \
     X(O2, "atm_o2", VL_SP_O2, 1.0e3)                       \
     X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3)            \
-    /* space: contiguous, and read by no process (the Jacobian skips them) */ \
+    /* space: contiguous (SPACE_H..SPACE_D), read by no process (the Jacobian skips them) */ \
     X(SPACE_H, "space_h", VL_SP_H, 1.0e3)                  \
     X(SPACE_C, "space_c", VL_SP_C, 1.0e3)                  \
     X(SPACE_N, "space_n", VL_SP_N, 1.0e3)                  \
     X(SPACE_O, "space_o", VL_SP_O, 1.0e3)                  \
+    X(SPACE_D, "space_d", VL_SP_D, 1.0)                    \
     X(IMPACT_WATER, "impactor_water", VL_SP_H2O, 1.0e9)    \
     X(IMPACT_CO2, "impactor_co2", VL_SP_CO2, 1.0e6)        \
     X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6)           \
-    X(CRUST_N, "crust_nitrogen", VL_SP_N2, 1.0e6)
+    X(CRUST_N, "crust_nitrogen", VL_SP_N2, 1.0e6)          \
+    X(D_WATER, "surface_water_d", VL_SP_D, 1.0)            \
+    X(D_MANTLE_WATER, "mantle_water_d", VL_SP_D, 1.0)      \
+    X(D_H2, "atm_h2_d", VL_SP_D, 1.0)                      \
+    X(D_IMPACT_WATER, "impactor_water_d", VL_SP_D, 1.0)
 
 enum vl_reservoir {
 #define VL_X(id, name, sp, fl) VL_R_##id,
@@ -73,5 +81,10 @@ double vl_reservoir_floor(int r);       /* kg */
 /* Mass fraction of element el in reservoir r (kg element per kg reservoir). */
 double vl_reservoir_element_fraction(int r, int el);
 const char *vl_element_name(int el);
+
+/* The deuterium companion of an H-bearing reservoir (surface and mantle water, H2,
+ * impactor water, space H), or -1. Transfers of hydrogen carry deuterium along
+ * (flux.c). */
+int vl_reservoir_deuterium(int r);
 
 #endif

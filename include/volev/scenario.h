@@ -74,6 +74,7 @@ typedef struct vl_inventory_params {
     double carbonate_pa;       /* carbonate rock as CO2-equivalent pressure */
     double mantle_co2_pa;      /* mantle carbon as CO2-equivalent pressure */
     double mantle_n2_pa;       /* mantle nitrogen as N2-equivalent pressure */
+    double initial_dh;         /* D/H atom ratio of all hydrogen at the start */
 } vl_inventory_params;
 
 typedef struct vl_climate_params {

@@ -45,5 +45,7 @@
 #define VL_AW_C 12.011
 #define VL_AW_N 14.007
 #define VL_AW_O 15.999
+/* Deuterium atomic mass (CODATA 2018: 2.014101778 u). */
+#define VL_AW_D 2.014101778
 
 #endif

@@ -29,4 +29,15 @@ double vl_upper_jeans_flux(double n_m3, double m_kg, double t_k, double r_m, dou
  * Sets env->esc_h_flux and env->esc_h_limit; continuous in every input. */
 void vl_upper_h_escape(vl_env *env, double h_el);
 
+/* Deuterium fractionation factor of thermal hydrogen escape, set into env->esc_d_frac:
+ * the factors of the diffusion limit (env->esc_f_dl), the Jeans limit (env->esc_f_jeans)
+ * and the energy limit (f_el: drag, (m_c - m_D)/(m_c - m_H)), blended with smooth weights
+ * that follow the least-of-the-limits rule of vl_upper_h_escape (h_el: the energy-limited
+ * H flux), so the factor is continuous where the binding limit changes. */
+void vl_upper_d_fractionation(vl_env *env, double h_el, double f_el);
+
+/* Drag fractionation factor (Hunten, Pepin & Walker 1987): (m_c - m_D)/(m_c - m_H)
+ * clipped to [0, 1]; m_c the crossover mass, kg. */
+double vl_upper_drag_fractionation(double m_c_kg);
+
 #endif

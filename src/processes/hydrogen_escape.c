@@ -102,6 +102,27 @@ static double diffusion_limit(const params *p, const vl_env *env, double f_t)
     return dm > 0.0 ? 2.0 * f_t * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
 }
 
+/* Deuterium fractionation of diffusion-limited escape (science.md section 8, from
+ * memory): f = (b_D/b_H)(m_bg - m_D)/(m_bg - m_H), with b ~ 1/sqrt(reduced mass). */
+static double diffusion_fractionation(const vl_env *env)
+{
+    double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU, m_o = VL_AW_O * VL_AMU;
+    double w = fmin(fmax(env->f_strat, 0.0), 1.0);
+    double m_bg = (1.0 - w) * env->m_background_kg + w * m_o;
+    if (!(m_bg > m_d))
+        return 1.0;
+    double mu_h = m_h * m_bg / (m_h + m_bg), mu_d = m_d * m_bg / (m_d + m_bg);
+    return sqrt(mu_h / mu_d) * (m_bg - m_d) / (m_bg - m_h);
+}
+
+/* Deuterium fractionation of Jeans escape: the Jeans flux per particle of D over H at
+ * the exobase, sqrt(m_H/m_D) (1 + l_D) e^-l_D / ((1 + l_H) e^-l_H), l_D = l_H m_D/m_H. */
+static double jeans_fractionation(double lambda_h)
+{
+    double r = VL_AW_D / VL_AW_H, ld = lambda_h * r;
+    return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld);
+}
+
 /* Jeans-limited H flux per unit surface and the escape parameter; sets the
  * hydrodynamic weight. */
 static void jeans_limit(const params *p, const vl_model *m, vl_env *env, double f_t)
@@ -136,6 +157,11 @@ static void prepare(const void *pv, const vl_model *m, const double *y, vl_env *
     env->esc_h_diffusion = diffusion_limit(p, env, f_t);
     jeans_limit(p, m, env, f_t);
     vl_upper_h_escape(env, env->esc_mass_flux / m_h);
+    env->esc_f_dl = diffusion_fractionation(env);
+    env->esc_f_jeans = jeans_fractionation(env->lambda_h);
+    /* energy-limited without drag: the flow carries D with H unless oxygen_drag (which
+     * knows the crossover mass) refines it */
+    vl_upper_d_fractionation(env, env->esc_mass_flux / m_h, 1.0);
     env->esc_o_flux = 0.0;
     env->esc_water_share = f_t > 0.0 ? env->f_strat / f_t : 0.0;
 }
@@ -148,7 +174,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     (void)pv;
     (void)y;
     double atoms = (1.0 - env->esc_water_share) * env->esc_h_flux * m->area_m2;
-    vl_flux_move(fx, VL_R_H2, VL_R_SPACE_H, atoms * VL_AW_H * 1e-3 / VL_AVOGADRO, 0);
+    vl_flux_move_f(fx, VL_R_H2, VL_R_SPACE_H, atoms * VL_AW_H * 1e-3 / VL_AVOGADRO, 0,
+                   env->esc_d_frac);
 }
 
 const vl_process vl_process_hydrogen_escape = {

@@ -44,6 +44,9 @@ static void prepare(const void *pv, const vl_model *m, const double *y, vl_env *
     if (h_el > X_H * phi)
         h_el = (env->esc_mass_flux + m_o * X_O * phi) / (m_h + m_o * X_O / X_H);
     vl_upper_h_escape(env, h_el);
+    /* crossover mass of the escaping flow and its deuterium fractionation */
+    double m_c = m_h + VL_K_BOLTZMANN * p->temp_k * env->esc_h_flux / (b_h_o(p->temp_k) * env->g * X_H);
+    vl_upper_d_fractionation(env, h_el, vl_upper_drag_fractionation(m_c));
     double f_o = (X_O / X_H) * env->esc_h_flux - X_O * phi;
     env->esc_o_flux = f_o > 0.0 ? f_o : 0.0;
 }

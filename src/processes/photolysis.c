@@ -60,8 +60,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     double lost = env->esc_h_flux > 0.0 ? 2.0 * env->esc_o_flux / env->esc_h_flux : 0.0;
     if (lost > 1.0)
         lost = 1.0;
-    vl_flux_react(fx, &keep_o2, (1.0 - lost) * extent, 0);
-    double e = vl_flux_react(fx, &lose_o, lost * extent, 0);
+    vl_flux_react_f(fx, &keep_o2, (1.0 - lost) * extent, 0, env->esc_d_frac);
+    double e = vl_flux_react_f(fx, &lose_o, lost * extent, 0, env->esc_d_frac);
     if (fx->columns)
         fx->columns[fx->col_base + 1] += 2.0 * e * VL_AW_O * 1e-3;
 }

@@ -1,0 +1,128 @@
+/* test_isotopes.c: deuterium carried by hydrogen (flux.c) and the fractionation factors
+ * of thermal escape (hydrogen_escape.c, upper.c). */
+#include <string.h>
+
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_odeiv2.h>
+
+#include "suites.h"
+#include "volev/flux.h"
+#include "volev/model.h"
+#include "volev/output.h"
+#include "volev/units.h"
+#include "volev/upper.h"
+
+typedef struct {
+    double k;  /* first-order loss rate of the water, 1/s */
+    double f;  /* fractionation factor */
+} loss;
+
+/* Water escapes to space at k y[WATER] kg/s through the flux API with factor f. */
+static int loss_rhs(double t, const double y[], double dydt[], void *pv)
+{
+    const loss *l = pv;
+    (void)t;
+    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    vl_flux fx = {y, dydt, NULL, 0};
+    static const vl_reaction escape = {
+        "2 H2O -> 4 H(space) + 2 O(space)", 3, {VL_R_WATER, VL_R_SPACE_H, VL_R_SPACE_O},
+        {-2.0, 4.0, 2.0}};
+    double mol_s = l->k * y[VL_R_WATER] / (2.0 * vl_species_molar_mass(VL_SP_H2O));
+    vl_flux_react_f(&fx, &escape, mol_s, -1, l->f);
+    return GSL_SUCCESS;
+}
+
+START_TEST(rayleigh_distillation)
+{
+    /* Rayleigh distillation: a reservoir reduced to N/N0 with a constant fractionation
+     * factor f keeps R/R0 = (N/N0)^(f - 1) (science.md section 8; textbook) */
+    double fs[3] = {0.2385, 0.5, 0.8};
+    for (int i = 0; i < 3; i++) {
+        loss l = {1e-3, fs[i]};
+        double y[VL_NRES] = {0};
+        y[VL_R_WATER] = VL_TO_KG;
+        y[VL_R_D_WATER] = VL_TO_KG * vl_reservoir_element_fraction(VL_R_WATER, VL_EL_H) *
+                          155.76e-6 * VL_AW_D / VL_AW_H;
+        double r0 = vl_output_dh(y, VL_R_WATER);
+        gsl_odeiv2_system sys = {loss_rhs, NULL, VL_NRES, &l};
+        gsl_odeiv2_driver *d =
+            gsl_odeiv2_driver_alloc_y_new(&sys, gsl_odeiv2_step_rk8pd, 1.0, 1e-14, 1e-13);
+        double t = 0.0, t1 = log(100.0) / l.k; /* N/N0 = 1/100 */
+        ck_assert_int_eq(gsl_odeiv2_driver_apply(d, &t, t1, y), GSL_SUCCESS);
+        gsl_odeiv2_driver_free(d);
+        double n = y[VL_R_WATER] / VL_TO_KG;
+        ck_assert_rel(vl_output_dh(y, VL_R_WATER) / r0, pow(n, fs[i] - 1.0), 1e-6);
+        /* deuterium conserved */
+        double d0 = VL_TO_KG * vl_reservoir_element_fraction(VL_R_WATER, VL_EL_H) * 155.76e-6 *
+                    VL_AW_D / VL_AW_H;
+        ck_assert_rel(y[VL_R_D_WATER] + y[VL_R_SPACE_D], d0, 1e-10);
+    }
+}
+END_TEST
+
+START_TEST(fractionation_factors)
+{
+    double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU;
+    /* drag (Hunten, Pepin & Walker 1987): (m_c - m_D)/(m_c - m_H) [C] */
+    ck_assert_rel(vl_upper_drag_fractionation(16.0 * m_h), (16.0 - VL_AW_D / VL_AW_H) / 15.0, 1e-12);
+    ck_assert_double_eq(vl_upper_drag_fractionation(m_d), 0.0);
+    ck_assert_double_eq(vl_upper_drag_fractionation(0.5 * (m_h + m_d)), 0.0); /* D left behind */
+    ck_assert(vl_upper_drag_fractionation(1e6 * m_h) > 0.999);
+
+    /* thermal escape on present Earth: diffusion-limited, so the factor is
+     * (b_D/b_H)(m_a - m_D)/(m_a - m_H), b ~ 1/sqrt(reduced mass) (science.md section 8,
+     * from memory) with an N2 background [C] */
+    vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
+    vl_model *m = vl_test_model(sc);
+    double y[VL_NRES] = {0};
+    y[VL_R_WATER] = VL_TO_KG;
+    y[VL_R_N2] = 3.887e18;
+    vl_env e;
+    vl_model_env(m, 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
+    ck_assert_int_eq(e.esc_h_limit, VL_HLIM_DIFFUSION);
+    double ma = 2.0 * VL_AW_N * VL_AMU;
+    double mu_h = m_h * ma / (m_h + ma), mu_d = m_d * ma / (m_d + ma);
+    double f_dl = sqrt(mu_h / mu_d) * (ma - m_d) / (ma - m_h);
+    ck_assert_rel(e.esc_f_dl, f_dl, 1e-3); /* a trace of water-borne O in the background */
+    ck_assert_rel(e.esc_d_frac, e.esc_f_dl, 1e-3);
+    /* Jeans: D escapes far less readily than H: per-particle flux ratio
+     * sqrt(m_H/m_D)(1 + l_D)e^-l_D / ((1 + l_H)e^-l_H), l_D = l_H m_D/m_H [C] */
+    double lh = e.lambda_h, ld = lh * VL_AW_D / VL_AW_H;
+    ck_assert_rel(e.esc_f_jeans, sqrt(VL_AW_H / VL_AW_D) * (1 + ld) * exp(-ld) / ((1 + lh) * exp(-lh)),
+                  1e-12);
+    ck_assert(e.esc_f_jeans < 0.1);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
+START_TEST(enrichment_through_escape)
+{
+    /* a desiccating planet leaves deuterium-rich water behind (Venus: ~100x, Donahue et
+     * al. 1982): the dry demo ends enriched more than tenfold, the Earth barely at all */
+    vl_scenario *sc = vl_test_scenario("scenarios/demo-dry.cfg", NULL, 0);
+    vl_model *m = vl_test_model(sc);
+    vl_run_sink sink = {NULL, NULL, NULL};
+    vl_run_stats s;
+    vl_status st;
+    ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s", st.msg);
+    double enrich = vl_output_dh(s.y_final, VL_R_WATER) / sc->inventory.initial_dh;
+    ck_assert_msg(enrich > 10.0, "enrichment %g", enrich);
+    /* deuterium conserved over the whole run (science.md section 1: 1e-8) */
+    ck_assert(fabs(s.totals1[VL_EL_D] - s.totals0[VL_EL_D]) < 1e-8 * s.totals0[VL_EL_D]);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
+Suite *vl_suite_isotopes(void)
+{
+    Suite *s = suite_create("isotopes");
+    TCase *tc = tcase_create("deuterium");
+    tcase_set_timeout(tc, 60);
+    tcase_add_test(tc, rayleigh_distillation);
+    tcase_add_test(tc, fractionation_factors);
+    tcase_add_test(tc, enrichment_through_escape);
+    suite_add_tcase(s, tc);
+    return s;
+}
