@@ -47,7 +47,7 @@ else
 Q := @
 endif
 
-.PHONY: all check demo deps install uninstall clean bench docs
+.PHONY: all check demo deps install uninstall clean bench docs validation
 all: $(BIN)
 
 $(BUILD)/%.o: %.c
@@ -98,6 +98,10 @@ docs: $(BIN)
 	   echo "Units are those of the scenario file. Equations: docs/model.md."; echo; \
 	   echo '```'; $(BIN) processes; echo '```'; } > docs/parameters.md
 	@echo "  GEN docs/parameters.md"
+
+# Venus, Earth and Mars today against measurements: docs/validation.md.
+validation: $(BIN)
+	@sh scripts/validation.sh $(BIN)
 
 bench: $(BIN)
 	@sh bench/run.sh $(BIN)

@@ -288,6 +288,9 @@ static void accumulate(vl_run_stats *s, size_t n, double *prev, const double *no
     }
 }
 
+/* Reservoirs worth watching for exhaustion: those well above their floor at the start.
+ * Each is logged once: a trace species hovering near empty would otherwise fill the
+ * event log. */
 static unsigned long rearm(const double *y, unsigned long armed)
 {
     for (int r = 0; r < VL_NRES; r++)
@@ -359,7 +362,6 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
                 r->stats->time_in_regime_s[r->c->regime] += t - t0;
                 accumulate(r->stats, m->ncolumns, prev, now, t - t0);
             }
-            armed = rearm(y, armed);
         }
         if (rc == VL_OK && t >= tout[k])
             rc = emit_row(r, t, y, st);
