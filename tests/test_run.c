@@ -7,6 +7,7 @@
 #include "suites.h"
 #include "volev/integrate.h"
 #include "volev/model.h"
+#include "volev/output.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -181,6 +182,29 @@ START_TEST(earth_with_column_climate)
 }
 END_TEST
 
+/* Issue 6: Venus, from the shared starting inventory, loses its water in a runaway and
+ * keeps a CO2 atmosphere of tens of bar, with deuterium-enriched residual water. */
+START_TEST(venus_divergence)
+{
+    capture c;
+    vl_run_stats s;
+    vl_scenario *sc;
+    vl_model *m;
+    run_file("scenarios/venus.cfg", NULL, 0, &c, &s, &sc, &m);
+    check_conservation(&s);
+    ck_assert_int_eq(c.last_env.regime, VL_REGIME_DRY);
+    /* Venus: ~92 bar, 96.5 % CO2 (NASA NSSDC): "tens of bar or more", CO2-dominated */
+    ck_assert_msg(c.last_env.p_pa[VL_GAS_CO2] > 10.0 * VL_BAR, "pCO2 %g Pa",
+                  c.last_env.p_pa[VL_GAS_CO2]);
+    ck_assert(c.last_env.x[VL_GAS_CO2] > 0.9);
+    /* D/H of the residual water: measured ~100x (Donahue et al. 1982), > 10x required */
+    double dh = vl_output_dh(s.y_final, VL_R_WATER) / sc->inventory.initial_dh;
+    ck_assert_msg(dh > 10.0, "D/H enrichment %g", dh);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
 Suite *vl_suite_run(void)
 {
     Suite *s = suite_create("run");
@@ -189,6 +213,7 @@ Suite *vl_suite_run(void)
     tcase_add_test(tc, earth_history);
     tcase_add_test(tc, demo_runaway_ends_at_threshold);
     tcase_add_test(tc, earth_with_column_climate);
+    tcase_add_test(tc, venus_divergence);
     suite_add_tcase(s, tc);
     return s;
 }
