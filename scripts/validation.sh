@@ -110,9 +110,15 @@ cat <<'TAIL'
   captured with the default parameters. Its climate alternates between frozen and
   partly thawed states (limit cycles driven by outgassing and weathering).
 
+The three histories on shared axes: `docs/divergence.png` (plots/divergence.gp).
+
 Conclusions about the real planets need the published literature behind each process;
 this table shows where this version's defaults stand.
 TAIL
 } > "$tmp"
 mv "$tmp" "$out"
 echo "$out"
+if command -v gnuplot >/dev/null 2>&1; then
+    gnuplot -e "venus='$work/venus/series.csv'; earth='$work/earth/series.csv'; mars='$work/mars/series.csv'; outfile='docs/divergence.png'" plots/divergence.gp
+    echo docs/divergence.png
+fi
