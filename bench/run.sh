@@ -26,7 +26,7 @@ cd "$(dirname "$0")/.." || exit 2
 target_ms=20
 # case = tag, scenario, optional override (KEY=VALUE), separated by '|'
 cases="earth|scenarios/earth.cfg|
-earth-column|scenarios/earth.cfg|climate.model=column
+earth-hz_fit|scenarios/earth.cfg|climate.model=hz_fit
 demo|scenarios/demo.cfg|
 demo-hz_fit|scenarios/demo.cfg|climate.model=hz_fit"
 

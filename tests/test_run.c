@@ -104,14 +104,18 @@ START_TEST(earth_history)
     /* Earth keeps its ocean: hydrogen loss of a few kg/s (Catling & Zahnle 2009) over
      * 4.5 Gyr removes well under 1 % of an ocean [C] */
     ck_assert(s.y_final[VL_R_WATER] > 0.99 * VL_TO_KG);
-    /* 288 K today: the hz_fit calibration target (docs/model.md); +-2 K */
+    /* 288 K today: the climate's calibration target (docs/model.md 3.4); issue 2 asks
+     * "near 288 K", issue 6 288 +- 5 K; +-2 K here */
     ck_assert_msg(fabs(c.last_env.t_surf_k - 288.0) < 2.0, "T = %g", c.last_env.t_surf_k);
-    /* pre-industrial CO2 280 ppmv (common practice); "a few hundred ppm" */
+    /* pre-industrial CO2 280 ppmv (common practice); "a few hundred ppm", within a factor
+     * of two (issue 6 asks three) */
     double ppm = c.last_env.x[VL_GAS_CO2] * 1e6;
     ck_assert_msg(ppm > 140.0 && ppm < 560.0, "CO2 %g ppmv", ppm);
     ck_assert_int_eq(c.last_env.regime, VL_REGIME_TEMPERATE);
     ck_assert(event_index(&c, "runaway_onset") < 0);
-    ck_assert(s.min_mass_kg > -1.0);
+    /* no mass below zero beyond a few absolute tolerances of the integrator (the
+     * depletion ramp pulls overshoots back; common practice) */
+    ck_assert_msg(s.min_mass_kg > -10.0 * sc->run.abs_tol_kg, "min mass %g kg", s.min_mass_kg);
     ck_assert(c.rows > 250);
     /* the channel budget: water photolysed (its H escapes) integrates to the hydrogen in
      * space, H/H2O = 2.016/18.015 by mass [C]; trapezoid over steps: 1e-2 */
