@@ -30,6 +30,11 @@ typedef struct vl_param {
     int required;        /* 1: the file must set it (no default) */
 } vl_param;
 
+/* A row of a parameter table whose values live in the struct `block` (a process's
+ * parameter struct): the one place that knows the vl_param layout. */
+#define VL_PARAM_ROW(block, ptype, key, unit, to_si, def, lo, hi, field, doc, ref, needs)  \
+    {key, ptype, unit, to_si, def, lo, hi, NULL, NULL, offsetof(block, field), doc, ref, needs, 0}
+
 /* Where a resolved value came from. */
 enum vl_origin { VL_FROM_DEFAULT = 0, VL_FROM_FILE = 1, VL_FROM_OVERRIDE = 2 };
 

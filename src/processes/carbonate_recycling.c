@@ -20,8 +20,8 @@ typedef struct {
 
 #define MOBILE "planet.interior.tectonics=mobile_lid"
 #define STAGNANT "planet.interior.tectonics=stagnant_lid"
-#define R(k, unit, si, d, lo, hi, f, doc, ref, needs)                                      \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref, needs) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, needs)
 
 static const vl_param table[] = {
     R("residence_time_gyr", "Gyr", 1e9 * VL_YR, 1.7, 1e-3, 1e3, tau_s,

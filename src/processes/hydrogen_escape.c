@@ -42,8 +42,8 @@ typedef struct {
     double cool_h2o;         /* c_H2O */
 } params;
 
-#define P(k, type, unit, si, d, lo, hi, f, doc, ref, needs)                            \
-    {k, type, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
+#define P(k, type, unit, si, d, lo, hi, f, doc, ref, needs) \
+    VL_PARAM_ROW(params, type, k, unit, si, d, lo, hi, f, doc, ref, needs)
 #define COOLING "processes.hydrogen_escape.radiative_cooling=true"
 
 static const vl_param table[] = {

@@ -28,8 +28,8 @@ typedef struct {
 } params;
 
 #define PER_MYR (1.0 / (1e6 * VL_YR))
-#define R(k, unit, si, d, lo, hi, f, doc, ref, needs)                                       \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref, needs) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, needs)
 #define NEEDS_DELIVERY "processes.impacts.delivery=true"
 
 static const vl_param table[] = {

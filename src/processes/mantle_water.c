@@ -40,8 +40,8 @@ typedef struct {
     double stagnant_ratio;  /* stagnant-lid melt production over mobile-lid, at equal heat flow */
 } params;
 
-#define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, NULL)
 #define CA14 "Cowan & Abbot 2014, ApJ 781:27"
 
 static const vl_param table[] = {

@@ -17,8 +17,8 @@ typedef struct {
     double ref_n2_kg;   /* M_N2,ref */
 } params;
 
-#define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, NULL)
 
 static const vl_param table[] = {
     R("fixation_tg_yr", "Tg N/yr", 1e9 / VL_YR, 5.0, 0.0, 1e6, fix_kg_s,

@@ -20,8 +20,8 @@ typedef struct {
     double spread_exp;  /* n */
 } params;
 
-#define R(k, unit, si, d, lo, hi, f, doc, ref)                                             \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, NULL)
 
 static const vl_param table[] = {
     R("reference_rate_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 1e-3, 0.0, 1e6, ref_mol_s,

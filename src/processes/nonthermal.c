@@ -55,8 +55,8 @@ typedef struct {
 } params;
 
 #define EV 1.602176634e-19 /* J, exact (SI 2019) */
-#define ROW(k, unit, si, d, lo, hi, f, doc, ref)                                        \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, NULL, 0}
+#define ROW(k, unit, si, d, lo, hi, f, doc, ref) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, NULL)
 #define H_CAP_ROW                                                                        \
     {"h_within_diffusion_limit", VL_PT_BOOL, "", 1.0, 1.0, 0.0, 1.0, NULL, NULL,         \
      offsetof(params, h_capped),                                                         \

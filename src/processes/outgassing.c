@@ -24,8 +24,8 @@ typedef struct {
 #define TMOL_YR (1e12 / VL_YR)
 #define MOBILE "planet.interior.tectonics=mobile_lid"
 #define STAGNANT "planet.interior.tectonics=stagnant_lid"
-#define R(k, unit, si, d, lo, hi, f, doc, ref, needs)                                      \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref, needs) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, needs)
 
 static const vl_param table[] = {
     R("co2_tmol_yr", "Tmol/yr", TMOL_YR, 2.0, 0.0, 1e6, co2_mol_s,

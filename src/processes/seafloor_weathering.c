@@ -26,8 +26,8 @@ typedef struct {
 
 #define MOBILE "planet.interior.tectonics=mobile_lid"
 #define STAGNANT "planet.interior.tectonics=stagnant_lid"
-#define R(k, unit, si, d, lo, hi, f, doc, ref, needs)                                      \
-    {k, VL_PT_REAL, unit, si, d, lo, hi, NULL, NULL, offsetof(params, f), doc, ref, needs, 0}
+#define R(k, unit, si, d, lo, hi, f, doc, ref, needs) \
+    VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, needs)
 
 static const vl_param table[] = {
     R("reference_rate_tmol_yr", "Tmol/yr", 1e12 / VL_YR, 1.5, 0.0, 1e6, ref_mol_s,
