@@ -21,24 +21,6 @@
 static double mu_co2(void) { return vl_species_molar_mass(VL_SP_CO2); }
 
 /* Defaults with the overrides sets[0..n). */
-static vl_scenario *scenario(const char *const *sets, size_t n)
-{
-    vl_status st;
-    vl_scenario *sc = vl_scenario_new();
-    ck_assert_ptr_nonnull(sc);
-    for (size_t i = 0; i < n; i++)
-        ck_assert_msg(vl_scenario_override(sc, sets[i], &st) == VL_OK, "%s: %s", sets[i], st.msg);
-    return sc;
-}
-
-static vl_model *model(const vl_scenario *sc)
-{
-    vl_status st;
-    vl_model *m = vl_model_new(sc, &st);
-    ck_assert_msg(m != NULL, "%s", st.msg);
-    return m;
-}
-
 /* Only the named processes stay enabled (NULL-terminated list). */
 static void only(vl_scenario *sc, const char *const *names)
 {
@@ -88,8 +70,8 @@ START_TEST(continental_kinetic_law)
     const char *sets[] = {"processes.weathering.supply_limit_tmol_yr=1e9",
                           "processes.weathering.co2_exponent=0.2385",
                           "processes.weathering.temp_efold_k=17.3"};
-    vl_scenario *sc = scenario(sets, 3);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 3);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
@@ -116,8 +98,8 @@ END_TEST
 START_TEST(continental_runoff_and_supply)
 {
     const char *sets[] = {"processes.weathering.runoff=true"};
-    vl_scenario *sc = scenario(sets, 1);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
@@ -146,8 +128,8 @@ END_TEST
 START_TEST(seafloor_law)
 {
     const char *sets[] = {"processes.seafloor_weathering.supply_limit_factor=1e9"};
-    vl_scenario *sc = scenario(sets, 1);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
@@ -176,8 +158,8 @@ START_TEST(seafloor_law)
     vl_scenario_free(sc);
     /* no spreading under a stagnant lid */
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
-    sc = scenario(stag, 1);
-    m = model(sc);
+    sc = vl_test_scenario(NULL, stag, 1);
+    m = vl_test_model(sc);
     reference_env(m, y, &env);
     ck_assert_double_eq(rate_of(m, p, y, &env, 0), 0.0);
     vl_model_free(m);
@@ -188,8 +170,8 @@ END_TEST
 START_TEST(outgassing_heat_flow_and_lid)
 {
     const char *sets[] = {"processes.outgassing.heat_flow_exponent=1.5"};
-    vl_scenario *sc = scenario(sets, 1);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
@@ -210,8 +192,8 @@ START_TEST(outgassing_heat_flow_and_lid)
     vl_scenario_free(sc);
     /* stagnant lid: f_sl V0 (Q/Q0)^m_sl, defaults 0.1 and 2 (docs/cycles.md) */
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
-    sc = scenario(stag, 1);
-    m = model(sc);
+    sc = vl_test_scenario(NULL, stag, 1);
+    m = vl_test_model(sc);
     vl_model_env(m, t, y, VL_REGIME_TEMPERATE, &env);
     ck_assert_rel(rate_of(m, "outgassing", y, &env, 0), 0.1 * v0 * q * q, 1e-12);
     vl_model_free(m);
@@ -221,8 +203,8 @@ END_TEST
 
 START_TEST(recycling_split)
 {
-    vl_scenario *sc = scenario(NULL, 0);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
@@ -236,8 +218,8 @@ START_TEST(recycling_split)
     vl_model_free(m);
     vl_scenario_free(sc);
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
-    sc = scenario(stag, 1);
-    m = model(sc);
+    sc = vl_test_scenario(NULL, stag, 1);
+    m = vl_test_model(sc);
     /* stagnant lid: no subduction (docs/cycles.md) */
     ck_assert_double_eq(rate_of(m, "carbonate_recycling", y, &env, 0), 0.0);
     ck_assert_double_eq(rate_of(m, "carbonate_recycling", y, &env, 1), 0.0);
@@ -255,9 +237,9 @@ START_TEST(dry_planet_grows_at_outgassing)
     const char *sets[] = {"inventory.surface_water_to=0", "inventory.co2_bar=0.0417",
                           "inventory.mantle_co2_bar=1000", "climate.model=hz_fit",
                           "run.start_yr=4.0e9", "run.end_yr=4.01e9", "run.rel_tolerance=1e-10"};
-    vl_scenario *sc = scenario(sets, 7);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 7);
     only(sc, carbon);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES], dydt[VL_NRES], cols[16];
     vl_model_initial_state(m, y);
     double t = 4.0e9 * VL_YR;
@@ -320,8 +302,8 @@ static double air_share(const vl_model *m, double co2_mol, int regime, vl_env *e
 START_TEST(partition_earth_and_dense)
 {
     const char *sets[] = {"climate.model=hz_fit"};
-    vl_scenario *sc = scenario(sets, 1);
-    vl_model *m = model(sc);
+    vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
+    vl_model *m = vl_test_model(sc);
     vl_env env;
     /* science.md section 5: exchangeable carbon ~3.3e18 mol, of which the atmosphere holds
      * ~5e16 mol (280 ppmv): most in the ocean */
@@ -401,7 +383,7 @@ static void run_earth(const char *const *sets, size_t n, trace *tr, vl_run_stats
 {
     vl_status st;
     vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, n);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     memset(tr, 0, sizeof *tr);
     vl_run_sink sink = {tr, trace_row, trace_event};
     ck_assert_msg(vl_integrate(m, &sink, stats, &st) == VL_OK, "%s", st.msg);
@@ -504,7 +486,7 @@ START_TEST(ocean_column_written)
     const char *sets[] = {"run.start_yr=4.56e9", "inventory.co2_bar=0.0274",
                           "inventory.carbonate_co2_bar=80", "inventory.mantle_co2_bar=920"};
     vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 4);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     vl_output *o = vl_output_open(run_dir, m, &st);
     ck_assert_msg(o != NULL, "%s", st.msg);
     vl_run_sink sink = vl_output_sink(o);

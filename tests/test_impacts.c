@@ -64,14 +64,6 @@ static vl_scenario *scenario(int alone, int delivery, double bg)
     return sc;
 }
 
-static vl_model *model(const vl_scenario *sc)
-{
-    vl_status st;
-    vl_model *m = vl_model_new(sc, &st);
-    ck_assert_msg(m != NULL, "%s", st.msg);
-    return m;
-}
-
 /* Index of the output column called name. */
 static size_t column(const vl_model *m, const char *name)
 {
@@ -106,7 +98,7 @@ START_TEST(tangent_plane_earth)
 {
     vl_scenario *sc = scenario(1, 0, BG_PER_MYR);
     set(sc, "planet.radius_rearth=%.17g", 1.0);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     int k = vl_process_find("impacts");
     double y[VL_NRES], dydt[VL_NRES] = {0}, *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
@@ -138,7 +130,7 @@ END_TEST
 START_TEST(erosion_of_each_gas)
 {
     vl_scenario *sc = scenario(1, 0, BG_PER_MYR);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES], dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 3.9e8 * VL_YR;
@@ -185,7 +177,7 @@ START_TEST(rate_decays_with_efold)
 {
     double tau = DECAY_MYR * 1e6 * VL_YR, t0 = REF_AGE_YR * VL_YR, myr = 1e6 * VL_YR;
     vl_scenario *sc = scenario(1, 0, 0.0);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     gassy_state(m, y);
     double t1 = 1.37e8 * VL_YR;
@@ -197,7 +189,7 @@ START_TEST(rate_decays_with_efold)
     vl_model_free(m);
     vl_scenario_free(sc);
     sc = scenario(1, 0, BG_PER_MYR);
-    m = model(sc);
+    m = vl_test_model(sc);
     /* with the background: N(t0) = N0 + N_bg, and N - N_bg still e-folds in tau */
     ck_assert_rel(rate_seen(m, t0, y) * myr, EARLY_PER_MYR + BG_PER_MYR, 1e-12);
     double a = rate_seen(m, t1, y) * myr - BG_PER_MYR;
@@ -223,7 +215,7 @@ static double simpson_impacts(double a, double b, int n)
 START_TEST(pools_hold_the_integral)
 {
     vl_scenario *sc = scenario(0, 1, BG_PER_MYR);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES];
     vl_model_initial_state(m, y);
     /* the pools hold what the population delivers over the run: N(t) integrated from
@@ -243,7 +235,7 @@ START_TEST(pools_hold_the_integral)
     vl_scenario_free(sc);
     /* delivery off: the pools stay empty */
     sc = scenario(0, 0, BG_PER_MYR);
-    m = model(sc);
+    m = vl_test_model(sc);
     vl_model_initial_state(m, y);
     ck_assert_double_eq(y[VL_R_IMPACT_WATER], 0.0);
     ck_assert_double_eq(y[VL_R_IMPACT_CO2], 0.0);
@@ -256,7 +248,7 @@ END_TEST
 START_TEST(delivery_moves_from_pools)
 {
     vl_scenario *sc = scenario(1, 1, BG_PER_MYR);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y[VL_NRES], dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 2.9e8 * VL_YR, n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
@@ -300,7 +292,7 @@ START_TEST(conserves_with_delivery)
 {
     for (int alone = 1; alone >= 0; alone--) {
         vl_scenario *sc = scenario(alone, 1, BG_PER_MYR);
-        vl_model *m = model(sc);
+        vl_model *m = vl_test_model(sc);
         double y[VL_NRES], dydt[VL_NRES];
         gassy_state(m, y);
         for (int regime = 0; regime < VL_NREGIMES; regime++) {
@@ -323,7 +315,7 @@ START_TEST(earth_run_with_delivery)
     vl_status st;
     const char *sets[] = {"processes.impacts.enabled=true", "processes.impacts.delivery=true"};
     vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 2);
-    vl_model *m = model(sc);
+    vl_model *m = vl_test_model(sc);
     double y0[VL_NRES];
     vl_model_initial_state(m, y0);
     ck_assert(y0[VL_R_IMPACT_WATER] > 0.0 && y0[VL_R_IMPACT_CO2] > 0.0 && y0[VL_R_IMPACT_N2] > 0.0);
