@@ -325,6 +325,19 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
             memcpy(y0, y, sizeof y0);
             rc = gsl_odeiv2_evolve_apply(main_s->ev, main_s->ctrl, main_s->step, main_s->drv->sys,
                                          &t, tout[k], &h, y);
+            /* a stiff drain reaching a reservoir's floor can stall the Newton iteration
+             * on a stale Jacobian: restart the stepper (fresh Jacobian, first order)
+             * from the last accepted point with a smaller step, a few times */
+            for (int retry = 0; retry < 8 && (rc != GSL_SUCCESS || !all_finite(y, VL_NRES));
+                 retry++) {
+                t = t0;
+                memcpy(y, y0, sizeof y0);
+                stepper_reset(main_s);
+                h = fmax(h, 1.0) * 1e-2;
+                r->stats->restarts++;
+                rc = gsl_odeiv2_evolve_apply(main_s->ev, main_s->ctrl, main_s->step,
+                                             main_s->drv->sys, &t, tout[k], &h, y);
+            }
             if (rc != GSL_SUCCESS || !all_finite(y, VL_NRES)) {
                 rc = vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "integration failed at age %.6g yr: %s",
                              t0 / VL_YR, rc != GSL_SUCCESS ? gsl_strerror(rc) : "non-finite state");

@@ -12,6 +12,7 @@ typedef struct vl_run_stats {
     long rhs_calls;            /* right-hand-side evaluations, Jacobian included */
     long steps;                /* accepted steps */
     long events;               /* events logged */
+    long restarts;             /* stepper restarts after a failed step (stiff drains) */
     double wall_s;             /* wall-clock time */
     double y_final[VL_NRES];
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
