@@ -63,7 +63,8 @@ inventory per unit planet mass (1 TO of water; 63 bar of CO2 on Earth, all in th
 present Earth's dry air less CO2 as an N2 background, since the model has no biological
 O2 and no argon; the same mantle stores), use the default column climate and share
 every process parameter; they differ only in measured planet facts (mass, radius,
-orbit) and in documented ones (no field and a stagnant lid for Venus and Mars). Nothing
+orbit) and in documented ones (no field and a stagnant lid for Venus and Mars; Mars's
+volcanic outgassing set from the published estimate of Grott et al. 2011). Nothing
 was tuned per planet. Model values are at the end of each run (today); measured values
 with their sources. Model estimates, not predictions to be trusted in detail.
 
@@ -90,10 +91,14 @@ cat <<'TAIL'
   hot, which points at the grey CO2 collision-induced absorption (a coefficient from
   memory) being too strong at Venus's pressures. Its N2 follows the shared Earth-scaled
   rule and is several times too small (Venus holds ~3 bar of N2, more than Earth): the
-  shared inventory does not explain Venus's nitrogen. The D/H enrichment falls short
-  of ~100x: most of the water was lost in energy-limited, weakly fractionating escape;
-  the enrichment measured today is set by later, strongly fractionating non-thermal
-  loss of the last traces, which this version does not fractionate.
+  shared inventory does not explain Venus's nitrogen (and photochemical N escape, scaled
+  from a present-Mars rate recalled from memory, removes part of it). The D/H enrichment
+  falls short of ~100x: most of the water was lost in energy-limited, weakly
+  fractionating escape, and the last traces sit at the depletion floor with no source;
+  the enrichment measured today is thought to be a steady state between late,
+  strongly fractionating non-thermal loss (fractionation factor 0.15 here) and a small
+  supply of water (outgassing, comets), which the default scenario does not have
+  (juvenile water outgassing is 0).
 - **Earth** keeps its ocean, draws the starting 63 bar of CO2 into carbonates within
   ~0.1 Gyr and ends temperate near 288 K with a few hundred ppmv of CO2 — largely by
   construction: the climate is calibrated to present Earth and the weathering
@@ -102,12 +107,22 @@ cat <<'TAIL'
   whole dry air as background matters: with only today's N2 (0.75 bar) the grey column,
   too sensitive to background pressure (docs/model.md section 3.4), ends several times
   above 280 ppmv.
-- **Mars** keeps far too much CO2: it spends its history frozen, so weathering cannot
-  store carbon, and the model's non-thermal and photochemical carbon loss, scaled from
-  today's rates, removes little; the early, intense loss that isotopes record (e.g.
-  38Ar, Jakosky et al. 2017, from memory) and impact erosion (off by default) are not
-  captured with the default parameters. Its climate alternates between frozen and
-  partly thawed states (limit cycles driven by outgassing and weathering).
+- **Mars** ends frozen with a few hundredths of a bar of CO2: while the young Sun's XUV
+  is 10-100 times today's, photochemical escape and ion pickup (scaled from MAVEN-era
+  rates) and weathering of a briefly warm, wet surface remove nearly all of the
+  starting 9 bar within ~0.3 Gyr; the little that is left is what stagnant-lid
+  outgassing (fixed from Grott et al. 2011's estimate, a planet fact) adds afterwards.
+  The end state is several times the measured 6 mbar, and its composition misses:
+  nitrogen escape (a present rate recalled from memory, applied without any dependence
+  on the N2 abundance) removes all N2, while Mars keeps ~2.7 %. Mars keeps almost all
+  of its starting 0.1 TO of water as ice (measured: a few thousandths of a TO in the
+  polar caps and the shallow subsurface): with a tight cold trap and little H2 its
+  thermal hydrogen escape is small, so its D/H stays near the start instead of ~6x.
+  Two things in these results depend on changes made for this comparison and stated
+  in docs/escape.md and docs/cycles.md: the exospheric (non-thermal) channels now fade
+  only when the upper atmosphere as a whole flows out (before, a hydrodynamic trace of
+  hydrogen switched them off and Mars ended at 1.2 bar), and outgassing and weathering
+  rates scale with planet mass and surface area.
 
 The three histories on shared axes: `docs/divergence.png` (plots/divergence.gp).
 

@@ -95,6 +95,41 @@ START_TEST(continental_kinetic_law)
 }
 END_TEST
 
+/* The reference rates are per Earth mass (outgassing) and per Earth surface (weathering,
+ * seafloor weathering) unless switched to absolute (docs/cycles.md): a planet of 0.5
+ * Earth masses and 0.8 Earth radii gets 0.5x and 0.64x of them. */
+START_TEST(rates_scale_with_planet)
+{
+    const char *small[] = {"planet.mass_mearth=0.5", "planet.radius_rearth=0.8"};
+    const char *absolute[] = {"planet.mass_mearth=0.5", "planet.radius_rearth=0.8",
+                              "processes.outgassing.scale_by_planet_mass=false",
+                              "processes.weathering.scale_by_surface_area=false",
+                              "processes.seafloor_weathering.scale_by_surface_area=false"};
+    vl_scenario *sa = vl_test_scenario(NULL, small, 2);
+    vl_scenario *sb = vl_test_scenario(NULL, absolute, 5);
+    vl_model *ma = vl_test_model(sa), *mb = vl_test_model(sb);
+    double y[VL_NRES];
+    vl_env ea, eb;
+    earth_state(3.3e18, y);
+    y[VL_R_MANTLE_C] = 1e22; /* a source for outgassing */
+    reference_env(ma, y, &ea);
+    reference_env(mb, y, &eb);
+    const char *names[] = {"outgassing", "weathering", "seafloor_weathering"};
+    const double want[] = {0.5, 0.64, 0.64}; /* M_p/M_E; (R_p/R_E)^2 [C] */
+    for (int i = 0; i < 3; i++) {
+        double a = rate_of(ma, names[i], y, &ea, 0), b = rate_of(mb, names[i], y, &eb, 0);
+        ck_assert_msg(b > 0.0, "%s", names[i]);
+        ck_assert_rel(a / b, want[i], 1e-12);
+    }
+    /* absolute rates at the reference state are the table's: weathering 4.4 Tmol/yr */
+    ck_assert_rel(rate_of(mb, "weathering", y, &eb, 0), 4.4 * TMOL_YR * mu_co2(), 1e-12);
+    vl_model_free(ma);
+    vl_model_free(mb);
+    vl_scenario_free(sa);
+    vl_scenario_free(sb);
+}
+END_TEST
+
 START_TEST(continental_runoff_and_supply)
 {
     const char *sets[] = {"processes.weathering.runoff=true"};
@@ -542,6 +577,7 @@ Suite *vl_suite_carbon(void)
     tcase_add_test(laws, continental_kinetic_law);
     tcase_add_test(laws, continental_runoff_and_supply);
     tcase_add_test(laws, seafloor_law);
+    tcase_add_test(laws, rates_scale_with_planet);
     tcase_add_test(laws, outgassing_heat_flow_and_lid);
     tcase_add_test(laws, recycling_split);
     tcase_add_test(laws, henry_and_dic);

@@ -221,6 +221,10 @@ START_TEST(jeans_and_hydrodynamic_limits)
     f.env.t_exo_k = t_c * (1.0 + 1e-9);
     h->prepare(p, f.m, f.y, &f.env);
     ck_assert_rel(f.env.esc_hydro, 0.5, 1e-6);
+    /* hydrogen is a trace here (f_T = 7.6e-6) and O is far from its own critical
+     * parameter (lambda_O = 16 lambda_H = 40): the bulk stays kinetic, the weight is
+     * s_H w_H = 2 f_T/(1 + f_T) x 0.5 (hydrogen_escape.c) [C] */
+    ck_assert_rel(f.env.esc_bulk_hydro, 7.6e-6 / (1.0 + 7.6e-6), 1e-5);
     /* the cap blends min(Jeans, energy) into the energy limit with that weight */
     vl_env e = f.env;
     e.esc_h_diffusion = HUGE_VAL;
@@ -233,6 +237,8 @@ START_TEST(jeans_and_hydrodynamic_limits)
     f.env.t_exo_k = 20.0 * t_c;
     h->prepare(p, f.m, f.y, &f.env);
     ck_assert_double_eq(f.env.esc_hydro, 1.0);
+    /* a steam upper atmosphere (f_T = 1: all atoms H or O) flows out as a whole */
+    ck_assert_double_eq(f.env.esc_bulk_hydro, 1.0);
     ck_assert_int_eq(f.env.esc_h_limit, VL_HLIM_ENERGY);
     ck_assert_rel(f.env.esc_h_flux, f.env.esc_mass_flux / (VL_AW_H * VL_AMU), 1e-12);
     teardown(&f);

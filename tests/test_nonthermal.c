@@ -160,11 +160,11 @@ START_TEST(scaling_laws_exact)
     f.env.r_exo_m *= 2.0;
     ck_assert_rel(column(&f, "ion_pickup", "pickup_c_kg_s") / pu0, 4.0, 1e-8);
     ck_assert_rel(column(&f, "sputtering", "sputter_o_kg_s") / sp0, 8.0, 1e-8);
-    /* hydrodynamic weight: the channels fade out with it (hydrogen_escape.c) */
+    /* bulk hydrodynamic weight: the channels fade out with it (hydrogen_escape.c) */
     f.env.r_exo_m /= 2.0;
-    f.env.esc_hydro = 0.25;
+    f.env.esc_bulk_hydro = 0.25;
     ck_assert_rel(column(&f, "photochemical_escape", "photochem_o_kg_s") / pc0, 0.75, 1e-9);
-    f.env.esc_hydro = 1.0;
+    f.env.esc_bulk_hydro = 1.0;
     ck_assert_double_eq(column(&f, "ion_pickup", "pickup_o_kg_s"), 0.0);
     teardown(&f);
 }

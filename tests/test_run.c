@@ -209,6 +209,24 @@ START_TEST(venus_divergence)
 }
 END_TEST
 
+START_TEST(mars_divergence)
+{
+    capture c;
+    vl_run_stats s;
+    vl_scenario *sc;
+    vl_model *m;
+    run_file("scenarios/mars.cfg", NULL, 0, &c, &s, &sc, &m);
+    check_conservation(&s);
+    /* Mars today: ~6 mbar (NASA NSSDC); the issue asks for below 0.1 bar */
+    ck_assert_msg(c.last_env.p_surf_pa < 0.1 * VL_BAR, "p_surf %g Pa", c.last_env.p_surf_pa);
+    /* no stable surface liquid water: the climate finds no liquid share, frozen or dry */
+    ck_assert_msg(c.last_env.liquid <= 0.0, "liquid share %g", c.last_env.liquid);
+    ck_assert(c.last_env.regime == VL_REGIME_FROZEN || c.last_env.regime == VL_REGIME_DRY);
+    vl_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
 Suite *vl_suite_run(void)
 {
     Suite *s = suite_create("run");
@@ -218,6 +236,7 @@ Suite *vl_suite_run(void)
     tcase_add_test(tc, demo_runaway_ends_at_threshold);
     tcase_add_test(tc, earth_with_column_climate);
     tcase_add_test(tc, venus_divergence);
+    tcase_add_test(tc, mars_divergence);
     suite_add_tcase(s, tc);
     return s;
 }

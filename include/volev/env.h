@@ -74,6 +74,9 @@ typedef struct vl_env {
     double esc_h_jeans;       /* Jeans-limited H flux (exobase density in diffusive equilibrium), atoms m^-2 s^-1 of surface */
     double esc_hydro;         /* weight 0..1 of the hydrodynamic regime (escape parameter below critical) */
     double lambda_h;          /* Jeans escape parameter of H at the exobase */
+    double esc_bulk_hydro;    /* weight 0..1 of the whole upper atmosphere flowing out as a
+                                 fluid: hydrodynamic H that dominates it, or heavy atoms
+                                 (O) below their own critical escape parameter */
     int esc_h_limit;          /* what limits hydrogen escape: enum vl_h_limit */
     double photolysis_mol_s;  /* net H2O photolysed (its H escapes), mol/s */
     double esc_f_dl;          /* D fractionation factor of diffusion-limited escape */

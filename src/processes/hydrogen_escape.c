@@ -123,6 +123,15 @@ static double jeans_fractionation(double lambda_h)
     return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld);
 }
 
+/* Hydrodynamic weight at escape parameter lambda: 0 above lambda_c + 0.5, 1 below
+ * lambda_c - 0.5, a smoothstep between (continuous with its derivative). */
+static double hydro_weight(double lambda, double lambda_c)
+{
+    double u = lambda - (lambda_c - 0.5);
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    return 1.0 - u * u * (3.0 - 2.0 * u);
+}
+
 /* Jeans-limited H flux per unit surface and the escape parameter; sets the
  * hydrodynamic weight. */
 static void jeans_limit(const params *p, const vl_model *m, vl_env *env, double f_t)
@@ -133,9 +142,13 @@ static void jeans_limit(const params *p, const vl_model *m, vl_env *env, double 
     double ratio = env->r_exo_m / rp;
     env->esc_h_jeans = ratio * ratio * vl_upper_jeans_flux(n_h, m_h, env->t_exo_k, env->r_exo_m,
                                                            m->sc->planet.mass_kg, &env->lambda_h);
-    double u = (env->lambda_h - (p->lambda_crit - 0.5)); /* 0..1 across lambda_c -+ 0.5 */
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    env->esc_hydro = 1.0 - u * u * (3.0 - 2.0 * u);
+    env->esc_hydro = hydro_weight(env->lambda_h, p->lambda_crit);
+    /* the bulk flow: hydrogen's hydrodynamic weight counts in proportion to its share of
+     * the atoms above the homopause, s_H = 2 f_T / (1 + f_T); atomic O (the heavy
+     * product of dissociated CO2, O2 and H2O) has its own escape parameter */
+    double f = fmin(fmax(f_t, 0.0), 1.0), s_h = 2.0 * f / (1.0 + f);
+    double w_o = hydro_weight(env->lambda_h * VL_AW_O / VL_AW_H, p->lambda_crit);
+    env->esc_bulk_hydro = 1.0 - (1.0 - s_h * env->esc_hydro) * (1.0 - w_o);
 }
 
 static void prepare(const void *pv, const vl_model *m, const double *y, vl_env *env)

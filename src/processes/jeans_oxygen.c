@@ -4,9 +4,10 @@
  * the oxygen-bearing share of the exobase: the water-borne share w_O = f_strat plus the
  * O2 and CO2 share of the molecular background (photodissociated above the homopause).
  * Negligible for Earth-like exobases (lambda ~ 100), it matters for hot, light or small
- * planets. Once hydrogen escape turns hydrodynamic (env->esc_hydro, hydrogen_escape.c)
- * the Jeans picture no longer holds and oxygen leaves by drag (oxygen_drag.c): the flux
- * fades out with the same weight. The oxygen comes from atmospheric O2. */
+ * planets. Once the upper atmosphere flows out as a whole (env->esc_bulk_hydro,
+ * hydrogen_escape.c: hydrogen that dominates it turns hydrodynamic, or O itself falls
+ * below the critical escape parameter) the Jeans picture no longer holds and oxygen
+ * leaves by drag (oxygen_drag.c): the flux fades out with the same weight. The oxygen comes from atmospheric O2. */
 #include <math.h>
 #include <stddef.h>
 
@@ -39,7 +40,7 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     double phi = ratio * ratio *
                  vl_upper_jeans_flux(x_o * env->n_exo_m3, m_o, env->t_exo_k, env->r_exo_m,
                                      m->sc->planet.mass_kg, NULL);
-    double kinetic = 1.0 - env->esc_hydro;
+    double kinetic = 1.0 - env->esc_bulk_hydro;
     vl_flux_move(fx, VL_R_O2, VL_R_SPACE_O, kinetic * p->scale * phi * m->area_m2 * m_o, 0);
 }
 

@@ -16,8 +16,9 @@
  *   Polar outflow: the open-cap area against the reference's, times (1 - r_obs/r_mp)
  *   normalised the same way, which takes it continuously to 0 where the magnetopause
  *   comes down to the induced obstacle.
- * w_hydro: the hydrodynamic weight of hydrogen escape (hydrogen_escape.c): once the
- *   upper atmosphere flows out as a fluid, these exospheric channels fade out.
+ * w_hydro: the bulk hydrodynamic weight (hydrogen_escape.c): hydrogen's, in proportion to
+ *   its share of the upper atmosphere, combined with atomic oxygen's own: once the upper
+ *   atmosphere as a whole flows out as a fluid, these exospheric channels fade out.
  * Two guards keep extrapolations physical; both are smooth minima that leave the
  * reference rates unchanged to 1e-10: at most one escaping particle per absorbed
  * ionising photon, and non-thermal hydrogen within the room the diffusion limit leaves
@@ -52,6 +53,7 @@ typedef struct {
     double mp_ref_rp;    /* reference magnetopause stand-off, planet radii (polar) */
     double photon_j;     /* mean energy of an ionising photon, J */
     int h_capped;        /* hydrogen within the diffusion room (pickup, polar) */
+    double f_d;          /* deuterium fractionation factor of the escaping H (pickup, polar) */
 } params;
 
 #define EV 1.602176634e-19 /* J, exact (SI 2019) */
@@ -63,6 +65,12 @@ typedef struct {
      "non-thermal H shares the room the diffusion limit leaves above thermal escape "    \
      "(with hydrogen_escape on)",                                                        \
      "common practice: all escaping H crosses the homopause (Hunten 1973)", NULL, 0}
+#define DFRAC_ROW                                                                        \
+    ROW("deuterium_fractionation", "", 1.0, 0.15, 0.0, 1.0, f_d,                         \
+        "f: escaping D/H over the D/H of the water it comes from (1: no fractionation)", \
+        "from memory: f ~ 0.1-0.2 for Venus's non-thermal H escape (charge exchange, "   \
+        "ion pickup; Gurwell & Yung 1993, Planet. Space Sci. 41:91; Donahue & Hartle "   \
+        "1992)")
 #define PHOTON_ROW                                                                       \
     ROW("photon_energy_ev", "eV", EV, 20.0, 1.0, 1000.0, photon_j,                      \
         "mean energy of an ionising XUV photon: at most one escaping particle per "     \
@@ -138,6 +146,7 @@ static const vl_param pickup_table[] = {
         "invented: no published calibration; k = 2 gives 1.2e-2 at Earth's 10 R_E"),
     PHOTON_ROW,
     H_CAP_ROW,
+    DFRAC_ROW,
 };
 
 static const vl_param sputter_table[] = {
@@ -176,10 +185,10 @@ static const vl_param photochem_table[] = {
     ROW("c_ref_per_s", "s^-1", 1.0, 1e24, 0.0, 1e35, ref[EL_C],
         "hot C escape at the reference (its oxygen stays as O2)",
         "from memory, unverified: model estimates for present Mars of order 1e24 s^-1"),
-    ROW("n_ref_per_s", "s^-1", 1.0, 0.0, 0.0, 1e35, ref[EL_N],
+    ROW("n_ref_per_s", "s^-1", 1.0, 1e24, 0.0, 1e35, ref[EL_N],
         "hot N escape at the reference (from N2)",
-        "0: no verified present-day rate at hand (it sets Mars's 15N enrichment); set it "
-        "to study N loss"),
+        "from memory, unverified: photochemical N escape at present Mars of order 1e24 "
+        "s^-1 (Fox 1993, JGR 98:3297; it sets Mars's 15N enrichment)"),
     MARS_RADIUS_ROW,
     MARS_XUV_ROW,
     MARS_WIND_ROW,
@@ -222,6 +231,7 @@ static const vl_param polar_table[] = {
         "b = 1 gives of order 1e5 kg/s of O around young M dwarfs (docs/escape.md)"),
     PHOTON_ROW,
     H_CAP_ROW,
+    DFRAC_ROW,
 };
 
 static const vl_reaction water_to_h = {
@@ -248,12 +258,13 @@ static double softmin(double a, double b)
 }
 
 /* Surface, XUV and wind factor (A/A_ref)(F/F_ref)^a (p/p_ref)^b (science.md section 7),
- * faded out with the hydrodynamic weight of hydrogen escape (hydrogen_escape.c): once the
- * upper atmosphere flows out as a fluid the exospheric channels are part of that flow. */
+ * faded out with the bulk hydrodynamic weight (hydrogen_escape.c): once the upper
+ * atmosphere as a whole flows out as a fluid the exospheric channels are part of that
+ * flow. A thin hydrodynamic hydrogen trace in a heavy thermosphere does not count. */
 static double drive(const params *p, const vl_model *m, const vl_env *env)
 {
     double area_ref = 4.0 * VL_PI * p->radius_m * p->radius_m;
-    return (1.0 - env->esc_hydro) * m->area_m2 / area_ref *
+    return (1.0 - env->esc_bulk_hydro) * m->area_m2 / area_ref *
            pow(env->f_xuv / p->xuv_w_m2, p->xuv_exp) *
            pow(env->wind_pressure_pa / p->wind_pa, p->wind_exp);
 }
@@ -375,8 +386,10 @@ static void add_column(vl_flux *fx, int col, double kg_s)
 }
 
 /* Remove q particles/s of each element through the flux API; map gives each element's
- * column. Carbon leaves as CO2 -> C + 2 O (whole) or CO2 -> C + O2 (keep_o). */
-static void apply(const double q[NEL], const int map[NEL], int keep_o, vl_flux *fx)
+ * column. Carbon leaves as CO2 -> C + 2 O (whole) or CO2 -> C + O2 (keep_o). Hydrogen
+ * carries deuterium at f_d times the water's D/H (issue: non-thermal fractionation is a
+ * parameter of each H-removing channel). */
+static void apply(const double q[NEL], const int map[NEL], int keep_o, double f_d, vl_flux *fx)
 {
     double mm_o = vl_species_molar_mass(VL_SP_O), mm_h = vl_species_molar_mass(VL_SP_H);
     double mm_c = vl_species_molar_mass(VL_SP_C), mm_n = vl_species_molar_mass(VL_SP_N);
@@ -385,7 +398,7 @@ static void apply(const double q[NEL], const int map[NEL], int keep_o, vl_flux *
     if (map[EL_N] >= 0 && q[EL_N] > 0.0)
         vl_flux_move(fx, VL_R_N2, VL_R_SPACE_N, q[EL_N] / VL_AVOGADRO * mm_n, map[EL_N]);
     if (map[EL_H] >= 0 && q[EL_H] > 0.0) {
-        double e = vl_flux_react(fx, &water_to_h, q[EL_H] / (4.0 * VL_AVOGADRO), -1);
+        double e = vl_flux_react_f(fx, &water_to_h, q[EL_H] / (4.0 * VL_AVOGADRO), -1, f_d);
         add_column(fx, map[EL_H], 4.0 * e * mm_h);
     }
     if (map[EL_C] >= 0 && q[EL_C] > 0.0) {
@@ -418,7 +431,7 @@ static void pickup_rates(const void *pv, const vl_model *m, const double *y, con
     pickup_demand(p, m, env, q);
     if (p->h_capped)
         q[EL_H] *= env->nt_h_factor;
-    apply(q, pickup_map, 0, fx);
+    apply(q, pickup_map, 0, p->f_d, fx);
 }
 
 /* Sputtering by re-impacting pickup ions: the pickup law with its own rates and a
@@ -433,7 +446,7 @@ static void sputter_rates(const void *pv, const vl_model *m, const double *y, co
     for (int el = 0; el < NEL; el++)
         q[el] = p->ref[el] * k;
     photon_guard(p, m, env, 1.0, q);
-    apply(q, sputter_map, 0, fx);
+    apply(q, sputter_map, 0, 1.0, fx);
 }
 
 /* Photochemical escape: Lillis et al. 2017 scaling times the recombination gravity
@@ -448,7 +461,7 @@ static void photochem_rates(const void *pv, const vl_model *m, const double *y,
     for (int el = 0; el < NEL; el++)
         q[el] = p->ref[el] * k;
     photon_guard(p, m, env, 1.0, q);
-    apply(q, photochem_map, 1, fx);
+    apply(q, photochem_map, 1, 1.0, fx);
 }
 
 static void polar_rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
@@ -460,7 +473,7 @@ static void polar_rates(const void *pv, const vl_model *m, const double *y, cons
     polar_demand(p, m, env, q);
     if (p->h_capped)
         q[EL_H] *= env->nt_h_factor;
-    apply(q, polar_map, 0, fx);
+    apply(q, polar_map, 0, p->f_d, fx);
 }
 
 /* The reference magnetopause must stand above the induced obstacle, or the polar

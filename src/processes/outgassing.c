@@ -6,7 +6,10 @@
  *                                                ridges or arcs; Foley & Smye 2018,
  *                                                Astrobiology 18:873; Tosi et al. 2017,
  *                                                A&A 605:A71, both from memory)
- * V0 is the mantle-derived flux; CO2 returned at arcs from subducted carbonate is the
+ * V0 is the mantle-derived flux of a planet of one Earth mass; by default it scales with
+ * the planet's mass (mantle volume, and so melt production at a given relative heat
+ * flow, taken proportional to it: the per-unit-mass rule the reference scenarios use,
+ * docs/cycles.md). CO2 returned at arcs from subducted carbonate is the
  * carbonate_recycling process (docs/cycles.md). */
 #include <math.h>
 #include <stddef.h>
@@ -19,6 +22,7 @@ typedef struct {
     double exponent;                       /* m */
     double stagnant_factor;                /* f_sl */
     double stagnant_exponent;              /* m_sl */
+    int per_mass;                          /* scale V0 by M_p / M_earth */
 } params;
 
 #define TMOL_YR (1e12 / VL_YR)
@@ -52,6 +56,12 @@ static const vl_param table[] = {
       "the heat flow",
       "from memory: stagnant-lid outgassing wanes within a few Gyr as the mantle cools "
       "(Foley & Smye 2018); 2 is the top of the mobile-lid range of Lehmer et al. 2020", STAGNANT),
+    {"scale_by_planet_mass", VL_PT_BOOL, "", 1.0, 1.0, 0.0, 1.0, NULL, NULL,
+     offsetof(params, per_mass),
+     "the rates above are per Earth mass of planet and scale with M_p / M_earth (false: "
+     "absolute rates)",
+     "common practice: mantle processing per unit mass (e.g. Kite, Manga & Gaidos 2009, "
+     "ApJ 700:1732, from memory)", NULL, 0},
 };
 
 static const char *const columns[] = {"outgas_co2_kg_s", "outgas_n2_kg_s", "outgas_h2o_kg_s"};
@@ -71,6 +81,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     const params *p = pv;
     (void)y;
     double s = heat_scale(p, m, env);
+    if (p->per_mass)
+        s *= m->sc->planet.mass_kg / VL_M_EARTH;
     vl_flux_move(fx, VL_R_MANTLE_C, VL_R_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);
     vl_flux_move(fx, VL_R_MANTLE_N, VL_R_N2, s * p->n2_mol_s * vl_species_molar_mass(VL_SP_N2), 1);
     vl_flux_move(fx, VL_R_MANTLE_WATER, VL_R_WATER,

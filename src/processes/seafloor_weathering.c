@@ -8,7 +8,9 @@
  *   F = F_max (1 - exp(-F_kin / F_max)),  F_max = c_sup F0 (Q/Q0),
  * and k is chosen so that F = F0 in the reference state (the form of the continental
  * supply limit, Foley 2015, ApJ 812:36). Only under a mobile lid (a stagnant lid has
- * no spreading) and only with a liquid ocean (f_liq = env->liquid). CO2 -> carbonate. */
+ * no spreading) and only with a liquid ocean (f_liq = env->liquid). CO2 -> carbonate.
+ * F0 is the rate of a planet with Earth's surface area; by default it scales with the
+ * planet's surface area (ridge length and crust production taken proportional to it). */
 #include <math.h>
 #include <stddef.h>
 
@@ -22,6 +24,7 @@ typedef struct {
     double t0_k;       /* reference temperature */
     double pco2_0_pa;  /* reference CO2 partial pressure */
     double supply;     /* c_sup: F_max / (F0 Q/Q0) */
+    int per_area;      /* scale F0 by A_p / A_earth */
 } params;
 
 #define MOBILE "planet.interior.tectonics=mobile_lid"
@@ -51,6 +54,10 @@ static const vl_param table[] = {
       "c_sup: the most the new crust can take up, in units of F0 (Q/Q0)",
       "from memory: Archean altered basalt holds several wt% CO2 (Nakamura & Kato 2004, "
       "GCA 68:4595), modern upper crust a few tenths (Alt & Teagle 1999)", MOBILE),
+    {"scale_by_surface_area", VL_PT_BOOL, "", 1.0, 1.0, 0.0, 1.0, NULL, NULL,
+     offsetof(params, per_area),
+     "the reference rate is for Earth's surface area and scales with A_p / A_earth "
+     "(false: absolute rate)", "common practice: crust production per unit area", NULL, 0},
 };
 
 static const char *const columns[] = {"seafloor_co2_kg_s"};
@@ -69,6 +76,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     double g = kin0 * env->liquid * pow(pco2 / p->pco2_0_pa, p->alpha) *
                exp(-p->ea_j_mol / VL_R_GAS * (1.0 / env->t_surf_k - 1.0 / p->t0_k));
     double f = q * cap0 * -expm1(-g / cap0);
+    if (p->per_area)
+        f *= m->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
     vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, f * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 

@@ -7,7 +7,9 @@
  * already stands for the whole temperature dependence in the estimates it comes from
  * (Lehmer et al. 2020). The kinetic rate is capped by the supply of fresh rock (West
  * 2012; Foley 2015, ApJ 812:36): W = W_max (1 - exp(-W_kin / W_max)), with k chosen so
- * that W equals reference_rate in the reference state. */
+ * that W equals reference_rate in the reference state. W0 and W_max are rates of a
+ * planet with Earth's surface area; by default they scale with the planet's surface
+ * area (the land fraction is a share of it). */
 #include <math.h>
 #include <stddef.h>
 
@@ -26,6 +28,7 @@ typedef struct {
     int runoff;        /* apply R(T) */
     double runoff_per_k; /* RUN */
     double runoff_exp; /* exponent of the runoff factor */
+    int per_area;      /* scale W0 and W_max by A_p / A_earth */
 } params;
 
 #define R(k, unit, si, d, lo, hi, f, doc, ref) \
@@ -63,6 +66,10 @@ static const vl_param table[] = {
      offsetof(params, runoff_exp), "exponent of the runoff factor",
      "Berner & Kothavala 2001 (GEOCARB III), from memory", "processes.weathering.runoff=true",
      0},
+    {"scale_by_surface_area", VL_PT_BOOL, "", 1.0, 1.0, 0.0, 1.0, NULL, NULL,
+     offsetof(params, per_area),
+     "the rates above are for Earth's surface area and scale with A_p / A_earth (false: "
+     "absolute rates)", "common practice: weathering per unit land area", NULL, 0},
 };
 
 static const char *const columns[] = {"weathering_co2_kg_s"};
@@ -91,7 +98,6 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
                   vl_flux *fx)
 {
     const params *p = pv;
-    (void)m;
     (void)y;
     if (env->liquid <= 0.0)
         return;
@@ -100,6 +106,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
     double w = kin0 * env->liquid * (p->land / p->land_ref) * pow(pco2 / p->pco2_0_pa, p->beta) *
                exp((env->t_surf_k - p->t0_k) / p->te_k) * runoff(p, env->t_surf_k);
     w = p->max_mol_s * -expm1(-w / p->max_mol_s);
+    if (p->per_area)
+        w *= m->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
     vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 
