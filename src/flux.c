@@ -4,13 +4,22 @@
 #include <math.h>
 #include <stdio.h>
 
-/* Linear below the floor and continued below zero, so that an integrator overshoot
- * past zero is pulled back (the flow reverses) instead of freezing a negative mass. */
-double vl_flux_ramp(int r, double m_kg)
+/* With x = m / band: 1 for x >= 1, x (2 - x) inside the band and 2 x below zero, so that
+ * an integrator overshoot past zero is pulled back (the flow reverses) instead of
+ * freezing a negative mass; continuous with its first derivative. The band is the
+ * reservoir's floor, or the mass the demand would remove in VL_DRAIN_TIME_S if that is
+ * larger: a reservoir never empties faster than over about that time. Without this, a
+ * demand of 1e5 kg/s on a 1e3 kg floor band leaves a millisecond time scale that a
+ * float clock at 1e14-1e17 s (resolution 0.02-64 s) cannot step through, and the stiff
+ * stepper fails (seen with O2 pickup on dry planets). */
+double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s)
 {
-    double fl = vl_reservoir_floor(r);
-    return m_kg >= fl ? 1.0 : m_kg / fl;
+    double band = fmax(vl_reservoir_floor(r), fabs(demand_kg_s) * VL_DRAIN_TIME_S);
+    double x = m_kg / band;
+    return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 2.0 * x;
 }
+
+double vl_flux_ramp(int r, double m_kg) { return vl_flux_ramp_for(r, m_kg, 0.0); }
 
 /* Deuterium carried by hydrogen leaving reservoir `from` at rate kg/s (of `from`'s
  * species): the same share of its deuterium companion, times the fractionation factor
@@ -32,7 +41,7 @@ double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col)
 
 double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, double f_d)
 {
-    double rate = kg_s * vl_flux_ramp(from, fx->y[from]);
+    double rate = kg_s * vl_flux_ramp_for(from, fx->y[from], kg_s);
     fx->dydt[from] -= rate;
     fx->dydt[to] += rate;
     int dto = vl_reservoir_deuterium(to), dfrom = vl_reservoir_deuterium(from);
@@ -56,7 +65,9 @@ double vl_flux_react_f(vl_flux *fx, const vl_reaction *r, double mol_s, int col,
     double lim = 1.0;
     for (int i = 0; i < r->n; i++)
         if (r->nu[i] < 0.0) {
-            double k = vl_flux_ramp(r->res[i], fx->y[r->res[i]]);
+            int res = r->res[i];
+            double demand = -r->nu[i] * vl_species_molar_mass(vl_reservoir_species(res)) * mol_s;
+            double k = vl_flux_ramp_for(res, fx->y[res], demand);
             if (k < lim)
                 lim = k;
         }

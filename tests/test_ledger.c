@@ -144,12 +144,24 @@ START_TEST(ramp_stops_outflow)
     vl_flux fx = {y, dydt, NULL, 0};
     y[VL_R_O2] = 0.0;
     ck_assert_double_eq(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 5.3, -1), 0.0);
+    /* a small demand (x drain time below the floor): the band is the floor; at a quarter
+     * of it the ramp is x (2 - x) = 0.4375 (flux.h) [C] */
+    double small = 1e-4; /* kg/s: 1e-4 x 1e6 s = 100 kg < 1e3 kg floor */
     y[VL_R_O2] = 0.25 * vl_reservoir_floor(VL_R_O2);
-    ck_assert_double_eq_tol(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 4.0, -1), 1.0, 1e-15);
+    ck_assert_double_eq_tol(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, small, -1), 0.4375 * small,
+                            1e-18);
     y[VL_R_O2] = 7.0 * vl_reservoir_floor(VL_R_O2);
-    ck_assert_double_eq(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 4.0, -1), 4.0);
-    ck_assert_double_eq_tol(dydt[VL_R_O2], -5.0, 1e-15);
-    ck_assert_double_eq_tol(dydt[VL_R_SPACE_O], 5.0, 1e-15);
+    ck_assert_double_eq(vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, small, -1), small);
+    ck_assert_double_eq_tol(dydt[VL_R_O2], -1.4375 * small, 1e-18);
+    ck_assert_double_eq_tol(dydt[VL_R_SPACE_O], 1.4375 * small, 1e-18);
+    /* a large demand on a small store: the band is demand x drain time, so the store
+     * empties over ~VL_DRAIN_TIME_S, at 2 m / tau when m is far inside the band [C] */
+    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    y[VL_R_O2] = 1e3;
+    double out = vl_flux_move(&fx, VL_R_O2, VL_R_SPACE_O, 1e5, -1);
+    double x = 1e3 / (1e5 * VL_DRAIN_TIME_S);
+    ck_assert_rel(out, 1e5 * x * (2.0 - x), 1e-12);
+    ck_assert_rel(out, 2.0 * 1e3 / VL_DRAIN_TIME_S, 1e-6);
 }
 END_TEST
 

@@ -25,8 +25,14 @@ typedef struct vl_flux {
     size_t col_base;           /* first column of the process being evaluated */
 } vl_flux;
 
-/* Depletion ramp of reservoir r at mass m: 1 above its floor, m/floor below it (negative
- * for a negative mass, which reverses the flow and restores the reservoir to zero). */
+/* Depletion ramp of reservoir r at mass m, x = m/band: 1 above the band, x (2 - x) inside
+ * it, 2 x below zero (negative for a negative mass, which reverses the flow and restores
+ * the reservoir to zero); continuous with its first derivative. The band is the
+ * reservoir's floor, or demand x VL_DRAIN_TIME_S for a demand (kg/s) that would empty
+ * more than the floor in that time (flux.c says why). */
+#define VL_DRAIN_TIME_S 1.0e6
+double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s);
+/* The same for no demand (band = floor). */
 double vl_flux_ramp(int r, double m_kg);
 
 /* Move kg_s (>= 0) from reservoir `from` to `to` (same element make-up). The applied
