@@ -1,0 +1,723 @@
+/* catalogue.c: the planet-catalogue reader (catalogue.h; format in docs/catalogue.md).
+ * One candidate per CSV row; each value column maps to a scenario key. Everything about
+ * the file is checked here; whether a full key exists and whether a value is within its
+ * bounds is left to the scenario loader, which receives the cells as overrides. */
+#include "volev/catalogue.h"
+
+#include <errno.h>
+#include <limits.h>
+#include <math.h>
+#include <stdarg.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "volev/params.h"
+#include "volev/scenario.h"
+
+/* Short column names and the scenario keys they stand for; their values are numbers. */
+static const struct {
+    const char *name;
+    const char *key;
+} short_names[] = {
+    {"star_mass_msun", "star.mass_msun"},
+    {"star_teff_k", "star.teff_k"},
+    {"star_luminosity_lsun", "star.luminosity_lsun"},
+    {"star_age_yr", "star.present_age_yr"},
+    {"planet_mass_mearth", "planet.mass_mearth"},
+    {"planet_radius_rearth", "planet.radius_rearth"},
+    {"orbit_au", "planet.orbit_au"},
+    {"eccentricity", "planet.eccentricity"},
+    {"dipole_moment_earth", "planet.dipole_moment_earth"},
+    {"water_to", "inventory.surface_water_to"},
+    {"co2_bar", "inventory.co2_bar"},
+    {"n2_bar", "inventory.n2_bar"},
+};
+#define NSHORT (sizeof short_names / sizeof short_names[0])
+
+#define NAME_COLUMN "name"
+#define SHOWN_MAX 48      /* bytes of an offending value quoted in a message */
+#define LABEL_MAX 320     /* "column '<header>'" and the like */
+
+/* Reader state: the header once read, the catalogue being filled, the name index. */
+typedef struct parser {
+    const char *path;         /* file name in messages (may be NULL) */
+    int line;                 /* current 1-based line */
+    int header_line;          /* line of the header, 0 before it */
+    size_t nfields;           /* fields per line, from the header */
+    size_t name_field;        /* field index of the name column */
+    unsigned char *numeric;   /* per value column: 1 if its cells must be numbers */
+    vl_catalogue *cat;        /* being filled; owned until handed back */
+    size_t cap;               /* rows allocated in cat */
+    size_t *slot;             /* open-addressing index of names: row + 1, 0 = free */
+    size_t nslot;             /* size of slot, a power of two (0 before the first row) */
+    char *scratch;            /* decoded fields of the current line */
+    size_t nfield_line;       /* fields counted on the current line */
+    char *field[VL_CATALOGUE_COLS_MAX + 1]; /* the first fields of the current line */
+} parser;
+
+/* ---------------------------------------------------------------- messages */
+
+/* Records an input error at the current line (printf-style message). */
+__attribute__((format(printf, 3, 4)))
+static int fail(const parser *p, vl_status *st, const char *fmt, ...)
+{
+    char msg[VL_MSG_MAX];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(msg, sizeof msg, fmt, ap);
+    va_end(ap);
+    return vl_fail(st, VL_ERR_INPUT, p->path, p->line, "%s", msg);
+}
+
+static int out_of_memory(vl_status *st)
+{
+    return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+}
+
+/* s shortened to SHOWN_MAX bytes (at a UTF-8 character boundary, with "...") into buf. */
+static const char *shown(const char *s, char *buf, size_t n)
+{
+    size_t len = strlen(s);
+    if (len <= SHOWN_MAX && len < n) {
+        memcpy(buf, s, len + 1);
+        return buf;
+    }
+    size_t cut = SHOWN_MAX < n - 4 ? SHOWN_MAX : n - 4;
+    while (cut > 0 && ((unsigned char)s[cut] & 0xC0) == 0x80)
+        cut--;
+    memcpy(buf, s, cut);
+    memcpy(buf + cut, "...", 4);
+    return buf;
+}
+
+/* Header text of field k (the name column included). */
+static const char *field_header(const parser *p, size_t k)
+{
+    if (k == p->name_field)
+        return NAME_COLUMN;
+    return p->cat->headers[k < p->name_field ? k : k - 1];
+}
+
+/* How messages call field k of the current line: by its header once there is one. */
+static const char *field_label(const parser *p, size_t k, char *buf, size_t n)
+{
+    if (!p->header_line)
+        snprintf(buf, n, "header field %zu", k + 1);
+    else if (k < p->nfields)
+        snprintf(buf, n, "column '%s'", field_header(p, k));
+    else
+        snprintf(buf, n, "field %zu (the header has %zu)", k + 1, p->nfields);
+    return buf;
+}
+
+/* ---------------------------------------------------------------- text checks */
+
+/* Length of the well-formed UTF-8 sequence at s (n >= 1 bytes left), 0 if there is none
+ * (overlong forms, surrogates and code points above U+10FFFF are ill-formed). */
+static size_t utf8_len(const unsigned char *s, size_t n)
+{
+    unsigned char c = s[0], lo = 0x80, hi = 0xBF;
+    size_t k;
+    if (c < 0x80)
+        return 1;
+    if (c >= 0xC2 && c <= 0xDF)
+        k = 2;
+    else if (c == 0xE0)
+        k = 3, lo = 0xA0;
+    else if ((c >= 0xE1 && c <= 0xEC) || c == 0xEE || c == 0xEF)
+        k = 3;
+    else if (c == 0xED)
+        k = 3, hi = 0x9F;
+    else if (c == 0xF0)
+        k = 4, lo = 0x90;
+    else if (c >= 0xF1 && c <= 0xF3)
+        k = 4;
+    else if (c == 0xF4)
+        k = 4, hi = 0x8F;
+    else
+        return 0;
+    if (n < k || s[1] < lo || s[1] > hi)
+        return 0;
+    for (size_t j = 2; j < k; j++)
+        if (s[j] < 0x80 || s[j] > 0xBF)
+            return 0;
+    return k;
+}
+
+/* The line (end stripped) is UTF-8 text: no NUL, no control character but TAB. */
+static int check_text(const parser *p, const char *s, size_t len, vl_status *st)
+{
+    const unsigned char *u = (const unsigned char *)s;
+    for (size_t i = 0; i < len;) {
+        unsigned char c = u[i];
+        if (c == 0)
+            return fail(p, st, "NUL byte at byte %zu of the line: binary data, not CSV text",
+                        i + 1);
+        if (c == '\r')
+            return fail(p, st, "carriage return at byte %zu of the line (only CRLF line ends "
+                        "are accepted)", i + 1);
+        if ((c < 0x20 && c != '\t') || c == 0x7F)
+            return fail(p, st, "control character 0x%02X at byte %zu of the line: binary data, "
+                        "not CSV text", c, i + 1);
+        size_t k = utf8_len(u + i, len - i);
+        if (k == 0)
+            return fail(p, st, "byte 0x%02X at byte %zu of the line is not UTF-8 text "
+                        "(binary data?)", c, i + 1);
+        i += k;
+    }
+    return VL_OK;
+}
+
+/* A whole-field finite decimal number: digits, sign, point, exponent and nothing else
+ * (so no "nan", "inf", hex floats, spaces or trailing text), within double range. */
+static int is_number(const char *s)
+{
+    if (!*s)
+        return 0;
+    for (const char *q = s; *q; q++)
+        if (!strchr("0123456789+-.eE", *q))
+            return 0;
+    char *end;
+    errno = 0;
+    double v = strtod(s, &end);
+    return end != s && *end == '\0' && isfinite(v);
+}
+
+/* A bare word [A-Za-z_][A-Za-z0-9_]* that does not read as a non-finite number ("nan", "inf"). */
+static int is_word(const char *s)
+{
+    static const char alpha[] = "abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ_";
+    if (!*s || !strchr(alpha, *s))
+        return 0;
+    for (const char *q = s; *q; q++)
+        if (!strchr(alpha, *q) && !(*q >= '0' && *q <= '9'))
+            return 0;
+    char *end;
+    double v = strtod(s, &end);
+    return !(end != s && *end == '\0' && !isfinite(v));
+}
+
+/* A plausible scenario key: letters, digits, '_' and '.', no empty part between dots. */
+static int is_key(const char *s)
+{
+    if (s[0] == '.' || s[strlen(s) - 1] == '.' || strstr(s, ".."))
+        return 0;
+    for (const char *q = s; *q; q++)
+        if (!(*q == '_' || *q == '.' || (*q >= '0' && *q <= '9') || (*q >= 'a' && *q <= 'z') ||
+              (*q >= 'A' && *q <= 'Z')))
+            return 0;
+    return 1;
+}
+
+/* ---------------------------------------------------------------- columns */
+
+const char *vl_catalogue_short_key(const char *name)
+{
+    for (size_t i = 0; i < NSHORT; i++)
+        if (strcmp(name, short_names[i].name) == 0)
+            return short_names[i].key;
+    return NULL;
+}
+
+/* 1 if key is the key of a short name (its cells are numbers whichever way it is written). */
+static int numeric_key(const char *key)
+{
+    for (size_t i = 0; i < NSHORT; i++)
+        if (strcmp(key, short_names[i].key) == 0)
+            return 1;
+    return 0;
+}
+
+/* The only scenario key whose last part is name, into buf; 0 if none or several. */
+static int unique_leaf(const char *name, char *buf, size_t n)
+{
+    char key[512];
+    int found = 0;
+    for (size_t i = 0, count = vl_param_count(); i < count; i++) {
+        const vl_param *p;
+        void *base;
+        const char *prefix;
+        vl_param_at(NULL, i, &p, &base, &prefix);
+        if (!p)
+            continue;
+        snprintf(key, sizeof key, "%s%s", prefix, p->key);
+        const char *leaf = strrchr(key, '.');
+        if (strcmp(leaf ? leaf + 1 : key, name) != 0)
+            continue;
+        if (found++)
+            return 0;
+        snprintf(buf, n, "%s", key);
+    }
+    return found == 1;
+}
+
+/* The error for a header name that is neither a short name, nor 'name', nor dotted:
+ * the accepted short names, and the full key it is the last part of or the closest
+ * short name. */
+static int unknown_column(const parser *p, const char *f, vl_status *st)
+{
+    char hint[600], full[512], list[512], fs[SHOWN_MAX + 4];
+    size_t used = (size_t)snprintf(list, sizeof list, "%s", NAME_COLUMN);
+    const char *best = NAME_COLUMN;
+    size_t best_d = vl_edit_distance(f, NAME_COLUMN);
+    for (size_t i = 0; i < NSHORT; i++) {
+        used += (size_t)snprintf(list + used, sizeof list - used, ", %s", short_names[i].name);
+        size_t d = vl_edit_distance(f, short_names[i].name);
+        if (d < best_d)
+            best_d = d, best = short_names[i].name;
+    }
+    size_t limit = strlen(f) / 3 > 2 ? strlen(f) / 3 : 2;
+    if (unique_leaf(f, full, sizeof full))
+        snprintf(hint, sizeof hint, " (did you mean the full key '%s'?)", full);
+    else if (best_d <= limit)
+        snprintf(hint, sizeof hint, " (did you mean '%s'?)", best);
+    else
+        snprintf(hint, sizeof hint, " (closest short name: '%s')", best);
+    return fail(p, st, "unknown column '%s'%s; columns are %s, or a full scenario key with "
+                "dots such as processes.hydrogen_escape.xuv_efficiency",
+                shown(f, fs, sizeof fs), hint, list);
+}
+
+/* Reads the header: at most VL_CATALOGUE_COLS_MAX columns, one 'name', every other a
+ * short name or a plausible full key, no scenario key twice. */
+static int read_header(parser *p, vl_status *st)
+{
+    size_t n = p->nfield_line;
+    char fs[SHOWN_MAX + 4];
+    if (n > VL_CATALOGUE_COLS_MAX)
+        return fail(p, st, "the header has %zu columns; at most %d are allowed (name included)",
+                    n, VL_CATALOGUE_COLS_MAX);
+    vl_catalogue *c = p->cat;
+    c->ncols = n; /* room for n value columns while the name column is not found */
+    c->keys = calloc(n, sizeof *c->keys);
+    c->headers = calloc(n, sizeof *c->headers);
+    p->numeric = calloc(n, 1);
+    if (!c->keys || !c->headers || !p->numeric)
+        return out_of_memory(st);
+    int have_name = 0;
+    for (size_t k = 0, col = 0; k < n; k++) {
+        const char *f = p->field[k], *key = f;
+        if (!*f)
+            return fail(p, st, "header field %zu is empty: every column needs a name", k + 1);
+        if (strlen(f) > VL_CATALOGUE_FIELD_MAX)
+            return fail(p, st, "header field %zu is longer than %d bytes", k + 1,
+                        VL_CATALOGUE_FIELD_MAX);
+        if (strcmp(f, NAME_COLUMN) == 0) {
+            if (have_name)
+                return fail(p, st, "column '" NAME_COLUMN "' appears twice");
+            have_name = 1;
+            p->name_field = k;
+            continue;
+        }
+        if (strchr(f, '.')) {
+            if (!is_key(f))
+                return fail(p, st, "column '%s': not a scenario key (letters, digits, '_' and "
+                            "'.', no empty part between dots)", shown(f, fs, sizeof fs));
+        } else if (!(key = vl_catalogue_short_key(f))) {
+            return unknown_column(p, f, st);
+        }
+        for (size_t j = 0; j < col; j++) {
+            if (strcmp(c->keys[j], key) != 0)
+                continue;
+            if (strcmp(c->headers[j], f) == 0)
+                return fail(p, st, "column '%s' appears twice", f);
+            return fail(p, st, "columns '%s' and '%s' both set %s", c->headers[j], f, key);
+        }
+        p->numeric[col] = (unsigned char)numeric_key(key);
+        if (!(c->headers[col] = strdup(f)) || !(c->keys[col] = strdup(key)))
+            return out_of_memory(st);
+        col++;
+    }
+    if (!have_name)
+        return fail(p, st, "the header has no '" NAME_COLUMN "' column (each candidate needs "
+                    "a name)");
+    c->ncols = n - 1;
+    p->nfields = n;
+    p->header_line = p->line;
+    return VL_OK;
+}
+
+/* ---------------------------------------------------------------- rows */
+
+/* FNV-1a, 64 bit (Fowler, Noll, Vo; public-domain description). */
+static uint64_t hash_name(const char *s)
+{
+    uint64_t h = 14695981039346656037u;
+    for (; *s; s++)
+        h = (h ^ (unsigned char)*s) * 1099511628211u;
+    return h;
+}
+
+/* The index slot holding name, or the free slot where it would go. */
+static size_t *name_slot(const parser *p, const char *name)
+{
+    size_t mask = p->nslot - 1, i = (size_t)hash_name(name) & mask;
+    while (p->slot[i] && strcmp(p->cat->names[p->slot[i] - 1], name) != 0)
+        i = (i + 1) & mask;
+    return &p->slot[i];
+}
+
+/* Keeps the name index at most half full. */
+static int index_grow(parser *p, vl_status *st)
+{
+    if (2 * (p->cat->nrows + 1) <= p->nslot)
+        return VL_OK;
+    size_t *old = p->slot, nold = p->nslot;
+    p->nslot = nold ? 2 * nold : 64;
+    p->slot = calloc(p->nslot, sizeof *p->slot);
+    if (!p->slot) {
+        p->slot = old;
+        p->nslot = nold;
+        return out_of_memory(st);
+    }
+    for (size_t i = 0; i < nold; i++)
+        if (old[i])
+            *name_slot(p, p->cat->names[old[i] - 1]) = old[i];
+    free(old);
+    return VL_OK;
+}
+
+/* Makes room for one more row in names, cells and lines. */
+static int rows_grow(parser *p, vl_status *st)
+{
+    vl_catalogue *c = p->cat;
+    if (c->nrows < p->cap)
+        return VL_OK;
+    size_t cap = p->cap ? 2 * p->cap : 16;
+    char **names = realloc(c->names, cap * sizeof *names);
+    if (names)
+        c->names = names;
+    char ***cells = realloc(c->cells, cap * sizeof *cells);
+    if (cells)
+        c->cells = cells;
+    int *lines = realloc(c->lines, cap * sizeof *lines);
+    if (lines)
+        c->lines = lines;
+    if (!names || !cells || !lines)
+        return out_of_memory(st);
+    p->cap = cap;
+    return VL_OK;
+}
+
+/* One cell: empty, or a number (short-name and mapped columns), or a number or bare
+ * word (other full keys), at most VL_CATALOGUE_FIELD_MAX bytes. */
+static int check_cell(const parser *p, size_t col, const char *f, vl_status *st)
+{
+    char fs[SHOWN_MAX + 4];
+    const char *h = p->cat->headers[col];
+    if (strlen(f) > VL_CATALOGUE_FIELD_MAX)
+        return fail(p, st, "column '%s': value longer than %d bytes", h, VL_CATALOGUE_FIELD_MAX);
+    if (!*f || is_number(f))
+        return VL_OK;
+    if (p->numeric[col])
+        return fail(p, st, "column '%s': expected a finite number, got '%s'", h,
+                    shown(f, fs, sizeof fs));
+    if (is_word(f))
+        return VL_OK;
+    return fail(p, st, "column '%s': expected a finite number or a bare word (letters, digits "
+                "and '_', not starting with a digit), got '%s'", h, shown(f, fs, sizeof fs));
+}
+
+/* Reads one candidate: as many fields as the header, a new non-empty name, valid cells;
+ * stores the name and the non-empty cells in one allocation. */
+static int read_row(parser *p, vl_status *st)
+{
+    vl_catalogue *c = p->cat;
+    char fs[SHOWN_MAX + 4];
+    size_t n = p->nfield_line;
+    if (n != p->nfields)
+        return fail(p, st, "%zu fields, but the header on line %d has %zu%s", n, p->header_line,
+                    p->nfields,
+                    n > p->nfields ? " (a name or value containing a comma needs double quotes)"
+                                   : "");
+    if (c->nrows >= VL_CATALOGUE_ROWS_MAX)
+        return fail(p, st, "more than %d candidates; split the catalogue",
+                    VL_CATALOGUE_ROWS_MAX);
+    const char *name = p->field[p->name_field];
+    if (!*name)
+        return fail(p, st, "column '" NAME_COLUMN "': empty candidate name");
+    if (strlen(name) > VL_CATALOGUE_FIELD_MAX)
+        return fail(p, st, "column '" NAME_COLUMN "': name longer than %d bytes",
+                    VL_CATALOGUE_FIELD_MAX);
+    int rc = index_grow(p, st);
+    if (rc)
+        return rc;
+    size_t *slot = name_slot(p, name);
+    if (*slot)
+        return fail(p, st, "candidate '%s' appears twice: on line %d and on line %d",
+                    shown(name, fs, sizeof fs), c->lines[*slot - 1], p->line);
+    size_t size = c->ncols * sizeof(char *) + strlen(name) + 1;
+    for (size_t k = 0, col = 0; k < n; k++) {
+        if (k == p->name_field)
+            continue;
+        if ((rc = check_cell(p, col++, p->field[k], st)))
+            return rc;
+        if (*p->field[k])
+            size += strlen(p->field[k]) + 1;
+    }
+    if ((rc = rows_grow(p, st)))
+        return rc;
+    char **block = malloc(size);
+    if (!block)
+        return out_of_memory(st);
+    char *text = (char *)(block + c->ncols);
+    for (size_t k = 0, col = 0; k < n; k++) {
+        if (k == p->name_field)
+            continue;
+        const char *f = p->field[k];
+        block[col++] = *f ? text : NULL;
+        if (*f)
+            text = stpcpy(text, f) + 1;
+    }
+    strcpy(text, name);
+    c->cells[c->nrows] = block;
+    c->names[c->nrows] = text;
+    c->lines[c->nrows] = p->line;
+    c->nrows++;
+    *slot = c->nrows;
+    return VL_OK;
+}
+
+/* ---------------------------------------------------------------- lines */
+
+static int is_blank(char ch) { return ch == ' ' || ch == '\t'; }
+
+/* Splits the line into fields (p->field, p->nfield_line) decoded into p->scratch:
+ * surrounding blanks trimmed, double quotes removed ("" inside quotes is a quote). The
+ * decoded text with one NUL per field never needs more than len + 1 bytes. */
+static int split_line(parser *p, const char *s, size_t len, vl_status *st)
+{
+    char *o = p->scratch, lab[LABEL_MAX];
+    size_t i = 0, k = 0;
+    for (;; k++) {
+        while (i < len && is_blank(s[i]))
+            i++;
+        char *start = o;
+        if (i < len && s[i] == '"') {
+            for (i++;; i++) {
+                if (i >= len)
+                    return fail(p, st, "%s: unterminated quote (a quoted field must end with "
+                                "'\"' on the same line)", field_label(p, k, lab, sizeof lab));
+                if (s[i] == '"') {
+                    if (i + 1 < len && s[i + 1] == '"') {
+                        *o++ = '"';
+                        i++;
+                        continue;
+                    }
+                    i++;
+                    break;
+                }
+                *o++ = s[i];
+            }
+            while (i < len && is_blank(s[i]))
+                i++;
+            if (i < len && s[i] != ',')
+                return fail(p, st, "%s: text after the closing quote",
+                            field_label(p, k, lab, sizeof lab));
+        } else {
+            for (; i < len && s[i] != ','; i++) {
+                if (s[i] == '"')
+                    return fail(p, st, "%s: '\"' inside an unquoted field (quote the whole "
+                                "field and double the quotes inside)",
+                                field_label(p, k, lab, sizeof lab));
+                *o++ = s[i];
+            }
+        }
+        while (start < o && is_blank(*start))
+            start++;
+        while (o > start && is_blank(o[-1]))
+            o--;
+        *o++ = '\0';
+        if (k <= VL_CATALOGUE_COLS_MAX)
+            p->field[k] = start;
+        if (i >= len)
+            break;
+        i++; /* the comma */
+    }
+    p->nfield_line = k + 1;
+    return VL_OK;
+}
+
+static int fail_long(const parser *p, vl_status *st)
+{
+    return fail(p, st, "line longer than %d bytes", VL_CATALOGUE_LINE_MAX);
+}
+
+/* Takes one line (without its '\n', with a CR before it if there was one): checks its
+ * length and bytes, skips blank and comment lines, reads the header or a row. */
+static int take_line(parser *p, const char *s, size_t n, vl_status *st)
+{
+    if (p->line == INT_MAX)
+        return fail(p, st, "more than %d lines", INT_MAX);
+    p->line++;
+    if (n > 0 && s[n - 1] == '\r')
+        n--;
+    if (n > VL_CATALOGUE_LINE_MAX)
+        return fail_long(p, st);
+    if (p->line == 1 && n >= 3 && memcmp(s, "\xEF\xBB\xBF", 3) == 0) {
+        s += 3; /* UTF-8 byte-order mark */
+        n -= 3;
+    }
+    int rc = check_text(p, s, n, st);
+    if (rc)
+        return rc;
+    size_t i = 0;
+    while (i < n && is_blank(s[i]))
+        i++;
+    if (i == n || s[i] == '#')
+        return VL_OK;
+    if ((rc = split_line(p, s, n, st)))
+        return rc;
+    return p->header_line ? read_row(p, st) : read_header(p, st);
+}
+
+/* Reads f line by line through a bounded buffer (an over-long line fails as soon as it
+ * is seen, without being held in memory). */
+static int read_stream(parser *p, FILE *f, vl_status *st)
+{
+    enum { CHUNK = 1 << 16 };
+    char *chunk = malloc(CHUNK), *line = malloc(VL_CATALOGUE_LINE_MAX + 1);
+    int rc = chunk && line ? VL_OK : out_of_memory(st);
+    size_t n = 0, got;
+    while (rc == VL_OK && (got = fread(chunk, 1, CHUNK, f)) > 0) {
+        for (size_t i = 0; rc == VL_OK && i < got;) {
+            const char *nl = memchr(chunk + i, '\n', got - i);
+            size_t seg = nl ? (size_t)(nl - (chunk + i)) : got - i;
+            if (n + seg > VL_CATALOGUE_LINE_MAX + 1) { /* room for a CR before the LF */
+                if (p->line < INT_MAX)
+                    p->line++;
+                rc = fail_long(p, st);
+                break;
+            }
+            memcpy(line + n, chunk + i, seg);
+            n += seg;
+            i += seg;
+            if (nl) {
+                rc = take_line(p, line, n, st);
+                n = 0;
+                i++;
+            }
+        }
+    }
+    if (rc == VL_OK && ferror(f))
+        rc = vl_fail(st, VL_ERR_IO, p->path, 0, "read error: %s", strerror(errno));
+    if (rc == VL_OK && n > 0)
+        rc = take_line(p, line, n, st);
+    free(chunk);
+    free(line);
+    return rc;
+}
+
+/* Splits a memory buffer into lines. */
+static int read_buffer(parser *p, const char *text, size_t len, vl_status *st)
+{
+    int rc = VL_OK;
+    for (size_t i = 0; rc == VL_OK && i < len;) {
+        const char *nl = memchr(text + i, '\n', len - i);
+        size_t seg = nl ? (size_t)(nl - (text + i)) : len - i;
+        rc = take_line(p, text + i, seg, st);
+        i += seg + 1;
+    }
+    return rc;
+}
+
+/* After the last line: a header and at least one candidate. */
+static int finish(const parser *p, vl_status *st)
+{
+    if (!p->header_line)
+        return vl_fail(st, VL_ERR_INPUT, p->path, 0,
+                       "no header line: the catalogue is empty or holds only blank and comment "
+                       "lines");
+    if (p->cat->nrows == 0)
+        return vl_fail(st, VL_ERR_INPUT, p->path, p->header_line,
+                       "no candidates: the header is not followed by any row");
+    return VL_OK;
+}
+
+/* ---------------------------------------------------------------- public */
+
+void vl_catalogue_free(vl_catalogue *c)
+{
+    if (!c)
+        return;
+    for (size_t i = 0; i < c->ncols; i++) {
+        if (c->keys)
+            free(c->keys[i]);
+        if (c->headers)
+            free(c->headers[i]);
+    }
+    for (size_t r = 0; r < c->nrows; r++)
+        free(c->cells[r]);
+    free(c->keys);
+    free(c->headers);
+    free(c->cells);
+    free(c->names);
+    free(c->lines);
+    free(c);
+}
+
+/* Runs the reader over a FILE or a buffer; hands back the catalogue or NULL. */
+static vl_catalogue *run(const char *path, FILE *f, const char *text, size_t len,
+                         vl_status *st)
+{
+    vl_status_clear(st);
+    parser p = {.path = path};
+    p.cat = calloc(1, sizeof *p.cat);
+    p.scratch = malloc(VL_CATALOGUE_LINE_MAX + 1);
+    int rc = p.cat && p.scratch ? VL_OK : out_of_memory(st);
+    if (rc == VL_OK)
+        rc = f ? read_stream(&p, f, st) : read_buffer(&p, text, len, st);
+    if (rc == VL_OK)
+        rc = finish(&p, st);
+    free(p.scratch);
+    free(p.slot);
+    free(p.numeric);
+    if (rc) {
+        vl_catalogue_free(p.cat);
+        return NULL;
+    }
+    return p.cat;
+}
+
+vl_catalogue *vl_catalogue_parse(const char *text, size_t len, const char *label, vl_status *st)
+{
+    if (!text && len > 0) {
+        vl_fail(st, VL_ERR_INTERNAL, label, 0, "vl_catalogue_parse: no text");
+        return NULL;
+    }
+    return run(label, NULL, text, len, st);
+}
+
+vl_catalogue *vl_catalogue_read(const char *path, vl_status *st)
+{
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        vl_fail(st, VL_ERR_IO, path, 0, "cannot open catalogue: %s", strerror(errno));
+        return NULL;
+    }
+    vl_catalogue *c = run(path, f, NULL, 0, st);
+    fclose(f);
+    return c;
+}
+
+size_t vl_catalogue_overrides(const vl_catalogue *c, size_t r, char **out)
+{
+    if (!c || r >= c->nrows)
+        return 0;
+    size_t n = 0;
+    for (size_t col = 0; col < c->ncols; col++) {
+        const char *v = c->cells[r][col];
+        if (!v)
+            continue;
+        size_t size = strlen(c->keys[col]) + strlen(v) + 2;
+        if (!(out[n] = malloc(size))) {
+            while (n > 0)
+                free(out[--n]);
+            return SIZE_MAX;
+        }
+        snprintf(out[n++], size, "%s=%s", c->keys[col], v);
+    }
+    return n;
+}
