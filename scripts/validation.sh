@@ -37,7 +37,7 @@ row() { # planet dir
     printf '%s|%s|%s|%s|%s|%s|%s|%s|%s\n' \
         "$(fmt "$ps" '%.3g bar')" \
         "$(awk -v c="$pc" -v n="$pn" -v o="$po" -v s="$ps" 'BEGIN { printf "CO2 %.3g %%, N2 %.3g %%, O2 %.2g %%", 100*c/s, 100*n/s, 100*o/s }')" \
-        "$(fmt "$(sum "$d" final_surface_water TO)" '%.3g TO')" \
+        "$(fmt "$(sum "$d" final_surface_water_to TO)" '%.3g TO')" \
         "$(fmt "$(last "$d" surface_temp_k)" '%.0f K')" \
         "$(fmt "$(sum "$d" dh_enrichment)" '%.3g x')" \
         "$(fmt "$(last "$d" h_escape_kg_s)" '%.2g kg/s')" \

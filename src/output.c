@@ -40,9 +40,8 @@ struct vl_output {
 
 const char *vl_version(void) { return VL_VERSION " (git " VL_GIT_REV ")"; }
 
-static uint64_t fnv1a(const char *s, size_t n)
+uint64_t vl_output_fnv1a(const char *s, size_t n, uint64_t h)
 {
-    uint64_t h = 1469598103934665603ULL;
     for (size_t i = 0; i < n; i++) {
         h ^= (unsigned char)s[i];
         h *= 1099511628211ULL;
@@ -75,7 +74,7 @@ int vl_output_scenario_hash(const vl_scenario *sc, char out[17], vl_status *st)
     char *txt = resolved_text(sc, &len, st);
     if (!txt)
         return st->code;
-    snprintf(out, 17, "%016llx", (unsigned long long)fnv1a(txt, len));
+    snprintf(out, 17, "%016llx", (unsigned long long)vl_output_fnv1a(txt, len, VL_FNV_OFFSET));
     free(txt);
     return VL_OK;
 }
@@ -131,7 +130,7 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
         return NULL;
     }
     snprintf(o->hash, sizeof o->hash, "%016llx",
-             (unsigned long long)fnv1a(o->resolved, o->resolved_len));
+             (unsigned long long)vl_output_fnv1a(o->resolved, o->resolved_len, VL_FNV_OFFSET));
     if (mkdir(dir, 0777) == 0)
         o->created_dir = 1;
     else if (errno != EEXIST) {
@@ -160,6 +159,8 @@ static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
 double vl_output_dh(const double *y, int r)
 {
     int d = vl_reservoir_deuterium(r);
+    if (d >= 0 && y[r] < vl_reservoir_floor(r))
+        return NAN; /* an exhausted reservoir's ratio is numerical noise: undefined */
     double h_mol = clamp0(y[r]) * vl_reservoir_element_fraction(r, VL_EL_H) / (VL_AW_H * 1e-3);
     if (d < 0 || !(h_mol > 0.0))
         return 0.0;
@@ -232,7 +233,7 @@ static void summary(vl_output *o, const vl_run_stats *s)
     fprintf(f, "name,value,unit\n");
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, "final_%s,%.10g,kg\n", vl_reservoir_name(r), clamp0(y[r]));
-    fprintf(f, "final_surface_water,%.10g,TO\n", clamp0(y[VL_R_WATER]) / VL_TO_KG);
+    fprintf(f, "final_surface_water_to,%.10g,TO\n", clamp0(y[VL_R_WATER]) / VL_TO_KG);
     fprintf(f, "water_lost_to_space,%.10g,TO\n", y[VL_R_SPACE_H] / h_per_water / VL_TO_KG);
     fprintf(f, "o2_accumulated,%.10g,bar\n", clamp0(y[VL_R_O2]) * pa);
     fprintf(f, "final_dh_water,%.10g,ratio\n", vl_output_dh(y, VL_R_WATER));

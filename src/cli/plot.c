@@ -1,42 +1,12 @@
 /* plot.c: `volev plot DIR [--format png|pdf|svg]`: render the figures of what DIR
  * holds through gnuplot: DIR/history.FORMAT from a run's series.csv (plots/history.gp),
  * DIR/balance.FORMAT from `volev balance`'s balance.csv (plots/balance.gp). */
-#include <errno.h>
-#include <libgen.h>
-#include <spawn.h>
 #include <stdio.h>
-#include <stdlib.h>
 #include <string.h>
-#include <sys/wait.h>
 #include <unistd.h>
 
 #include "cli.h"
-
-extern char **environ;
-
-/* Find plots/NAME: $VOLEV_PLOTS_DIR, then ../plots and ../share/volev/plots beside the
- * executable. */
-static int find_script(const char *name, char *out, size_t n)
-{
-    const char *env = getenv("VOLEV_PLOTS_DIR");
-    if (env) {
-        snprintf(out, n, "%s/%s", env, name);
-        return access(out, R_OK);
-    }
-    char exe[4096];
-    ssize_t len = readlink("/proc/self/exe", exe, sizeof exe - 1);
-    if (len <= 0)
-        return -1;
-    exe[len] = '\0';
-    const char *dir = dirname(exe);
-    static const char *const rel[] = {"../plots", "../share/volev/plots", "plots"};
-    for (size_t i = 0; i < sizeof rel / sizeof rel[0]; i++) {
-        snprintf(out, n, "%s/%s/%s", dir, rel[i], name);
-        if (access(out, R_OK) == 0)
-            return 0;
-    }
-    return -1;
-}
+#include "gnuplot.h"
 
 /* Render DIR/FIGURE.FMT from DIR/DATA with plots/SCRIPT; prints the figure's path. */
 static int render(const char *dir, const char *data, const char *script_name, const char *figure,
@@ -46,23 +16,14 @@ static int render(const char *dir, const char *data, const char *script_name, co
     snprintf(datafile, sizeof datafile, "%s/%s", dir, data);
     snprintf(events, sizeof events, "%s/events.csv", dir);
     snprintf(outfile, sizeof outfile, "%s/%s.%s", dir, figure, fmt);
-    if (find_script(script_name, script, sizeof script) != 0)
+    if (vl_gnuplot_find_script(script_name, script, sizeof script) != 0)
         return vl_fail(st, VL_ERR_TOOL, NULL, 0,
                        "cannot find plots/%s (set VOLEV_PLOTS_DIR to the plots folder)",
                        script_name);
     snprintf(expr, sizeof expr, "datafile='%s'; eventfile='%s'; outfile='%s'; fmt='%s'", datafile,
              access(events, R_OK) == 0 ? events : "", outfile, fmt);
-    char *args[] = {"gnuplot", "-e", expr, script, NULL};
-    pid_t pid;
-    int err = posix_spawnp(&pid, "gnuplot", NULL, NULL, args, environ);
-    if (err != 0)
-        return vl_fail(st, VL_ERR_TOOL, NULL, 0, "cannot run gnuplot: %s (install gnuplot-nox)",
-                       strerror(err));
-    int status;
-    if (waitpid(pid, &status, 0) < 0 || !WIFEXITED(status) || WEXITSTATUS(status) != 0) {
-        remove(outfile);
-        return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot failed rendering %s", outfile);
-    }
+    if (vl_gnuplot_run(script, expr, outfile, st) != VL_OK)
+        return st->code;
     printf("%s\n", outfile);
     return VL_OK;
 }
