@@ -1,12 +1,18 @@
 # volev: GNU make build. `make` builds build/volev; `make check` runs all tests;
 # `make demo` installs missing packages (as root), builds, runs the demo and renders it.
-# Switches: SAN=1 (ASan+UBSan), WERROR=1, V=1 (show commands), PREFIX, DESTDIR.
+# Switches: SAN=1 (ASan+UBSan), WERROR=1, V=1 (show commands), MPI=1 (an MPI build of
+# `volev sweep` with mpicc, in build-mpi/ unless BUILD is given), PREFIX, DESTDIR.
 
 VERSION := 0.1.0
 PREFIX ?= /usr/local
 DESTDIR ?=
 CC ?= cc
+ifeq ($(MPI),1)
+CC := mpicc
+BUILD ?= build-mpi
+else
 BUILD ?= build
+endif
 
 GIT_REV := $(shell git rev-parse --short=12 HEAD 2>/dev/null || echo unknown)
 PKGS := gsl libconfig
@@ -16,6 +22,12 @@ WARN := -Wall -Wextra -Wpedantic -Wshadow -Wconversion -Wstrict-prototypes \
 CFLAGS ?= -O2 -g
 CFLAGS += -std=c17 $(WARN) -ffp-contract=off -Iinclude \
           -D_POSIX_C_SOURCE=200809L -DVL_VERSION='"$(VERSION)"' -DVL_GIT_REV='"$(GIT_REV)"'
+# members of a sweep run on threads (OpenMP: GCC's libgomp)
+CFLAGS += -fopenmp
+LDFLAGS += -fopenmp
+ifeq ($(MPI),1)
+CFLAGS += -DVL_MPI
+endif
 ifeq ($(WERROR),1)
 CFLAGS += -Werror
 endif
@@ -79,9 +91,19 @@ $(TESTBIN): $(TEST_OBJ) $(LIB)
 	@$(if $(Q),echo "  LD  $@")
 	$(Q)$(CC) $(LDFLAGS) $(TEST_OBJ) $(LIB) $(PKG_LIBS) $(CHECK_LIBS) -lm -o $@
 
-# All tests: unit suites and command-line tests, one runner.
+# All tests: unit suites and command-line tests, one runner. Where mpicc exists the MPI
+# build of the program (build-mpi/, without sanitizers: OpenMPI's own allocations would
+# read as leaks) is made too, and the sweep tests run it on 2 ranks.
+MPICC := $(shell command -v mpicc 2>/dev/null)
+ifneq ($(MPICC),)
+MPI_BIN := build-mpi/volev
+MPI_ENV := VOLEV_MPI_BIN=$(abspath $(MPI_BIN))
+endif
 check: $(TESTBIN) $(BIN)
-	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
+ifneq ($(MPICC),)
+	@$(MAKE) --no-print-directory MPI=1 BUILD=build-mpi SAN= $(MPI_BIN)
+endif
+	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) $(MPI_ENV) CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
 
 # Missing Debian packages: installed when root, otherwise the exact command is printed.
 deps:
@@ -119,6 +141,6 @@ uninstall:
 	rm -rf $(DESTDIR)$(PREFIX)/share/volev
 
 clean:
-	rm -rf $(BUILD) build-san demo-out
+	rm -rf $(BUILD) build-san build-mpi demo-out
 
 -include $(DEPS)

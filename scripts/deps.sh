@@ -4,7 +4,7 @@
 # packages are installed with apt-get; otherwise the command to run is printed.
 set -eu
 
-PACKAGES="gcc make pkg-config libgsl-dev libconfig-dev check gnuplot-nox"
+PACKAGES="gcc make pkg-config libgsl-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev"
 
 if ! command -v dpkg-query >/dev/null 2>&1; then
     echo "deps.sh: dpkg-query not found (not a Debian-based system?)." >&2

@@ -7,6 +7,7 @@
 #include "volev/integrate.h"
 
 #include <float.h>
+#include <pthread.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -387,11 +388,15 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
     return rc;
 }
 
+/* Errors come back as return codes; GSL's default handler would abort. */
+static void gsl_quiet(void) { gsl_set_error_handler_off(); }
+
 int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats, vl_status *st)
 {
     struct timespec w0, w1;
     clock_gettime(CLOCK_MONOTONIC, &w0);
-    gsl_set_error_handler_off();
+    static pthread_once_t quiet = PTHREAD_ONCE_INIT; /* GSL's handler is process-wide */
+    pthread_once(&quiet, gsl_quiet);
     memset(stats, 0, sizeof *stats);
     stats->min_mass_kg = HUGE_VAL;
     ctx_t *c = calloc(1, sizeof *c);

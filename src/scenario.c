@@ -707,6 +707,13 @@ static int visit(loader *ld, const config_setting_t *s, const char *full, const 
 {
     int line = (int)config_setting_source_line(s);
     int grp = config_setting_is_group(s);
+    if (prefix[0] == '\0' && strcmp(full, "sweep") == 0) {
+        if (!grp)
+            return fail_at(ld->st, &(where){ld->path, line, NULL},
+                           "'sweep' must be a group: sweep = { ... };");
+        ld->sc->sweep_line = line; /* the ensemble settings: src/sweep.c reads them */
+        return VL_OK;
+    }
     if (is_group(full))
         return grp ? walk_group(ld, s, full) : value_for_group(ld, full, line);
     if (strcmp(prefix, "processes") == 0)

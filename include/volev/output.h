@@ -4,6 +4,8 @@
 #ifndef VOLEV_OUTPUT_H
 #define VOLEV_OUTPUT_H
 
+#include <stdint.h>
+
 #include "volev/integrate.h"
 #include "volev/model.h"
 #include "volev/scenario.h"
@@ -25,7 +27,11 @@ void vl_output_abort(vl_output *o);
 /* FNV-1a 64-bit hash of the resolved scenario text, as 16 hex digits in buf[17]. */
 int vl_output_scenario_hash(const vl_scenario *sc, char buf[17], vl_status *st);
 
-/* D/H atom ratio of H-bearing reservoir r in state y (0 without hydrogen). */
+/* FNV-1a 64-bit hash of n bytes of s, continuing from h (VL_FNV_OFFSET to start). */
+#define VL_FNV_OFFSET 1469598103934665603ULL
+uint64_t vl_output_fnv1a(const char *s, size_t n, uint64_t h);
+/* D/H atom ratio of H-bearing reservoir r in state y (0 for a reservoir without
+ * deuterium; NaN, undefined, when the reservoir is below its floor band). */
 double vl_output_dh(const double *y, int r);
 
 /* Version string "VERSION (git REV)". */

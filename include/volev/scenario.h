@@ -128,6 +128,8 @@ typedef struct vl_process_cfg {
 typedef struct vl_scenario {
     char path[1024];           /* scenario file as given */
     char name[256];            /* file name without folder and extension */
+    int sweep_line;            /* line of a top-level `sweep` group (read by sweep.c, not
+                                  by the loader; 0 if none) */
     vl_star_params star;
     vl_planet_params planet;
     vl_interior_params interior;

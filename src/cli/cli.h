@@ -10,6 +10,8 @@ int vl_cli_validate(int argc, char **argv);
 int vl_cli_processes(int argc, char **argv);
 int vl_cli_plot(int argc, char **argv);
 int vl_cli_balance(int argc, char **argv);
+int vl_cli_sweep(int argc, char **argv);
+int vl_cli_compare(int argc, char **argv);
 
 /* Print st to stderr as "volev: FILE:LINE: message" and return its code. */
 int vl_cli_report(const vl_status *st);

@@ -45,6 +45,11 @@ int vl_cli_run(int argc, char **argv)
     }
     vl_output *out = NULL;
     char dir[VL_PATH_MAX];
+    if (sc && sc->sweep_line)
+        fprintf(stderr,
+                "volev: note: %s:%d: the sweep group is for 'volev sweep'; this runs the base "
+                "scenario\n",
+                sc->path, sc->sweep_line);
     if (m) {
         if (a.out)
             snprintf(dir, sizeof dir, "%s", a.out);
