@@ -127,6 +127,8 @@ validation: $(BIN)
 
 bench: $(BIN)
 	@sh bench/run.sh $(BIN)
+	@if command -v mpicc >/dev/null 2>&1; then $(MAKE) --no-print-directory MPI=1 BUILD=build-mpi SAN= build-mpi/volev; fi
+	@sh bench/sweep.sh $(BIN) 1000 build-mpi/volev
 
 install: $(BIN)
 	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/share/man/man1 \

@@ -146,7 +146,19 @@ static signature_t signature(const vl_model *m, double t, const double *y, int r
     } else {
         vl_model_env(m, t, y, regime, &env);
     }
-    s.regime = vl_climate_classify(m->climate, y[VL_R_WATER] > 0.0 ? y[VL_R_WATER] : 0.0, &env);
+    double water = y[VL_R_WATER] > 0.0 ? y[VL_R_WATER] : 0.0;
+    s.regime = vl_climate_classify(m->climate, water, &env);
+    if (s.regime != regime) {
+        /* take a change only to a regime consistent with itself: where the regime in force
+         * calls for another that, evaluated in its own right, calls straight back (the
+         * boundary moves with the regime, e.g. the ocean's CO2 uptake shifts the runaway
+         * limit), keep the one in force instead of switching back and forth every
+         * event tolerance (docs/model.md section 6) */
+        vl_env other;
+        vl_model_env(m, t, y, s.regime, &other);
+        if (vl_climate_classify(m->climate, water, &other) == regime)
+            s.regime = regime;
+    }
     for (int r = 0; r < VL_NRES; r++)
         if ((armed >> r & 1UL) && y[r] < vl_reservoir_floor(r))
             s.exhausted |= 1UL << r;
