@@ -4,6 +4,7 @@
 
 #include <check.h>
 #include <math.h>
+#include <stddef.h>
 
 #define SUITE(name) Suite *vl_suite_##name(void);
 #include "suites.def"
@@ -29,5 +30,25 @@ struct vl_model *vl_test_model(const struct vl_scenario *sc);
 /* Paths for tests that run the program or read bundled files. */
 const char *vl_test_bin(void);   /* $VOLEV_BIN or "build/volev" */
 const char *vl_test_top(void);   /* $VOLEV_TOP or "." */
+
+/* Command-line tests: the program run in a temporary folder DIR; REL is relative to it. */
+/* A fresh folder /tmp/TAG-XXXXXX (mkdtemp) written into dir (of size n). */
+void vl_test_tmp_make(char *dir, size_t n, const char *tag);
+/* Removes dir and everything in it. */
+void vl_test_tmp_remove(const char *dir);
+/* Runs "cd DIR && CMD >out.txt 2>err.txt" through system(), CMD built from fmt;
+ * asserts the shell exited normally and returns its exit status. */
+int vl_test_sh(const char *dir, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+/* Whether gnuplot is on PATH. */
+int vl_test_have_gnuplot(void);
+/* The contents of DIR/REL, malloc'd and NUL-terminated, NULL if it cannot be opened;
+ * its length in *size unless size is NULL. */
+char *vl_test_slurp(const char *dir, const char *rel, long *size);
+/* Whether DIR/REL exists. */
+int vl_test_exists(const char *dir, const char *rel);
+/* Writes text to DIR/REL (replacing it). */
+void vl_test_write(const char *dir, const char *rel, const char *text);
+/* Asserts that DIR/REL exists and contains needle; the message shows the text. */
+void vl_test_file_contains(const char *dir, const char *rel, const char *needle);
 
 #endif

@@ -7,87 +7,19 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/stat.h>
-#include <sys/wait.h>
-#include <unistd.h>
 
 #include "suites.h"
 
 static char tmpdir[256];
 
-static void make_tmp(void)
-{
-    snprintf(tmpdir, sizeof tmpdir, "/tmp/volev-compare-XXXXXX");
-    ck_assert_ptr_nonnull(mkdtemp(tmpdir));
-}
-
-static void remove_tmp(void)
-{
-    char cmd[512];
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", tmpdir);
-    ck_assert_int_eq(system(cmd), 0);
-}
-
 /* Run "ENV volev ARGS" in tmpdir (ENV: variable assignments or ""); stdout and stderr
  * go to out.txt and err.txt; returns the exit code. */
 static int volev_env(const char *env, const char *args)
 {
-    char cmd[8192];
-    snprintf(cmd, sizeof cmd, "cd '%s' && %s '%s' %s >out.txt 2>err.txt", tmpdir, env,
-             vl_test_bin(), args);
-    int rc = system(cmd);
-    ck_assert(rc != -1 && WIFEXITED(rc));
-    return WEXITSTATUS(rc);
+    return vl_test_sh(tmpdir, "%s '%s' %s", env, vl_test_bin(), args);
 }
 
 static int volev(const char *args) { return volev_env("", args); }
-
-static int sh(const char *cmd)
-{
-    char buf[4096];
-    snprintf(buf, sizeof buf, "cd '%s' && %s", tmpdir, cmd);
-    return system(buf);
-}
-
-static int have_gnuplot(void) { return system("command -v gnuplot >/dev/null 2>&1") == 0; }
-
-static char *slurp_n(const char *name, long *size)
-{
-    char path[512];
-    snprintf(path, sizeof path, "%s/%s", tmpdir, name);
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return NULL;
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *buf = malloc((size_t)n + 1);
-    ck_assert_ptr_nonnull(buf);
-    ck_assert_int_eq(fread(buf, 1, (size_t)n, f), (size_t)n);
-    buf[n] = '\0';
-    fclose(f);
-    if (size)
-        *size = n;
-    return buf;
-}
-
-static char *slurp(const char *name) { return slurp_n(name, NULL); }
-
-static int exists(const char *name)
-{
-    char path[512];
-    struct stat sb;
-    snprintf(path, sizeof path, "%s/%s", tmpdir, name);
-    return stat(path, &sb) == 0;
-}
-
-static void assert_contains(const char *file, const char *needle)
-{
-    char *s = slurp(file);
-    ck_assert_ptr_nonnull(s);
-    ck_assert_msg(strstr(s, needle) != NULL, "%s '%s' lacks '%s'", file, s, needle);
-    free(s);
-}
 
 /* Nothing in DIR but the listed names (no temporary files left). */
 static void assert_only(const char *dir, const char *const *names, size_t n)
@@ -156,7 +88,7 @@ typedef struct srow {
 
 static srow *read_summary(const char *file, size_t *n)
 {
-    char *text = slurp(file);
+    char *text = vl_test_slurp(tmpdir, file, NULL);
     ck_assert_ptr_nonnull(text);
     char **l = lines_of(text);
     srow *rows = NULL;
@@ -203,7 +135,7 @@ typedef struct erow {
 
 static erow *read_events(const char *file, size_t *n)
 {
-    char *text = slurp(file);
+    char *text = vl_test_slurp(tmpdir, file, NULL);
     ck_assert_ptr_nonnull(text);
     char **l = lines_of(text);
     erow *rows = calloc(64, sizeof *rows);
@@ -290,12 +222,12 @@ static void assert_close_text(const char *got, double expected)
 
 START_TEST(table_csv_and_figure)
 {
-    make_tmp();
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-compare");
     make_runs();
-    int gp = have_gnuplot();
+    int gp = vl_test_have_gnuplot();
     int rc = volev("compare wet dry -o cmp");
     ck_assert_int_eq(rc, gp ? 0 : 6);
-    char *out = slurp("out.txt");
+    char *out = vl_test_slurp(tmpdir, "out.txt", NULL);
     ck_assert_ptr_nonnull(out);
     /* labels default to the folders' base names */
     ck_assert_ptr_nonnull(strstr(out, "A: wet (wet)"));
@@ -333,14 +265,14 @@ START_TEST(table_csv_and_figure)
     free(out);
 
     if (!gp) { /* gnuplot missing: the command failed and left nothing */
-        ck_assert(!exists("cmp"));
+        ck_assert(!vl_test_exists(tmpdir, "cmp"));
         free(sw), free(sd), free(ew), free(ed);
-        remove_tmp();
+        vl_test_tmp_remove(tmpdir);
         return;
     }
 
     /* compare.csv: every row against the two summary.csv and events.csv files */
-    char *csv = slurp("cmp/compare.csv");
+    char *csv = vl_test_slurp(tmpdir, "cmp/compare.csv", NULL);
     ck_assert_ptr_nonnull(csv);
     char **l = lines_of(csv);
     size_t i = 0;
@@ -391,7 +323,7 @@ START_TEST(table_csv_and_figure)
 
     /* the figure: a PNG (its 8-byte signature), and no temporary file left */
     long size = 0;
-    char *png = slurp_n("cmp/compare.png", &size);
+    char *png = vl_test_slurp(tmpdir, "cmp/compare.png", &size);
     ck_assert_ptr_nonnull(png);
     ck_assert_int_gt(size, 8);
     ck_assert(memcmp(png, "\x89PNG\r\n\x1a\n", 8) == 0);
@@ -400,26 +332,26 @@ START_TEST(table_csv_and_figure)
     assert_only("cmp", names, 2);
 
     free(sw), free(sd), free(ew), free(ed);
-    remove_tmp();
+    vl_test_tmp_remove(tmpdir);
 }
 END_TEST
 
 START_TEST(formats_and_labels)
 {
-    make_tmp();
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-compare");
     make_runs();
-    if (!have_gnuplot()) {
+    if (!vl_test_have_gnuplot()) {
         ck_assert_int_eq(volev("compare wet dry --format pdf -o pdf"), 6);
-        ck_assert(!exists("pdf"));
-        remove_tmp();
+        ck_assert(!vl_test_exists(tmpdir, "pdf"));
+        vl_test_tmp_remove(tmpdir);
         return;
     }
     ck_assert_int_eq(volev("compare wet dry --labels Wet,Dry --format pdf -o pdf"), 0);
-    assert_contains("out.txt", "A: Wet (wet)");
-    assert_contains("out.txt", "B: Dry (dry)");
-    assert_contains("pdf/compare.csv", "# a = Wet: run folder wet");
+    vl_test_file_contains(tmpdir, "out.txt", "A: Wet (wet)");
+    vl_test_file_contains(tmpdir, "out.txt", "B: Dry (dry)");
+    vl_test_file_contains(tmpdir, "pdf/compare.csv", "# a = Wet: run folder wet");
     long size = 0;
-    char *s = slurp_n("pdf/compare.pdf", &size);
+    char *s = vl_test_slurp(tmpdir, "pdf/compare.pdf", &size);
     ck_assert_ptr_nonnull(s);
     ck_assert_int_gt(size, 4);
     ck_assert(memcmp(s, "%PDF", 4) == 0);
@@ -429,21 +361,21 @@ START_TEST(formats_and_labels)
 
     /* a quote and a semicolon in a label reach the figure intact */
     ck_assert_int_eq(volev("compare wet dry --labels \"it's wet;,Dry\" -f svg -o svg"), 0);
-    s = slurp("svg/compare.svg");
+    s = vl_test_slurp(tmpdir, "svg/compare.svg", NULL);
     ck_assert_ptr_nonnull(s);
     ck_assert_ptr_nonnull(strstr(s, "<svg"));
     ck_assert_ptr_nonnull(strstr(s, "it's wet;"));
     free(s);
     static const char *const svg[] = {"compare.csv", "compare.svg"};
     assert_only("svg", svg, 2);
-    remove_tmp();
+    vl_test_tmp_remove(tmpdir);
 }
 END_TEST
 
 /* Line number (1-based) of the first line of FILE starting with prefix. */
 static int line_starting(const char *file, const char *prefix)
 {
-    char *text = slurp(file);
+    char *text = vl_test_slurp(tmpdir, file, NULL);
     ck_assert_ptr_nonnull(text);
     char **l = lines_of(text);
     int found = 0;
@@ -459,7 +391,7 @@ static int line_starting(const char *file, const char *prefix)
 /* Replace line n (1-based) of FILE by text. */
 static void replace_line(const char *file, int n, const char *text)
 {
-    char *old = slurp(file);
+    char *old = vl_test_slurp(tmpdir, file, NULL);
     ck_assert_ptr_nonnull(old);
     char **l = lines_of(old);
     char path[512];
@@ -474,11 +406,14 @@ static void replace_line(const char *file, int n, const char *text)
 }
 
 /* A fresh copy of the wet run as "bad". */
-static void copy_wet(void) { ck_assert_int_eq(sh("rm -rf bad && cp -R wet bad"), 0); }
+static void copy_wet(void)
+{
+    ck_assert_int_eq(vl_test_sh(tmpdir, "rm -rf bad && cp -R wet bad"), 0);
+}
 
 START_TEST(errors_leave_nothing)
 {
-    make_tmp();
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-compare");
     make_runs();
     char want[256];
 
@@ -492,15 +427,15 @@ START_TEST(errors_leave_nothing)
 
     /* a missing folder: I/O error naming it, no output folder made */
     ck_assert_int_eq(volev("compare wet no-such-run -o cmp"), 5);
-    assert_contains("err.txt", "no-such-run");
-    ck_assert(!exists("cmp"));
+    vl_test_file_contains(tmpdir, "err.txt", "no-such-run");
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
 
     /* a folder without events.csv */
     copy_wet();
-    ck_assert_int_eq(sh("rm bad/events.csv"), 0);
+    ck_assert_int_eq(vl_test_sh(tmpdir, "rm bad/events.csv"), 0);
     ck_assert_int_eq(volev("compare wet bad -o cmp"), 5);
-    assert_contains("err.txt", "bad/events.csv");
-    ck_assert(!exists("cmp"));
+    vl_test_file_contains(tmpdir, "err.txt", "bad/events.csv");
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
 
     /* a garbled row of summary.csv: bad input data, named by file and line */
     copy_wet();
@@ -508,9 +443,9 @@ START_TEST(errors_leave_nothing)
     replace_line("bad/summary.csv", n, "final_co2;7.6e-05;bar");
     ck_assert_int_eq(volev("compare wet bad -o cmp"), 3);
     snprintf(want, sizeof want, "bad/summary.csv:%d: malformed row", n);
-    assert_contains("err.txt", want);
-    ck_assert(!exists("cmp"));
-    ck_assert(!exists("cmp/compare.csv"));
+    vl_test_file_contains(tmpdir, "err.txt", want);
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
+    ck_assert(!vl_test_exists(tmpdir, "cmp/compare.csv"));
 
     /* a value that is not a number */
     copy_wet();
@@ -518,8 +453,8 @@ START_TEST(errors_leave_nothing)
     ck_assert_int_eq(volev("compare bad dry -o cmp"), 3);
     snprintf(want, sizeof want, "bad/summary.csv:%d: value '7.6e-0x5' of final_co2 is not a number",
              n);
-    assert_contains("err.txt", want);
-    ck_assert(!exists("cmp"));
+    vl_test_file_contains(tmpdir, "err.txt", want);
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
 
     /* not a run's summary: wrong header */
     copy_wet();
@@ -527,7 +462,7 @@ START_TEST(errors_leave_nothing)
     replace_line("bad/summary.csv", h, "key,number");
     ck_assert_int_eq(volev("compare wet bad"), 3);
     snprintf(want, sizeof want, "bad/summary.csv:%d: not a volev run summary", h);
-    assert_contains("err.txt", want);
+    vl_test_file_contains(tmpdir, "err.txt", want);
 
     /* a garbled event time */
     copy_wet();
@@ -535,13 +470,13 @@ START_TEST(errors_leave_nothing)
     replace_line("bad/events.csv", e, "soon,start,runaway");
     ck_assert_int_eq(volev("compare wet bad"), 3);
     snprintf(want, sizeof want, "bad/events.csv:%d: time_yr 'soon' is not a number", e);
-    assert_contains("err.txt", want);
+    vl_test_file_contains(tmpdir, "err.txt", want);
 
     /* a column the figure needs is missing: named with its file before gnuplot runs;
      * the table alone does not read series.csv */
     copy_wet();
     int hs = line_starting("bad/series.csv", "time_yr,");
-    char *text = slurp("bad/series.csv");
+    char *text = vl_test_slurp(tmpdir, "bad/series.csv", NULL);
     char **sl = lines_of(text);
     char *col = strstr(sl[hs - 1], ",p_o2_bar,");
     ck_assert_ptr_nonnull(col);
@@ -552,20 +487,20 @@ START_TEST(errors_leave_nothing)
     free(text);
     replace_line("bad/series.csv", hs, header);
     ck_assert_int_eq(volev("compare wet bad -o cmp"), 3);
-    assert_contains("err.txt", "bad/series.csv");
-    assert_contains("err.txt", "column 'p_o2_bar'");
-    ck_assert(!exists("cmp"));
+    vl_test_file_contains(tmpdir, "err.txt", "bad/series.csv");
+    vl_test_file_contains(tmpdir, "err.txt", "column 'p_o2_bar'");
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
     ck_assert_int_eq(volev("compare wet bad"), 0);
 
     /* gnuplot missing: exit 6, and neither compare.csv nor temporary files remain (a
      * folder made for the output is removed, an existing one left empty) */
     ck_assert_int_eq(volev_env("PATH=/nonexistent", "compare wet dry -o cmp"), 6);
-    assert_contains("err.txt", "gnuplot");
-    ck_assert(!exists("cmp"));
-    ck_assert_int_eq(sh("mkdir keep"), 0);
+    vl_test_file_contains(tmpdir, "err.txt", "gnuplot");
+    ck_assert(!vl_test_exists(tmpdir, "cmp"));
+    ck_assert_int_eq(vl_test_sh(tmpdir, "mkdir keep"), 0);
     ck_assert_int_eq(volev_env("PATH=/nonexistent", "compare wet dry -o keep"), 6);
     assert_only("keep", NULL, 0);
-    remove_tmp();
+    vl_test_tmp_remove(tmpdir);
 }
 END_TEST
 

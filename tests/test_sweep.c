@@ -8,11 +8,9 @@
 #include <errno.h>
 #include <math.h>
 #include <signal.h>
-#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/stat.h>
 #include <sys/wait.h>
 #include <time.h>
 #include <unistd.h>
@@ -23,82 +21,20 @@
 
 static char tmp[256];
 
-static void setup(void)
-{
-    snprintf(tmp, sizeof tmp, "/tmp/volev-sweep-XXXXXX");
-    ck_assert_ptr_nonnull(mkdtemp(tmp));
-}
-
-static void teardown(void)
-{
-    char cmd[512];
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", tmp);
-    ck_assert_int_eq(system(cmd), 0);
-}
-
-/* Run a shell command built from fmt in tmp, output to out.txt/err.txt; exit status. */
-static int sh(const char *fmt, ...) __attribute__((format(printf, 1, 2)));
-static int sh(const char *fmt, ...)
-{
-    char args[4096], cmd[8192];
-    va_list ap;
-    va_start(ap, fmt);
-    vsnprintf(args, sizeof args, fmt, ap);
-    va_end(ap);
-    snprintf(cmd, sizeof cmd, "cd '%s' && %s >out.txt 2>err.txt", tmp, args);
-    int rc = system(cmd);
-    ck_assert(rc != -1 && WIFEXITED(rc));
-    return WEXITSTATUS(rc);
-}
-
 /* volev sweep tests/data/sweep/NAME.cfg -o DIR ARGS (quiet). */
 static int sweep(const char *name, const char *dir, const char *args)
 {
-    return sh("'%s' sweep '%s/tests/data/sweep/%s.cfg' -o '%s' --quiet %s", vl_test_bin(),
-              vl_test_top(), name, dir, args);
-}
-
-static char *slurp(const char *rel)
-{
-    char path[600];
-    snprintf(path, sizeof path, "%s/%s", tmp, rel);
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return NULL;
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *buf = malloc((size_t)n + 1);
-    ck_assert_ptr_nonnull(buf);
-    ck_assert_int_eq(fread(buf, 1, (size_t)n, f), (size_t)n);
-    buf[n] = '\0';
-    fclose(f);
-    return buf;
-}
-
-static int exists(const char *rel)
-{
-    char path[600];
-    struct stat sb;
-    snprintf(path, sizeof path, "%s/%s", tmp, rel);
-    return stat(path, &sb) == 0;
+    return vl_test_sh(tmp, "'%s' sweep '%s/tests/data/sweep/%s.cfg' -o '%s' --quiet %s",
+                      vl_test_bin(), vl_test_top(), name, dir, args);
 }
 
 static void assert_same(const char *a, const char *b)
 {
-    char *x = slurp(a), *y = slurp(b);
+    char *x = vl_test_slurp(tmp, a, NULL), *y = vl_test_slurp(tmp, b, NULL);
     ck_assert_msg(x && y, "missing %s or %s", a, b);
     ck_assert_msg(strcmp(x, y) == 0, "%s and %s differ", a, b);
     free(x);
     free(y);
-}
-
-static void assert_err(const char *needle)
-{
-    char *e = slurp("err.txt");
-    ck_assert_ptr_nonnull(e);
-    ck_assert_msg(strstr(e, needle) != NULL, "stderr '%s' lacks '%s'", e, needle);
-    free(e);
 }
 
 /* The data rows of a CSV (lines not starting with '#', header excluded): count, and
@@ -176,10 +112,11 @@ static int col(const char *text, const char *name)
 
 START_TEST(grid_files)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("grid", "g", "-j 2"), 0);
-    char *m = slurp("g/members.csv"), *s = slurp("g/ensemble_summary.csv"),
-         *t = slurp("g/ensemble_series.csv");
+    char *m = vl_test_slurp(tmp, "g/members.csv", NULL),
+         *s = vl_test_slurp(tmp, "g/ensemble_summary.csv", NULL),
+         *t = vl_test_slurp(tmp, "g/ensemble_series.csv", NULL);
     ck_assert(m && s && t);
     /* tests/data/sweep/grid.cfg: 3 log-spaced water values x 2 orbits, last axis fastest */
     ck_assert_int_eq(rows(m), 6);
@@ -228,19 +165,19 @@ START_TEST(grid_files)
     ck_assert_rel(num(t, 63, 0), 3e8, 1e-9);
     /* a second call with the same settings finds the sweep finished */
     ck_assert_int_eq(sweep("grid", "g", ""), 0);
-    char *o = slurp("out.txt");
+    char *o = vl_test_slurp(tmp, "out.txt", NULL);
     ck_assert_ptr_nonnull(strstr(o, "already complete"));
     free(o);
     free(m);
     free(s);
     free(t);
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 START_TEST(threads_and_ranks_agree)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("resume", "one", "-j 1"), 0);
     ck_assert_int_eq(sweep("resume", "two", "-j 2"), 0);
     static const char *const files[] = {"members.csv", "ensemble_summary.csv",
@@ -260,12 +197,13 @@ START_TEST(threads_and_ranks_agree)
                       "check builds build-mpi/volev, or set VOLEV_NO_MPI=1 to skip this check "
                       "knowingly");
     } else {
-        int rc = sh("OMPI_ALLOW_RUN_AS_ROOT=1 OMPI_ALLOW_RUN_AS_ROOT_CONFIRM=1 mpirun "
-                    "--oversubscribe -n 2 '%s' sweep '%s/tests/data/sweep/resume.cfg' -o mpi "
-                    "-j 1 --quiet",
-                    mpi, vl_test_top());
+        int rc = vl_test_sh(tmp,
+                            "OMPI_ALLOW_RUN_AS_ROOT=1 OMPI_ALLOW_RUN_AS_ROOT_CONFIRM=1 mpirun "
+                            "--oversubscribe -n 2 '%s' sweep '%s/tests/data/sweep/resume.cfg' "
+                            "-o mpi -j 1 --quiet",
+                            mpi, vl_test_top());
         if (rc != 0) {
-            char *e = slurp("err.txt");
+            char *e = vl_test_slurp(tmp, "err.txt", NULL);
             ck_abort_msg("mpirun failed (%d): %s", rc, e ? e : "");
         }
         for (int k = 0; k < 3; k++) {
@@ -274,14 +212,14 @@ START_TEST(threads_and_ranks_agree)
             assert_same(a, b);
         }
     }
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 /* Lines in a file (0 if missing). */
 static int count_lines(const char *rel)
 {
-    char *t = slurp(rel);
+    char *t = vl_test_slurp(tmp, rel, NULL);
     if (!t)
         return 0;
     int n = 0;
@@ -323,7 +261,7 @@ static void wait_for_members(const char *dir, int n)
 
 START_TEST(kill_and_resume)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("resume", "ref", "-j 1"), 0);
     /* SIGKILL mid-way: no final files; the rerun completes and matches */
     pid_t pid = start_sweep("killed");
@@ -332,17 +270,17 @@ START_TEST(kill_and_resume)
     int status;
     ck_assert_int_eq(waitpid(pid, &status, 0), pid);
     ck_assert(WIFSIGNALED(status));
-    ck_assert(!exists("killed/members.csv"));
-    ck_assert(exists("killed/sweep.journal"));
+    ck_assert(!vl_test_exists(tmp, "killed/members.csv"));
+    ck_assert(vl_test_exists(tmp, "killed/sweep.journal"));
     int before = count_lines("killed/sweep.journal") - 1;
     ck_assert_msg(before < 48, "the sweep finished before it was killed");
     ck_assert_int_eq(sweep("resume", "killed", "-j 2"), 0);
     assert_same("ref/members.csv", "killed/members.csv");
     assert_same("ref/ensemble_summary.csv", "killed/ensemble_summary.csv");
     assert_same("ref/ensemble_series.csv", "killed/ensemble_series.csv");
-    ck_assert(!exists("killed/sweep.journal"));
+    ck_assert(!vl_test_exists(tmp, "killed/sweep.journal"));
     /* only the missing members ran the second time */
-    char *o = slurp("out.txt");
+    char *o = vl_test_slurp(tmp, "out.txt", NULL);
     char want[64];
     snprintf(want, sizeof want, "(%d run now", 48 - before);
     ck_assert_msg(strstr(o, want) != NULL, "'%s' lacks '%s'", o, want);
@@ -354,7 +292,7 @@ START_TEST(kill_and_resume)
     ck_assert_int_eq(waitpid(pid, &status, 0), pid);
     ck_assert(WIFEXITED(status));
     ck_assert_int_eq(WEXITSTATUS(status), 128 + SIGTERM);
-    ck_assert(!exists("termed/members.csv"));
+    ck_assert(!vl_test_exists(tmp, "termed/members.csv"));
     ck_assert_int_eq(sweep("resume", "termed", ""), 0);
     assert_same("ref/members.csv", "termed/members.csv");
     /* a journal cut in the middle of a line (power cut): the partial line is dropped */
@@ -362,18 +300,19 @@ START_TEST(kill_and_resume)
     wait_for_members("cut", 3);
     kill(pid, SIGKILL);
     waitpid(pid, &status, 0);
-    ck_assert_int_eq(sh("printf '17\\t0\\t1' >> cut/sweep.journal"), 0);
+    ck_assert_int_eq(vl_test_sh(tmp, "printf '17\\t0\\t1' >> cut/sweep.journal"), 0);
     ck_assert_int_eq(sweep("resume", "cut", ""), 0);
     assert_same("ref/members.csv", "cut/members.csv");
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 START_TEST(saltelli_layout_and_indices)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("saltelli", "s", ""), 0);
-    char *m = slurp("s/members.csv"), *x = slurp("s/sensitivity.csv");
+    char *m = vl_test_slurp(tmp, "s/members.csv", NULL),
+         *x = vl_test_slurp(tmp, "s/sensitivity.csv", NULL);
     ck_assert(m && x);
     /* tests/data/sweep/saltelli.cfg: 8 base samples, k = 2: 8 (2 + 2) = 32 members */
     ck_assert_int_eq(rows(m), 32);
@@ -400,15 +339,15 @@ START_TEST(saltelli_layout_and_indices)
     assert_same("s/sensitivity.csv", "s2/sensitivity.csv");
     free(m);
     free(x);
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 START_TEST(sampled_values)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("sampled", "r", ""), 0);
-    char *m = slurp("r/members.csv");
+    char *m = vl_test_slurp(tmp, "r/members.csv", NULL);
     ck_assert_ptr_nonnull(m);
     ck_assert_int_eq(rows(m), 12);
     /* the members' values are the library's design for the scenario's axes and seed */
@@ -432,15 +371,15 @@ START_TEST(sampled_values)
     for (int r = 0; r < 12; r++)
         ck_assert(num(m, r, 3) >= 0.5 && num(m, r, 3) <= 1.5);
     free(m);
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 START_TEST(catalogue_wet_and_dry)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     ck_assert_int_eq(sweep("catalogue", "c", ""), 0);
-    char *m = slurp("c/members.csv");
+    char *m = vl_test_slurp(tmp, "c/members.csv", NULL);
     ck_assert_ptr_nonnull(m);
     /* tests/data/sweep/candidates.csv: 3 candidates x water_to = [1, 1e-4] */
     ck_assert_int_eq(rows(m), 6);
@@ -457,13 +396,13 @@ START_TEST(catalogue_wet_and_dry)
     }
     ck_assert(num(m, 5, cw) <= num(m, 4, cw));
     free(m);
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 START_TEST(failing_member_recorded)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     /* a grid whose last water value (-1 TO) is out of bounds: that member fails alone */
     char text[2048];
     snprintf(text, sizeof text,
@@ -474,44 +413,38 @@ START_TEST(failing_member_recorded)
              "run: { start_yr = 4.0e9; end_yr = 4.01e9; log_points = 5; linear_points = 5; };\n"
              "sweep: { design = \"grid\"; axes = ( { key = \"inventory.surface_water_to\"; "
              "spacing = \"linear\"; from = 1.0; to = -1.0; points = 3; } ); };\n");
-    char path[600];
-    snprintf(path, sizeof path, "%s/bad.cfg", tmp);
-    FILE *f = fopen(path, "w");
-    ck_assert_ptr_nonnull(f);
-    fputs(text, f);
-    fclose(f);
-    ck_assert_int_eq(sh("'%s' sweep bad.cfg -o b --quiet", vl_test_bin()), 0);
-    char *m = slurp("b/members.csv");
+    vl_test_write(tmp, "bad.cfg", text);
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' sweep bad.cfg -o b --quiet", vl_test_bin()), 0);
+    char *m = vl_test_slurp(tmp, "b/members.csv", NULL);
     ck_assert_ptr_nonnull(m);
     ck_assert_int_eq(rows(m), 3);
     ck_assert_ptr_nonnull(strstr(m, "\n0,1,ok,"));
     ck_assert_ptr_nonnull(strstr(m, "\n2,-1,failed,failed,"));
     ck_assert_ptr_nonnull(strstr(m, "out of bounds"));
     free(m);
-    teardown();
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 
 /* A scenario with the given sweep group; returns the exit status of sweeping it. */
 static int sweep_text(const char *group)
 {
-    char path[600];
-    snprintf(path, sizeof path, "%s/s.cfg", tmp);
-    FILE *f = fopen(path, "w");
-    ck_assert_ptr_nonnull(f);
-    fprintf(f, "planet: { mass_mearth = 1.0; radius_rearth = 1.0; orbit_au = 1.0; };\n"
-               "inventory: { surface_water_to = 1.0; n2_bar = 0.78; co2_bar = 3e-4; "
-               "mantle_co2_bar = 100.0; };\n"
-               "climate: { model = \"hz_fit\"; };\n"
-               "run: { start_yr = 4.0e9; end_yr = 4.01e9; };\n%s\n",
-            group);
-    fclose(f);
-    return sh("'%s' sweep s.cfg -o o --quiet", vl_test_bin());
+    char text[2048];
+    int len = snprintf(text, sizeof text,
+                       "planet: { mass_mearth = 1.0; radius_rearth = 1.0; orbit_au = 1.0; };\n"
+                       "inventory: { surface_water_to = 1.0; n2_bar = 0.78; co2_bar = 3e-4; "
+                       "mantle_co2_bar = 100.0; };\n"
+                       "climate: { model = \"hz_fit\"; };\n"
+                       "run: { start_yr = 4.0e9; end_yr = 4.01e9; };\n%s\n",
+                       group);
+    ck_assert(len >= 0 && (size_t)len < sizeof text);
+    vl_test_write(tmp, "s.cfg", text);
+    return vl_test_sh(tmp, "'%s' sweep s.cfg -o o --quiet", vl_test_bin());
 }
 
 START_TEST(bad_settings)
 {
-    setup();
+    vl_test_tmp_make(tmp, sizeof tmp, "volev-sweep");
     struct {
         const char *group, *needle;
     } bad[] = {
@@ -546,23 +479,24 @@ START_TEST(bad_settings)
     for (size_t k = 0; k < sizeof bad / sizeof bad[0]; k++) {
         int rc = sweep_text(bad[k].group);
         ck_assert_msg(rc == VL_ERR_INPUT || rc == VL_ERR_IO, "case %zu: exit %d", k, rc);
-        assert_err(bad[k].needle);
-        ck_assert_msg(!exists("o/members.csv") && !exists("o/sweep.journal"),
+        vl_test_file_contains(tmp, "err.txt", bad[k].needle);
+        ck_assert_msg(!vl_test_exists(tmp, "o/members.csv") &&
+                          !vl_test_exists(tmp, "o/sweep.journal"),
                       "case %zu left output", k);
     }
     /* a folder holding another sweep's results is not overwritten */
     ck_assert_int_eq(sweep("sampled", "o", ""), 0);
     ck_assert_int_eq(sweep("saltelli", "o", ""), VL_ERR_IO);
-    assert_err("another sweep");
+    vl_test_file_contains(tmp, "err.txt", "another sweep");
     /* command line */
-    ck_assert_int_eq(sh("'%s' sweep", vl_test_bin()), VL_ERR_USAGE);
-    ck_assert_int_eq(sh("'%s' sweep s.cfg -j 0", vl_test_bin()), VL_ERR_USAGE);
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' sweep", vl_test_bin()), VL_ERR_USAGE);
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' sweep s.cfg -j 0", vl_test_bin()), VL_ERR_USAGE);
     /* volev run runs the base scenario of a sweep scenario, and says so */
-    ck_assert_int_eq(sh("'%s' run '%s/tests/data/sweep/sampled.cfg' -o base", vl_test_bin(),
-                        vl_test_top()),
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' run '%s/tests/data/sweep/sampled.cfg' -o base",
+                                vl_test_bin(), vl_test_top()),
                      0);
-    assert_err("volev sweep");
-    teardown();
+    vl_test_file_contains(tmp, "err.txt", "volev sweep");
+    vl_test_tmp_remove(tmp);
 }
 END_TEST
 

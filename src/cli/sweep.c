@@ -291,6 +291,39 @@ static void header_lines(const sweep_ctx *c, FILE *f)
             c->sw->catalogue_mode ? "catalogue" : names[c->sw->design], c->sw->members);
 }
 
+/* "# axis KEY grid SPACING FROM TO POINTS" or "# axis KEY DISTRIBUTION P1 P2": how each
+ * axis varied (the figures read it: docs/figures.md). */
+static void axis_lines(const vl_sweep *sw, FILE *f)
+{
+    static const char *const spacing[] = {"linear", "log"};
+    static const char *const dist[] = {"uniform", "log_uniform", "normal", "truncated_normal"};
+    for (size_t a = 0; a < sw->k; a++) {
+        const vl_axis *x = &sw->axes[a];
+        if (sw->design == VL_DESIGN_GRID)
+            fprintf(f, "# axis %s grid %s %.17g %.17g %ld\n", x->key, spacing[x->spacing], x->from,
+                    x->to, x->points);
+        else if (x->dist == VL_DIST_NORMAL)
+            fprintf(f, "# axis %s normal %.17g %.17g\n", x->key, x->mean, x->sd);
+        else if (x->dist == VL_DIST_TRUNC_NORMAL)
+            fprintf(f, "# axis %s truncated_normal %.17g %.17g %.17g %.17g\n", x->key, x->mean,
+                    x->sd, x->low, x->high);
+        else
+            fprintf(f, "# axis %s %s %.17g %.17g\n", x->key, dist[x->dist], x->low, x->high);
+    }
+}
+
+/* The base scenario, resolved (every parameter), as DIR/scenario.resolved.cfg: what the
+ * members share; the figures read the star and planet from it. */
+static int write_base(const sweep_ctx *c, outfile *o, vl_status *st)
+{
+    vl_scenario *base = vl_scenario_load(c->sw->path, NULL, 0, st);
+    if (!base)
+        return st->code;
+    int rc = vl_scenario_write_resolved(base, o->f, st);
+    vl_scenario_free(base);
+    return rc;
+}
+
 static int cmp_double(const void *a, const void *b)
 {
     double x = *(const double *)a, y = *(const double *)b;
@@ -409,9 +442,10 @@ static int write_sensitivity(const sweep_ctx *c, FILE *f, vl_status *st)
 
 static int write_outputs(sweep_ctx *c, vl_status *st)
 {
-    enum { F_MEMBERS, F_SUMMARY, F_SERIES, F_SENS, NF };
-    static const char *const names[NF] = {"members.csv", "ensemble_summary.csv",
-                                          "ensemble_series.csv", "sensitivity.csv"};
+    enum { F_MEMBERS, F_BASE, F_SUMMARY, F_SERIES, F_SENS, NF };
+    static const char *const names[NF] = {"members.csv", "scenario.resolved.cfg",
+                                          "ensemble_summary.csv", "ensemble_series.csv",
+                                          "sensitivity.csv"};
     outfile o[NF];
     memset(o, 0, sizeof o);
     int nf = c->sw->design == VL_DESIGN_SALTELLI && !c->sw->catalogue_mode ? NF : NF - 1;
@@ -424,6 +458,7 @@ static int write_outputs(sweep_ctx *c, vl_status *st)
         header_lines(c, f);
         fprintf(f, "# one row per member: its overrides, outcome class and outcomes (empty: "
                    "undefined); rerun one with volev run %s --set KEY=VALUE ...\n", c->sw->path);
+        axis_lines(c->sw, f);
         char *h = vl_sweep_header(c->sw);
         if (!h)
             rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
@@ -441,6 +476,8 @@ static int write_outputs(sweep_ctx *c, vl_status *st)
             free(row);
         }
     }
+    if (rc == VL_OK)
+        rc = write_base(c, &o[F_BASE], st);
     if (rc == VL_OK) {
         write_summary(c, o[F_SUMMARY].f, buf);
         write_series(c, o[F_SERIES].f, buf);
