@@ -1,346 +1,473 @@
-# history.gp -- four-panel evolution figure for a volev run (gnuplot >= 5.4).
+# history.gp -- evolution of one volev run in five panels (gnuplot >= 5.4).
 #
-# Variables (pass with -e "name='value'; ..."):
-#   datafile   series.csv of the run (required)
-#   outfile    figure to write (required)
-#   fmt        png | pdf | svg (default png)
-#   title      figure title (optional; default: the run folder of datafile)
-#   eventfile  events.csv of the run (optional; events drawn as dotted lines)
-#   datafile2  series.csv of a second run, overlaid dashed (optional)
-#   label1, label2  names of the two runs in the overlay legend (optional)
-# Example:
-#   gnuplot -e "datafile='out/series.csv'; outfile='out/history.png'; fmt='png'" plots/history.gp
+#   gnuplot -c plots/history.gp SERIES.csv OUT.png|pdf|svg [EVENTS.csv] [TITLE]
 #
-# Panels, sharing a logarithmic time axis in years:
-#   (a) surface water inventory (TO), (b) partial pressures (bar),
-#   (c) surface temperature (K) with the climate regime as a strip,
-#   (d) H and O escape rates (kg/s) with the XUV flux on the right axis.
-# Zero or non-positive values are left out of the logarithmic panels, and every
-# axis range is computed here, so all-zero columns never stop the plot.
+#   SERIES.csv  series.csv of the run (required)
+#   OUT         the figure; its extension picks the format (required)
+#   EVENTS.csv  events.csv of the run: each event is a dotted vertical line
+#               (optional; an empty string means none)
+#   TITLE       figure title (optional; default "volev run " and the folder of SERIES.csv)
+#
+# Panels, sharing a logarithmic stellar-age axis:
+#   (a) surface water (TO)
+#   (b) partial pressures of H2O, CO2, N2, O2 and H2 (bar), one colour per species
+#   (c) surface temperature (K) over a strip coloured by climate regime
+#   (d) escape fluxes (kg/s of the element): the element totals thick and solid, every
+#       escape channel of one element in the element's colour with the channel's dash;
+#       channels that stay zero are left out of the plot and of the legend
+#   (e) stellar luminosity (L_sun) and the XUV flux at the planet (W m^-2, right axis)
+# Columns are looked up by header name. A missing required column, an unreadable file
+# or a file without data rows stops the script with status 1 before anything is drawn;
+# a wrong command line stops it with status 2. Every axis range is computed here from
+# the data, and zero or negative values are left out of the logarithmic panels, so
+# all-zero columns never break an axis.
 
-if (!exists("datafile") || strlen(datafile) == 0) {
-    print "history.gp: set datafile='DIR/series.csv'"
-    exit status 2
+vl_script = "history.gp"
+vl_dir = system(sprintf("dirname '%s'", ARG0)) . "/"
+# arguments past ARGC are not defined
+hs_arg(i) = (ARGC >= i) ? ARGV[i] : ""
+hs_data = hs_arg(1)
+vl_out = hs_arg(2)
+hs_events = hs_arg(3)
+hs_title = hs_arg(4)
+vl_usage = (strlen(hs_data) == 0 || strlen(vl_out) == 0 || ARGC > 4)
+if (vl_usage) { vl_out = "usage.png" }
+load vl_dir . "style.gp"
+if (vl_usage) {
+    vl_msg = "usage: gnuplot -c history.gp SERIES.csv OUT.png|pdf|svg [EVENTS.csv] [TITLE]"
+    eval VL_FAIL
 }
-if (!exists("outfile") || strlen(outfile) == 0) {
-    print "history.gp: set outfile='FIGURE'"
-    exit status 2
-}
-if (!exists("fmt") || strlen(fmt) == 0) { fmt = "png" }
-use2 = exists("datafile2") ? (strlen(datafile2) > 0) : 0
-nrun = use2 ? 2 : 1
-if (!exists("label1")) { label1 = datafile }
-if (!exists("label2")) { label2 = use2 ? datafile2 : "" }
-figtitle = exists("title") ? title : ""
-if (strlen(figtitle) == 0) {
-    # default: the run folder, i.e. datafile without a trailing "/series.csv"
-    figtitle = datafile
-    n_sfx = strlen("/series.csv")
-    if (strlen(datafile) > n_sfx && datafile[strlen(datafile) - n_sfx + 1:] eq "/series.csv") {
-        figtitle = "volev run " . datafile[1:strlen(datafile) - n_sfx]
+vl_w = 9.0; vl_h = 12.5
+
+# data problems (as opposed to usage): status 1
+HS_DIE = 'print sprintf("%s: %s", vl_script, vl_msg); exit status 1'
+
+# ------------------------------------------------------------------ file checks
+# a file name as one single-quoted shell word
+hs_sqesc(s) = (strstrt(s, "'") == 0) ? s : \
+    s[1:strstrt(s, "'") - 1] . "'\\''" . hs_sqesc(s[strstrt(s, "'") + 1:])
+hs_sh(s) = "'" . hs_sqesc(s) . "'"
+hs_readable(f) = int(system(sprintf("test -r %s && test -f %s && echo 1 || echo 0", hs_sh(f), hs_sh(f))))
+# header names (space separated) and number of data rows of a CSV file
+hs_header(f) = system(sprintf("sed -n '/^#/!{p;q;}' %s | tr ',' ' '", hs_sh(f)))
+hs_rows(f) = int(system(sprintf("grep -v '^#' %s | wc -l", hs_sh(f)))) - 1
+hs_has(hdr, name) = strstrt(" " . hdr . " ", " " . name . " ") > 0
+# last position of character c in s (0 if none)
+hs_rpos(s, c, i) = (i < 1) ? 0 : (s[i:i] eq c ? i : hs_rpos(s, c, i - 1))
+
+if (!hs_readable(hs_data)) { vl_msg = sprintf("cannot read '%s'", hs_data); eval HS_DIE }
+hs_hdr = hs_header(hs_data)
+hs_nrows = hs_rows(hs_data)
+if (hs_nrows < 1) { vl_msg = sprintf("no data rows in '%s'", hs_data); eval HS_DIE }
+# curves: lines, or points when there is a single row
+HS_W = (hs_nrows > 1) ? "lines" : "linespoints pt 7 ps 0.8"
+hs_required = "time_yr regime surface_temp_k surface_water_to " . \
+    "p_h2o_bar p_co2_bar p_n2_bar p_o2_bar p_h2_bar " . \
+    "h_escape_kg_s o_escape_kg_s c_escape_kg_s n_escape_kg_s luminosity_lsun f_xuv_w_m2"
+do for [k = 1:words(hs_required)] {
+    if (!hs_has(hs_hdr, word(hs_required, k))) {
+        vl_msg = sprintf("'%s' has no column '%s'", hs_data, word(hs_required, k))
+        eval HS_DIE
     }
 }
-
-if (fmt eq "png") {
-    set terminal pngcairo size 1000,1200 enhanced font "sans,11" linewidth 1
-} else {
-    if (fmt eq "pdf") {
-        set terminal pdfcairo size 8in,9.6in enhanced font "sans,9" linewidth 1
-    } else {
-        if (fmt eq "svg") {
-            set terminal svg size 1000,1200 dynamic enhanced font "sans,11" linewidth 1 background "white"
-        } else {
-            print sprintf("history.gp: unknown fmt '%s' (png, pdf or svg)", fmt)
-            exit status 2
-        }
+hs_nev = 0
+if (strlen(hs_events) > 0) {
+    if (!hs_readable(hs_events)) { vl_msg = sprintf("cannot read '%s'", hs_events); eval HS_DIE }
+    if (!hs_has(hs_header(hs_events), "time_yr")) {
+        vl_msg = sprintf("'%s' has no column 'time_yr'", hs_events)
+        eval HS_DIE
     }
+    hs_nev = hs_rows(hs_events)
 }
 
-set datafile separator comma
-set datafile commentschars "#"
-set datafile columnheaders
-
-runfile(r) = (r == 1) ? datafile : datafile2
-runlabel(r) = (r == 1) ? label1 : label2
-
-# data rows of a CSV file: lines that are not comments, minus the header
-datarows(f) = system(sprintf("cat '%s' 2>/dev/null | grep -vc '^#'", f)) - 1
-
-# ---------------------------------------------------------------- data scan
-do for [r = 1:nrun] {
-    if (datarows(runfile(r)) < 1) {
-        print sprintf("history.gp: no data rows in '%s'", runfile(r))
-        exit status 1
-    }
+if (strlen(hs_title) == 0) {
+    hs_slash = hs_rpos(hs_data, "/", strlen(hs_data))
+    hs_title = "volev run " . ((hs_slash == 0) ? "." : (hs_slash == 1) ? "/" : hs_data[1:hs_slash - 1])
 }
-# SCAN: for column name SC over all runs, sets pmax (largest value, or 0),
-# pmin (smallest value > 0, only meaningful when pmax > 0) and run1max.
-SCAN = 'pmax = 0.0; pmin = 1e300; run1max = 0.0; \
-do for [r = 1:nrun] { \
-    stats runfile(r) using (column(SC)) nooutput; \
-    m = STATS_max; \
-    if (r == 1) { run1max = m }; \
-    if (m > pmax) { pmax = m }; \
-    if (m > 0) { \
-        stats runfile(r) using (v = column(SC), v > 0 ? v : m) nooutput; \
-        if (STATS_min < pmin) { pmin = STATS_min } \
-    } \
-}'
 
-# Nice decade bounds for a log axis showing at most `dec` decades below the maximum.
-decfloor(mn, mx, dec) = 10.0**floor(log10(mn > mx * 10.0**(-dec) ? mn : mx * 10.0**(-dec)) - 0.02)
-decceil(mx) = 10.0**ceil(log10(mx) + 0.02)
+eval VL_BASE
 
-# Time axis: positive times only (the first row is usually t = 0).
+# ------------------------------------------------------------------ data scan
+# SCAN: column SC times factor SF (default 1): smax (largest value, or 0 if none is
+# positive) and smin (smallest positive value, meaningful when smax > 0).
+SF = 1.0
+SCAN = 'stats hs_data using (column(SC) * SF) nooutput; \
+    smax = STATS_max; smin = 1e300; \
+    if (smax > 0) { \
+        stats hs_data using (hs_v = column(SC) * SF, hs_v > 0 ? hs_v : 1/0) nooutput; \
+        smin = STATS_min \
+    } else { smax = 0.0 }'
+
+# positive values only, for logarithmic axes
+pos(v) = (v > 0) ? v : 1/0
+
+# stellar age: positive values (a run may start at t = 0)
 SC = "time_yr"; eval SCAN
-if (pmax > 0) {
-    tmin = pmin; tmax = pmax
+if (smax > 0) {
+    tmin = smin; tmax = smax
     if (tmax <= tmin * 1.0001) { tmin = tmin / 10.0; tmax = tmax * 10.0 }
 } else {
     tmin = 1.0; tmax = 10.0
 }
-# first box of the regime strip starts at the left edge instead of t = 0
 tclamp(t) = (t > tmin) ? t : tmin
-# boxes of the strip overlap by ~1 pixel so anti-aliasing leaves no seams
+# boxes of the regime strip overlap by about a pixel so anti-aliasing leaves no seams
 tover = (tmax / tmin)**0.002
 
 # (a) surface water
 SC = "surface_water_to"; eval SCAN
-wat_on = (pmax > 0)
-if (wat_on) { wat_lo = decfloor(pmin, pmax, 8); wat_hi = decceil(pmax) }
+wat_on = (smax > 0)
+if (wat_on) { wat_lo = decfloor(smin, smax, 8); wat_hi = decceil(smax) }
 
-# (b) partial pressures: one fixed colour per species (Okabe-Ito)
+# (b) partial pressures, one colour per species
 sp_cols  = "p_h2o_bar p_co2_bar p_n2_bar p_o2_bar p_h2_bar"
 sp_names = "H_2O CO_2 N_2 O_2 H_2"
-sp_rgb   = "#0072B2 #D55E00 #009E73 #56B4E9 #CC79A7"
-sp_on = ""
-sp_titled = ""
+sp_rgb   = c_h2o . " " . c_co2 . " " . c_n2 . " " . c_o2 . " " . c_h2
+sp_max = ""
 p_lo = 1e300; p_hi = 0.0
 do for [k = 1:words(sp_cols)] {
     SC = word(sp_cols, k); eval SCAN
-    if (pmax > 0) {
+    sp_max = sp_max . sprintf(" %.6e", smax)
+    if (smax > 0) {
+        if (smin < p_lo) { p_lo = smin }
+        if (smax > p_hi) { p_hi = smax }
+    }
+}
+if (p_hi > 0) { pr_lo = decfloor(p_lo, p_hi, 10); pr_hi = decceil(p_hi) } else { pr_lo = 1e300 }
+# species drawn: those that reach the axis; those that stay below it are named in
+# the legend
+sp_on = ""; sp_low = ""
+do for [k = 1:words(sp_cols)] {
+    if (word(sp_max, k) + 0.0 >= pr_lo) {
         sp_on = sp_on . sprintf(" %d", k)
-        if (pmin < p_lo) { p_lo = pmin }
-        if (pmax > p_hi) { p_hi = pmax }
-        # legend entry from run 1, or from run 2 when run 1 never has the gas
-        sp_titled = sp_titled . sprintf(" %d", (run1max > 0) ? 1 : 2)
+    } else {
+        if (word(sp_max, k) + 0.0 > 0) {
+            sp_low = sp_low . (strlen(sp_low) > 0 ? ", " : "") . word(sp_names, k)
+        }
     }
 }
 np = words(sp_on)
-if (np > 0) { pr_lo = decfloor(p_lo, p_hi, 10); pr_hi = decceil(p_hi) }
+sp_low_note = (strlen(sp_low) > 0) ? sprintf("%s: below 10^{%d} bar", sp_low, int(floor(log10(pr_lo) + 0.5))) : ""
 
-# (c) surface temperature (linear axis)
-T_lo = 1e300; T_hi = -1e300
-do for [r = 1:nrun] {
-    stats runfile(r) using (column("surface_temp_k")) nooutput
-    if (STATS_min < T_lo) { T_lo = STATS_min }
-    if (STATS_max > T_hi) { T_hi = STATS_max }
-}
+# (c) surface temperature (linear axis) and the regimes that occur
+stats hs_data using (column("surface_temp_k")) nooutput
+T_lo = STATS_min; T_hi = STATS_max
 if (T_hi - T_lo < 20.0) { T_mid = 0.5 * (T_hi + T_lo); T_lo = T_mid - 10.0; T_hi = T_mid + 10.0 }
-# the regime strip(s) use the bottom of the panel; the curve stays above them
-strip_h = 0.06; strip_gap = 0.01
-curve_base = nrun * (strip_h + strip_gap) + 0.05
+# the regime strip takes the bottom of the panel (y2 in [0, strip_h]); the curve
+# stays above it
+strip_h = 0.07
+curve_base = strip_h + 0.06
 T_span = T_hi - T_lo
 T_ax_lo = T_lo - T_span * curve_base / (0.95 - curve_base)
 T_ax_hi = T_hi + T_span * 0.05 / (0.95 - curve_base)
-strip_lo(r) = (r - 1) * (strip_h + strip_gap)
-strip_hi(r) = strip_lo(r) + strip_h
-reg_names = 'dry frozen temperate "moist greenhouse" runaway'
-reg_rgb   = "#E69F00 #56B4E9 #009E73 #F0E442 #D55E00"
-regcol(x) = (x == 0) ? 0xE69F00 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
-            (x == 3) ? 0xF0E442 : (x == 4) ? 0xD55E00 : 0x999999
+reg_on = ""
+do for [k = 0:4] {
+    stats hs_data using (column("regime") == k ? 1 : 0) nooutput
+    if (STATS_sum > 0) { reg_on = reg_on . sprintf(" %d", k + 1) }
+}
 
-# (d) escape rates and XUV flux
-esc_cols  = "h_escape_kg_s o_escape_kg_s"
-esc_names = '"H escape" "O escape"'
-esc_rgb   = "#CC79A7 #56B4E9"
-esc_on = ""
-esc_titled = ""
-e_lo = 1e300; e_hi = 0.0
-do for [k = 1:words(esc_cols)] {
-    SC = word(esc_cols, k); eval SCAN
-    if (pmax > 0) {
-        esc_on = esc_on . sprintf(" %d", k)
-        if (pmin < e_lo) { e_lo = pmin }
-        if (pmax > e_hi) { e_hi = pmax }
-        esc_titled = esc_titled . sprintf(" %d", (run1max > 0) ? 1 : 2)
+# (d) escape. Element k of "h o c n": colour word(el_rgb, k), total column
+# word(tot_cols, k). Channels: legend label ch_lab[i], dash type 10 + i.
+el_keys  = "h o c n"
+el_names = "H O C N"
+el_rgb   = c_el_h . " " . c_el_o . " " . c_el_c . " " . c_el_n
+tot_cols = "h_escape_kg_s o_escape_kg_s c_escape_kg_s n_escape_kg_s"
+ch_keys  = "h2 h2o o2drag jeans pickup sputter photochem polar"
+ch_lab   = '"thermal, from H_2" "thermal, from H_2O" "O drag (from O_2)" ' . \
+           '"Jeans" "ion pickup" "sputtering" "photochemical" "polar outflow"'
+# columns that do not follow <channel>_<element>_kg_s: column, element, channel,
+# factor to kg/s of the element (photolysis_h2o_kg_s is water: 2 M_H / M_H2O is H)
+ex_cols = "h_escape_h2_kg_s photolysis_h2o_kg_s photolysis_o_dragged_kg_s o_drag_kg_s"
+ex_el   = "1 1 2 2"
+ex_ch   = "1 2 2 3"
+ex_fac  = sprintf("1 %.9g 1 1", 2.0 * 1.00794 / 18.01528)
+# index of word w in list (0 if absent)
+windex(list, w, i) = (i > words(list)) ? 0 : (word(list, i) eq w ? i : windex(list, w, i + 1))
+# candidates: e_cols, e_el, e_ch, e_fac (parallel lists)
+e_cols = ""; e_el = ""; e_ch = ""; e_fac = ""
+do for [k = 1:words(ex_cols)] {
+    if (hs_has(hs_hdr, word(ex_cols, k))) {
+        e_cols = e_cols . " " . word(ex_cols, k)
+        e_el = e_el . " " . word(ex_el, k)
+        e_ch = e_ch . " " . word(ex_ch, k)
+        e_fac = e_fac . " " . word(ex_fac, k)
     }
 }
-ne = words(esc_on)
-if (ne > 0) { es_lo = decfloor(e_lo, e_hi, 8); es_hi = decceil(e_hi) }
-SC = "f_xuv_w_m2"; eval SCAN
-xuv_on = (pmax > 0); xuv_run1 = (run1max > 0)
-if (xuv_on) { xuv_lo = decfloor(pmin, pmax, 6); xuv_hi = decceil(pmax) }
-
-# events (optional): times of the rows of eventfile, drawn as dotted lines
-nev = 0
-if (exists("eventfile") && strlen(eventfile) > 0) {
-    nev = datarows(eventfile)
+# every other column named <channel>_<element>_kg_s, element one of h o c n; a channel
+# not in ch_keys gets its own legend entry named after it
+do for [k = 1:words(hs_hdr)] {
+    hs_n = word(hs_hdr, k)
+    hs_L = strlen(hs_n)
+    if (hs_L > 7) {
+        if (hs_n[hs_L - 4:hs_L] eq "_kg_s" && hs_n[hs_L - 6:hs_L - 6] eq "_") {
+            hs_el = windex(el_keys, hs_n[hs_L - 5:hs_L - 5], 1)
+            if (hs_el > 0) {
+                hs_ch = hs_n[1:hs_L - 7]
+                hs_ci = windex(ch_keys, hs_ch, 1)
+                if (hs_ci == 0) {
+                    ch_keys = ch_keys . " " . hs_ch
+                    hs_lab = ""
+                    do for [j = 1:strlen(hs_ch)] {
+                        hs_lab = hs_lab . (hs_ch[j:j] eq "_" ? " " : hs_ch[j:j])
+                    }
+                    ch_lab = ch_lab . ' "' . hs_lab . '"'
+                    hs_ci = words(ch_keys)
+                }
+                e_cols = e_cols . " " . hs_n
+                e_el = e_el . sprintf(" %d", hs_el)
+                e_ch = e_ch . sprintf(" %d", hs_ci)
+                e_fac = e_fac . " 1"
+            }
+        }
+    }
 }
-if (nev > 0) {
-    set table $vl_events
-    plot eventfile using (sprintf("%.9e", column("time_yr"))) with table
+# pass 1: the largest value of every channel column and total, and the axis range
+e_lo = 1e300; e_hi = 0.0
+e_max = ""
+do for [k = 1:words(e_cols)] {
+    SC = word(e_cols, k); SF = word(e_fac, k) + 0.0; eval SCAN
+    e_max = e_max . sprintf(" %.6e", smax)
+    if (smax > 0) {
+        if (smin < e_lo) { e_lo = smin }
+        if (smax > e_hi) { e_hi = smax }
+    }
+}
+SF = 1.0
+t_max = ""
+do for [k = 1:4] {
+    SC = word(tot_cols, k); eval SCAN
+    t_max = t_max . sprintf(" %.6e", smax)
+    if (smax > 0) {
+        if (smin < e_lo) { e_lo = smin }
+        if (smax > e_hi) { e_hi = smax }
+    }
+}
+esc_on = (e_hi > 0)
+if (esc_on) { es_lo = decfloor(e_lo, e_hi, 12); es_hi = decceil(e_hi) } else { es_lo = 1e300 }
+# pass 2: draw (and list in the legend) what reaches the axis; columns that stay zero,
+# or stay below the axis, are left out
+c_cols = ""; c_el = ""; c_ch = ""; c_fac = ""
+el_used = ""; ch_used = ""
+do for [k = 1:words(e_cols)] {
+    if (word(e_max, k) + 0.0 >= es_lo) {
+        c_cols = c_cols . " " . word(e_cols, k)
+        c_el = c_el . " " . word(e_el, k)
+        c_ch = c_ch . " " . word(e_ch, k)
+        c_fac = c_fac . " " . word(e_fac, k)
+        if (windex(el_used, word(e_el, k), 1) == 0) { el_used = el_used . " " . word(e_el, k) }
+        if (windex(ch_used, word(e_ch, k), 1) == 0) { ch_used = ch_used . " " . word(e_ch, k) }
+    }
+}
+t_el = ""
+el_low = ""
+do for [k = 1:4] {
+    if (word(t_max, k) + 0.0 >= es_lo) {
+        t_el = t_el . sprintf(" %d", k)
+        if (windex(el_used, sprintf("%d", k), 1) == 0) { el_used = el_used . sprintf(" %d", k) }
+    } else {
+        if (word(t_max, k) + 0.0 > 0) {
+            el_low = el_low . (strlen(el_low) > 0 ? ", " : "") . word(el_names, k)
+        }
+    }
+}
+# legend order: elements H O C N, channels in ch_keys order
+el_ord = ""
+do for [k = 1:4] { if (windex(el_used, sprintf("%d", k), 1) > 0) { el_ord = el_ord . sprintf(" %d", k) } }
+ch_ord = ""
+do for [k = 1:words(ch_keys)] { if (windex(ch_used, sprintf("%d", k), 1) > 0) { ch_ord = ch_ord . sprintf(" %d", k) } }
+nt = words(t_el); nc = words(c_cols)
+el_low_note = (strlen(el_low) > 0 && esc_on) ? sprintf("%s: below 10^{%d} kg s^{-1}", el_low, int(floor(log10(es_lo) + 0.5))) : ""
+# dash types of the channels: 11, 12, ... (a reader tells channels apart by dash,
+# elements by colour); the list repeats past its end
+hs_dashes = '"(24,10)" "(12,8)" "(24,8,4,8)" "(3,7)" "(28,8,4,8,4,8)" "(12,6,12,6,4,6)" "(4,6,4,18)" "(48,12)"'
+do for [k = 1:words(ch_keys)] {
+    eval sprintf("set dashtype %d %s", 10 + k, word(hs_dashes, (k - 1) % words(hs_dashes) + 1))
+}
+
+# (e) luminosity and XUV flux
+SC = "luminosity_lsun"; eval SCAN
+lum_on = (smax > 0)
+if (lum_on) {
+    lum_log = (smax / smin > 8.0)
+    if (lum_log) {
+        lum_lo = decfloor(smin, smax, 8); lum_hi = decceil(smax)
+    } else {
+        lum_lo = 0.0; lum_hi = smax * 1.12
+    }
+}
+SC = "f_xuv_w_m2"; eval SCAN
+xuv_on = (smax > 0)
+if (xuv_on) { xuv_lo = decfloor(smin, smax, 10); xuv_hi = decceil(smax) }
+
+# events: dotted vertical lines over every panel (those at the ends of the time axis,
+# such as the start and end of the run, fall on the frame and are left out)
+nev_drawn = 0
+if (hs_nev > 0) {
+    set table $hs_ev
+    plot hs_events using (sprintf("%.9e", column("time_yr"))) with table
     unset table
-    do for [i = 1:|$vl_events|] {
-        tev = $vl_events[i] + 0.0
-        if (tev >= tmin && tev <= tmax) {
+    do for [i = 1:|$hs_ev|] {
+        tev = $hs_ev[i] + 0.0
+        if (tev > tmin * 1.0001 && tev < tmax / 1.0001) {
             set arrow from first tev, graph 0 to first tev, graph 1 nohead \
                 lc rgb "#888888" lw 1 dt 3 back
+            nev_drawn = nev_drawn + 1
         }
     }
 }
 
-# ---------------------------------------------------------------- layout
-set output outfile
-L_left = 0.11; L_right = 0.73
-P_top = use2 ? 0.925 : 0.945
-P_bot = 0.065
-P_gap = 0.012
-P_h = (P_top - P_bot - 3 * P_gap) / 4.0
-ptop(i) = P_top - (i - 1) * (P_h + P_gap)
-pbot(i) = ptop(i) - P_h
-key_x = 0.815
-dash(r) = (r == 1) ? 1 : 2
-# i-th number of a space-separated list; 1 past its end (gnuplot parses the
-# options of a plot clause even when its iteration turns out to be empty)
+# ------------------------------------------------------------------ layout
+# panel heights in proportion to these weights, top to bottom
+P_wt = "1.0 1.15 1.0 1.55 0.9"
+P_top = 0.950; P_bot = 0.055; P_gap = 0.018
+P_unit = (P_top - P_bot - 4 * P_gap) / (1.0 + 1.15 + 1.0 + 1.55 + 0.9)
+ptop(i) = (i <= 1) ? P_top : pbot(i - 1) - P_gap
+pbot(i) = ptop(i) - P_unit * word(P_wt, i)
+L_left = 0.105; L_right = 0.655
+key_x = 0.755
+# the i-th number of a list, 1 past its end (gnuplot reads the options of a plot
+# clause even when its iteration is empty)
 nth(list, i) = (i >= 1 && i <= words(list)) ? int(word(list, i)) : 1
+# dash type of the channel in the i-th place of list
+hs_dt(list, i) = 10 + nth(list, i)
 
+# the figure file is opened only now that every check has passed
+eval VL_TERM
 set multiplot
-set label 100 figtitle at screen 0.5, 0.982 center noenhanced font ",13"
-if (use2) {
-    set label 101 sprintf("solid: %s     dashed: %s", label1, label2) \
-        at screen 0.5, 0.955 center noenhanced
-}
-
+set label 100 hs_title at screen 0.5, 0.982 center noenhanced font ",13"
 set lmargin at screen L_left
 set rmargin at screen L_right
-set logscale x
+eval VL_LOGTIME
 set xrange [tmin:tmax]
+set xlabel ""
 set format x ""
-set mxtics 10
-set grid xtics ytics lc rgb "#dddddd" lw 1 dt 1
-set border lw 1
-set key spacing 1.2 samplen 2 Left reverse noautotitle
 set style fill solid 1.0 noborder
-set ytics nomirror
-set format y "10^{%L}"
+PANEL = 'set tmargin at screen ptop(hs_p); set bmargin at screen pbot(hs_p); \
+    set key at screen key_x, ptop(hs_p) left top; \
+    set label 1 sprintf("(%c)", 96 + hs_p) at screen 0.012, ptop(hs_p) - 0.004 left font ",12"'
+EMPTY = 'set yrange [1e-3:1]; set format y ""; \
+    set label 2 hs_empty at graph 0.5, 0.5 center'
+hs_ev_n = (nev_drawn > 0) ? 1 : 0
 
-# ------------------------------------------------------------ (a) water
-set tmargin at screen ptop(1)
-set bmargin at screen pbot(1)
-set key at screen key_x, ptop(1) left top
-set label 1 "(a)" at screen 0.015, ptop(1) - 0.008 left font ",12"
+# ------------------------------------------------------------ (a) surface water
+hs_p = 1; eval PANEL
 set logscale y
 set ylabel "Surface water (TO)"
 if (wat_on) {
     set format y "10^{%L}"
     set yrange [wat_lo:wat_hi]
-    plot for [r = 1:nrun] runfile(r) \
-            using (column("time_yr")):(v = column("surface_water_to"), v > 0 ? v : 1/0) \
-            with lines lw 2 dt dash(r) lc rgb "#0072B2" \
-            title (use2 ? runlabel(r) : "surface water"), \
-         for [z = 1:(nev > 0 ? 1 : 0)] keyentry with lines lw 1 dt 3 lc rgb "#888888" title "event"
+    plot hs_data using (tclamp(column("time_yr"))):(pos(column("surface_water_to"))) \
+            with @HS_W lw 2 lc rgb c_water title "surface water", \
+         for [z = 1:hs_ev_n] keyentry with lines lw 1 dt 3 lc rgb "#888888" title "event"
 } else {
-    set yrange [1e-3:1]
-    set format y ""
-    set label 2 "no surface water" at graph 0.5, 0.5 center
+    hs_empty = "no surface water"; eval EMPTY
     plot NaN notitle, \
-         for [z = 1:(nev > 0 ? 1 : 0)] keyentry with lines lw 1 dt 3 lc rgb "#888888" title "event"
+         for [z = 1:hs_ev_n] keyentry with lines lw 1 dt 3 lc rgb "#888888" title "event"
     unset label 2
 }
 
-# ------------------------------------------------------ (b) pressures
-set tmargin at screen ptop(2)
-set bmargin at screen pbot(2)
-set key at screen key_x, ptop(2) left top
-set label 1 "(b)" at screen 0.015, ptop(2) - 0.008 left font ",12"
+# ------------------------------------------------------------ (b) partial pressures
+hs_p = 2; eval PANEL
 set ylabel "Partial pressure (bar)"
 if (np > 0) {
     set format y "10^{%L}"
     set yrange [pr_lo:pr_hi]
-    plot for [r = 1:nrun] for [i = 1:np] runfile(r) \
-            using (column("time_yr")):(v = column(word(sp_cols, nth(sp_on, i))), v > 0 ? v : 1/0) \
-            with lines lw 2 dt dash(r) lc rgb word(sp_rgb, nth(sp_on, i)) \
-            title (nth(sp_titled, i) == r ? word(sp_names, nth(sp_on, i)) : "")
+    plot for [i = 1:np] hs_data \
+            using (tclamp(column("time_yr"))):(pos(column(word(sp_cols, nth(sp_on, i))))) \
+            with @HS_W lw 2 lc rgb word(sp_rgb, nth(sp_on, i)) \
+            title word(sp_names, nth(sp_on, i)), \
+         for [z = 1:(strlen(sp_low_note) > 0 ? 1 : 0)] keyentry with boxes fc rgb "#ffffff" \
+            title sp_low_note
 } else {
-    set yrange [1e-3:1]
-    set format y ""
-    set label 2 "all partial pressures are zero" at graph 0.5, 0.5 center
+    hs_empty = "no atmosphere"; eval EMPTY
     plot NaN notitle
     unset label 2
 }
 
-# ------------------------------------------------- (c) temperature, regime
-set tmargin at screen ptop(3)
-set bmargin at screen pbot(3)
-set key at screen key_x, ptop(3) left top
-set label 1 "(c)" at screen 0.015, ptop(3) - 0.008 left font ",12"
+# ------------------------------------------------------------ (c) temperature, regime
+hs_p = 3; eval PANEL
 unset logscale y
 set format y "%g"
 set yrange [T_ax_lo:T_ax_hi]
 set y2range [0:1]
-set ylabel "Surface temperature (K)"
-if (use2) {
-    do for [r = 1:nrun] {
-        set label 10 + r runlabel(r) at graph 1.01, 0.5 * (strip_lo(r) + strip_hi(r)) \
-            left noenhanced font ",9"
-    }
-}
-# Each pair of consecutive rows (t0, t1) is split at its geometric mean: the
-# left half takes the regime of the earlier row, the right half the later one.
-plot for [r = 1:nrun] runfile(r) \
+set ylabel "Surface T (K)"
+# Each pair of consecutive rows (t0, t1) is split at its geometric mean: the left
+# half takes the regime of the earlier row, the right half the later one.
+plot hs_data \
         using (t1 = tclamp(column("time_yr")), t0 = (column(0) == 0) ? t1 : tp, tp = t1, \
                r0 = (column(0) == 0) ? column("regime") : rp, rp = column("regime"), \
-               sqrt(t0 * t1)):(0.5 * (strip_lo(r) + strip_hi(r))): \
-              (t0):(sqrt(t0 * t1) * tover):(strip_lo(r)):(strip_hi(r)):(regcol(r0)) \
+               sqrt(t0 * t1)):(0.5 * strip_h): \
+              (t0):(sqrt(t0 * t1) * tover):(0.0):(strip_h):(regcol(r0)) \
         with boxxyerror lc rgb variable axes x1y2 notitle, \
-     for [r = 1:nrun] runfile(r) \
+     hs_data \
         using (t1 = tclamp(column("time_yr")), t0 = (column(0) == 0) ? t1 : tp, tp = t1, \
-               sqrt(t0 * t1)):(0.5 * (strip_lo(r) + strip_hi(r))): \
-              (sqrt(t0 * t1)):(t1 * tover):(strip_lo(r)):(strip_hi(r)):(regcol(column("regime"))) \
+               sqrt(t0 * t1)):(0.5 * strip_h): \
+              (sqrt(t0 * t1)):(t1 * tover):(0.0):(strip_h):(regcol(column("regime"))) \
         with boxxyerror lc rgb variable axes x1y2 notitle, \
-     for [r = 1:nrun] runfile(r) using (column("time_yr")):(column("surface_temp_k")) \
-        with lines lw 2 dt dash(r) lc rgb "#000000" \
-        title (r == 1 ? "surface T" : ""), \
-     keyentry with boxes fc rgb "#ffffff" title "regime:", \
-     for [k = 1:5] keyentry with boxes fc rgb word(reg_rgb, k) title word(reg_names, k)
-unset label 11
-unset label 12
+     hs_data using (tclamp(column("time_yr"))):(column("surface_temp_k")) \
+        with @HS_W lw 2 lc rgb c_temp title "surface temperature", \
+     keyentry with boxes fc rgb "#ffffff" title "climate regime:", \
+     for [k = 1:words(reg_on)] keyentry with boxes fc rgb word(reg_rgb, nth(reg_on, k)) \
+        title word(reg_names, nth(reg_on, k))
 
-# ----------------------------------------------------- (d) escape, XUV
-set tmargin at screen ptop(4)
-set bmargin at screen pbot(4)
-set key at screen key_x, ptop(4) left top
-set label 1 "(d)" at screen 0.015, ptop(4) - 0.008 left font ",12"
-set format x "10^{%L}"
-set xlabel "Time (yr)"
+# ------------------------------------------------------------ (d) escape
+hs_p = 4; eval PANEL
+set key samplen 5
 set logscale y
-set format y "10^{%L}"
-set ylabel "Escape rate (kg s^{-1})"
-if (ne > 0) {
+set ylabel "Escape flux (kg s^{-1})"
+if (esc_on) {
+    set format y "10^{%L}"
     set yrange [es_lo:es_hi]
+    plot for [i = 1:nt] hs_data \
+            using (tclamp(column("time_yr"))):(pos(column(word(tot_cols, nth(t_el, i))))) \
+            with @HS_W lw 3 dt 1 lc rgb word(el_rgb, nth(t_el, i)) notitle, \
+         for [i = 1:nc] hs_data \
+            using (tclamp(column("time_yr"))):(pos(column(word(c_cols, i)) * (word(c_fac, i) + 0.0))) \
+            with @HS_W lw 2 dt hs_dt(c_ch, i) lc rgb word(el_rgb, nth(c_el, i)) notitle, \
+         keyentry with boxes fc rgb "#ffffff" title "element (colour):", \
+         for [k = 1:words(el_ord)] keyentry with lines lw 3 lc rgb word(el_rgb, nth(el_ord, k)) \
+            title word(el_names, nth(el_ord, k)) . (windex(t_el, word(el_ord, k), 1) > 0 ? " total" : ""), \
+         for [z = 1:(strlen(el_low_note) > 0 ? 1 : 0)] keyentry with boxes fc rgb "#ffffff" \
+            title el_low_note, \
+         for [z = 1:(words(ch_ord) > 0 ? 1 : 0)] keyentry with boxes fc rgb "#ffffff" title "channel (dash):", \
+         for [k = 1:words(ch_ord)] keyentry with lines lw 2 dt hs_dt(ch_ord, k) lc rgb "#000000" \
+            title word(ch_lab, nth(ch_ord, k))
 } else {
-    set yrange [1e-3:1]
-    set format y ""
-    set label 2 "no escape" at graph 0.5, 0.62 center
+    hs_empty = "no escape"; eval EMPTY
+    plot NaN notitle
+    unset label 2
+}
+
+# ------------------------------------------------------------ (e) luminosity, XUV
+hs_p = 5; eval PANEL
+set key samplen 2
+eval VL_LOGTIME
+set ylabel "Luminosity (L_{sun})"
+if (lum_on) {
+    if (lum_log) {
+        set logscale y; set format y "10^{%L}"
+    } else {
+        unset logscale y; set format y "%g"
+    }
+    set yrange [lum_lo:lum_hi]
+} else {
+    hs_empty = "no luminosity"; eval EMPTY
+    set label 2 at graph 0.5, 0.62
 }
 if (xuv_on) {
     set logscale y2
     set y2range [xuv_lo:xuv_hi]
-    set y2tics nomirror textcolor rgb "#B07800"
+    set y2tics nomirror
     set format y2 "10^{%L}"
-    set y2label "XUV flux (W m^{-2})" textcolor rgb "#B07800"
+    set y2label "XUV flux at the planet (W m^{-2})" textcolor rgb c_xuv
 } else {
     set label 3 "no XUV flux" at graph 0.5, 0.38 center
 }
-plot for [r = 1:nrun] for [i = 1:ne] runfile(r) \
-        using (column("time_yr")):(v = column(word(esc_cols, nth(esc_on, i))), v > 0 ? v : 1/0) \
-        with lines lw 2 dt dash(r) lc rgb word(esc_rgb, nth(esc_on, i)) \
-        title (nth(esc_titled, i) == r ? word(esc_names, nth(esc_on, i)) : ""), \
-     for [r = 1:(xuv_on ? nrun : 0)] runfile(r) \
-        using (column("time_yr")):(v = column("f_xuv_w_m2"), v > 0 ? v : 1/0) axes x1y2 \
-        with lines lw 2 dt dash(r) lc rgb "#E69F00" \
-        title ((r == 1 && xuv_run1) || (r == 2 && !xuv_run1) ? "XUV flux (right)" : ""), \
+plot for [z = 1:(lum_on ? 1 : 0)] hs_data \
+        using (tclamp(column("time_yr"))):(pos(column("luminosity_lsun"))) \
+        with @HS_W lw 2 lc rgb c_lum title "luminosity (left)", \
+     for [z = 1:(xuv_on ? 1 : 0)] hs_data \
+        using (tclamp(column("time_yr"))):(pos(column("f_xuv_w_m2"))) axes x1y2 \
+        with @HS_W lw 2 lc rgb c_xuv title "XUV flux (right)", \
      NaN notitle
 
 unset multiplot

@@ -1,6 +1,7 @@
 /* gnuplot.c: finding plots/ scripts and running gnuplot (gnuplot.h). */
 #include "gnuplot.h"
 
+#include <errno.h>
 #include <libgen.h>
 #include <spawn.h>
 #include <stdio.h>
@@ -33,36 +34,36 @@ int vl_gnuplot_find_script(const char *name, char *out, size_t n)
     return -1;
 }
 
-int vl_gnuplot_run(const char *script, const char *expr, const char *outfile, vl_status *st)
+int vl_gnuplot_call(const char *script, const char *const args[], size_t n, vl_status *st)
 {
-    char *args[] = {"gnuplot", "-e", (char *)expr, (char *)script, NULL};
+    /* gnuplot -c SCRIPT ARG1 ... ARGn: the script sees them as ARG1 ... ARGn (ARGC = n) */
+    char **argv = malloc((n + 4) * sizeof *argv);
+    if (!argv)
+        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory starting gnuplot");
+    argv[0] = "gnuplot";
+    argv[1] = "-c";
+    argv[2] = (char *)script;
+    for (size_t i = 0; i < n; i++)
+        argv[3 + i] = (char *)(args[i] ? args[i] : "");
+    argv[n + 3] = NULL;
     pid_t pid;
     fflush(stdout); /* keep our output ahead of anything gnuplot prints */
-    int err = posix_spawnp(&pid, "gnuplot", NULL, NULL, args, environ);
+    int err = posix_spawnp(&pid, "gnuplot", NULL, NULL, argv, environ);
+    free(argv);
     if (err != 0)
         return vl_fail(st, VL_ERR_TOOL, NULL, 0, "cannot run gnuplot: %s (install gnuplot-nox)",
                        strerror(err));
     int status;
-    if (waitpid(pid, &status, 0) < 0 || !WIFEXITED(status) || WEXITSTATUS(status) != 0) {
-        remove(outfile);
-        return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot failed rendering %s", outfile);
-    }
+    pid_t w;
+    while ((w = waitpid(pid, &status, 0)) < 0 && errno == EINTR)
+        ;
+    if (w < 0)
+        return vl_fail(st, VL_ERR_TOOL, script, 0, "lost track of gnuplot: %s", strerror(errno));
+    if (WIFSIGNALED(status))
+        return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot was killed by signal %d",
+                       WTERMSIG(status));
+    if (!WIFEXITED(status) || WEXITSTATUS(status) != 0)
+        return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot failed (exit status %d)",
+                       WIFEXITED(status) ? WEXITSTATUS(status) : -1);
     return VL_OK;
-}
-
-int vl_gnuplot_quote(const char *s, char *out, size_t n)
-{
-    size_t k = 0;
-    for (; *s; s++) {
-        size_t need = *s == '\'' ? 2 : 1;
-        if (k + need >= n)
-            return -1;
-        out[k++] = *s;
-        if (*s == '\'')
-            out[k++] = '\'';
-    }
-    if (n == 0)
-        return -1;
-    out[k] = '\0';
-    return 0;
 }

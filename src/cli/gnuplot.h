@@ -1,5 +1,6 @@
 /* gnuplot.h: locating the bundled gnuplot scripts and running gnuplot on one
- * (shared by plot and compare). */
+ * (shared by plot and compare). Scripts take their inputs as arguments:
+ * `gnuplot -c plots/NAME.gp ARG1 ARG2 ...` (vl_gnuplot_call). */
 #ifndef VOLEV_CLI_GNUPLOT_H
 #define VOLEV_CLI_GNUPLOT_H
 
@@ -11,12 +12,11 @@
  * and plots beside the executable. 0 if found and readable, -1 otherwise. */
 int vl_gnuplot_find_script(const char *name, char *out, size_t n);
 
-/* Run `gnuplot -e EXPR SCRIPT` and wait for it. On failure outfile is removed and st
- * holds VL_ERR_TOOL (gnuplot missing, or it exited with an error). */
-int vl_gnuplot_run(const char *script, const char *expr, const char *outfile, vl_status *st);
-
-/* Copy s into out[n] as the body of a gnuplot single-quoted string (quotes doubled).
- * 0, or -1 if it does not fit. */
-int vl_gnuplot_quote(const char *s, char *out, size_t n);
+/* Run `gnuplot -c SCRIPT ARGS[0] ... ARGS[n-1]` and wait for it; the script reads them
+ * as ARG1 ... ARGn (a NULL entry is passed as an empty string, i.e. "absent"). No
+ * quoting is involved: each entry reaches gnuplot as one argv word. On failure st
+ * holds VL_ERR_TOOL (gnuplot missing, killed, or exited non-zero); the caller removes
+ * whatever partial figure it no longer wants. */
+int vl_gnuplot_call(const char *script, const char *const args[], size_t n, vl_status *st);
 
 #endif

@@ -1,0 +1,76 @@
+# style.gp -- the house style of every volev figure (gnuplot >= 5.4), loaded by each
+# figure script with
+#     load vl_dir . "style.gp"
+# after it has set vl_dir (the folder of the script, from ARG0) and vl_out (the figure
+# path). It provides:
+#
+#   vl_fmt            png | pdf | svg, from the extension of vl_out
+#   VL_TERM           eval VL_TERM after setting vl_w, vl_h (inches): the terminal
+#                     (pngcairo at 100 px per inch for screens; pdfcairo and svg, both
+#                     vector, for papers), white background, one font family
+#   VL_BASE           eval VL_BASE: separators, comment lines, column headers, grid,
+#                     border and key defaults shared by all figures
+#   VL_LOGTIME        eval VL_LOGTIME: logarithmic stellar-age axis with 10^n labels
+#   vl_fail(msg)      print "SCRIPT: msg" and stop with status 2 (usage) -- a macro:
+#                     vl_msg = "..."; eval VL_FAIL
+#   colours           one colour per species, element, run, regime and outcome class,
+#                     kept across every figure (Okabe & Ito 2008 colour-blind-safe
+#                     palette; common practice in the figures of journals)
+#
+# Colours (Okabe-Ito): black #000000, orange #E69F00, sky blue #56B4E9, bluish green
+# #009E73, yellow #F0E442, blue #0072B2, vermillion #D55E00, reddish purple #CC79A7.
+
+if (!exists("vl_out") || strlen(vl_out) == 0) {
+    print "style.gp: the figure script must set vl_out"
+    exit status 2
+}
+vl_ext(f) = (strstrt(f, ".") > 0) ? f[strlen(f) - 2:strlen(f)] : ""
+vl_fmt = vl_ext(vl_out)
+if (vl_fmt ne "png" && vl_fmt ne "pdf" && vl_fmt ne "svg") {
+    print sprintf("%s: the output '%s' must end in .png, .pdf or .svg", vl_script, vl_out)
+    exit status 2
+}
+VL_FAIL = 'print sprintf("%s: %s", vl_script, vl_msg); exit status 2'
+
+# terminal: vl_w x vl_h inches
+if (!exists("vl_w")) { vl_w = 8.0 }
+if (!exists("vl_h")) { vl_h = 6.0 }
+VL_TERM = 'if (vl_fmt eq "png") { \
+    eval sprintf("set terminal pngcairo size %d,%d enhanced font \"sans,11\" linewidth 1 background \"white\"", int(vl_w * 100), int(vl_h * 100)) \
+} else { if (vl_fmt eq "pdf") { \
+    eval sprintf("set terminal pdfcairo size %gin,%gin enhanced font \"sans,9\" linewidth 1", vl_w, vl_h) \
+} else { \
+    eval sprintf("set terminal svg size %d,%d dynamic enhanced font \"sans,11\" linewidth 1 background \"white\"", int(vl_w * 100), int(vl_h * 100)) \
+} }; set output vl_out'
+
+VL_BASE = 'set datafile separator comma; set datafile commentschars "#"; \
+    set datafile columnheaders; set datafile missing ""; \
+    set grid xtics ytics lc rgb "#dddddd" lw 1 dt 1; set border lw 1; \
+    set key spacing 1.2 samplen 2 Left reverse noautotitle; set tics nomirror'
+
+VL_LOGTIME = 'set logscale x; set format x "10^{%L}"; set mxtics 10; \
+    set xlabel "Stellar age (yr)"'
+
+# one colour per species (partial pressures) and per element (escape)
+c_h2o = "#0072B2"; c_co2 = "#D55E00"; c_n2 = "#009E73"; c_o2 = "#56B4E9"; c_h2 = "#CC79A7"
+c_el_h = c_h2; c_el_o = c_o2; c_el_c = c_co2; c_el_n = c_n2
+c_water = c_h2o
+c_temp = "#000000"
+c_xuv = "#E69F00"; c_lum = "#000000"
+# one colour (and dash) per run in comparisons: run i uses word(c_runs, i), dash i
+c_runs = "#0072B2 #D55E00 #009E73 #CC79A7 #E69F00 #56B4E9 #000000 #F0E442"
+# regimes (enum vl_regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway)
+reg_names = 'dry frozen temperate "moist greenhouse" runaway'
+reg_rgb   = "#E69F00 #56B4E9 #009E73 #F0E442 #D55E00"
+regcol(x) = (x == 0) ? 0xE69F00 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
+            (x == 3) ? 0xF0E442 : (x == 4) ? 0xD55E00 : 0x999999
+# outcome classes of a sweep, in docs/ensembles.md order; colours follow the regime
+# each class ends in (o2_rich: purple, failed: grey)
+cls_names = "failed steam o2_rich desiccated frozen ocean_kept"
+cls_rgb   = "#999999 #D55E00 #CC79A7 #E69F00 #56B4E9 #009E73"
+clscol(i) = (i == 1) ? 0x999999 : (i == 2) ? 0xD55E00 : (i == 3) ? 0xCC79A7 : \
+            (i == 4) ? 0xE69F00 : (i == 5) ? 0x56B4E9 : 0x009E73
+
+# decade bounds for a log axis showing at most `dec` decades below the maximum
+decfloor(mn, mx, dec) = 10.0**floor(log10(mn > mx * 10.0**(-dec) ? mn : mx * 10.0**(-dec)) - 0.02)
+decceil(mx) = 10.0**ceil(log10(mx) + 0.02)
