@@ -124,7 +124,7 @@ cat <<'TAIL'
   hydrogen switched them off and Mars ended at 1.2 bar), and outgassing and weathering
   rates scale with planet mass and surface area.
 
-The three histories on shared axes: `docs/divergence.png` (plots/divergence.gp).
+The three histories on shared axes: `docs/divergence.png` (plots/comparison.gp).
 
 Conclusions about the real planets need the published literature behind each process;
 this table shows where this version's defaults stand.
@@ -133,6 +133,9 @@ TAIL
 mv "$tmp" "$out"
 echo "$out"
 if command -v gnuplot >/dev/null 2>&1; then
-    gnuplot -e "venus='$work/venus/series.csv'; earth='$work/earth/series.csv'; mars='$work/mars/series.csv'; outfile='docs/divergence.png'" plots/divergence.gp
+    gnuplot -c plots/comparison.gp docs/divergence.png \
+        "Venus, Earth and Mars from one starting inventory" \
+        "$work/venus/series.csv" Venus "$work/earth/series.csv" Earth \
+        "$work/mars/series.csv" Mars
     echo docs/divergence.png
 fi

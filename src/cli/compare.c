@@ -3,7 +3,7 @@
  * table of every summary quantity (value in A and B, B - A, B / A) and the stellar age
  * at which each kind of event first happened in either run. With -o it also writes
  * DIR/compare.csv (the same table, machine-readable) and DIR/compare.FORMAT, the runs'
- * series.csv drawn on shared axes by plots/compare.gp. Both files are written under
+ * series.csv drawn on shared axes by plots/comparison.gp. Both files are written under
  * temporary names and renamed into place only when both succeeded. */
 #define _XOPEN_SOURCE 700 /* realpath */
 #include <ctype.h>
@@ -23,7 +23,7 @@ enum { LABEL_MAX = 256 };
 
 static const char *const summary_header = "name,value,unit";
 static const char *const events_header = "time_yr,event,detail";
-/* series.csv columns drawn by plots/compare.gp */
+/* series.csv columns drawn by plots/comparison.gp (it finds them by name) */
 static const char *const figure_columns[] = {"time_yr", "surface_water_to", "p_co2_bar",
                                              "p_o2_bar", "surface_temp_k"};
 #define NFIGCOLS (sizeof figure_columns / sizeof figure_columns[0])
@@ -363,7 +363,7 @@ static int read_events(run *r, vl_status *st)
 }
 
 /* Check DIR/series.csv for the figure: a run's header (first column time_yr) holding
- * every column compare.gp draws, and data rows with one number per column. */
+ * every column comparison.gp draws, and data rows with one number per column. */
 static int check_series(const run *r, vl_status *st)
 {
     char path[VL_PATH_MAX + 32];
@@ -657,9 +657,10 @@ static int write_outputs(const char *dir, const char *fmt, const run *ra, const 
                          const pair *qp, size_t nqp, const pair *ep, size_t nep, vl_status *st)
 {
     char script[4200];
-    if (vl_gnuplot_find_script("compare.gp", script, sizeof script) != 0)
+    if (vl_gnuplot_find_script("comparison.gp", script, sizeof script) != 0)
         return vl_fail(st, VL_ERR_TOOL, NULL, 0,
-                       "cannot find plots/compare.gp (set VOLEV_PLOTS_DIR to the plots folder)");
+                       "cannot find plots/comparison.gp (set VOLEV_PLOTS_DIR to the plots "
+                       "folder)");
     int created = mkdir(dir, 0777) == 0;
     if (!created && errno != EEXIST)
         return vl_fail(st, VL_ERR_IO, dir, 0, "cannot create output folder: %s", strerror(errno));
@@ -667,29 +668,22 @@ static int write_outputs(const char *dir, const char *fmt, const run *ra, const 
     char csv[VL_PATH_MAX + 32], fig[VL_PATH_MAX + 32];
     long pid = (long)getpid();
     snprintf(csv_tmp, sizeof csv_tmp, "%s/.compare.csv.%ld.tmp", dir, pid);
-    snprintf(fig_tmp, sizeof fig_tmp, "%s/.compare.%s.%ld.tmp", dir, fmt, pid);
+    /* the figure's temporary name keeps the extension: comparison.gp picks the format
+     * from it */
+    snprintf(fig_tmp, sizeof fig_tmp, "%s/.compare.%ld.tmp.%s", dir, pid, fmt);
     snprintf(csv, sizeof csv, "%s/compare.csv", dir);
     snprintf(fig, sizeof fig, "%s/compare.%s", dir, fmt);
     int renamed_fig = 0;
 
     if (write_csv(csv_tmp, ra, rb, qp, nqp, ep, nep, st) == VL_OK) {
-        char fa[VL_PATH_MAX + 32], fb[VL_PATH_MAX + 32];
-        char qa[2 * sizeof fa], qb[2 * sizeof fb], qla[2 * LABEL_MAX], qlb[2 * LABEL_MAX],
-            qo[2 * sizeof fig_tmp];
+        /* gnuplot -c comparison.gp OUT TITLE SERIES_A LABEL_A SERIES_B LABEL_B: each an
+         * argv word of its own, so labels and paths need no quoting */
+        char fa[VL_PATH_MAX + 32], fb[VL_PATH_MAX + 32], title[2 * LABEL_MAX + 8];
         snprintf(fa, sizeof fa, "%s/series.csv", ra->dir);
         snprintf(fb, sizeof fb, "%s/series.csv", rb->dir);
-        if (vl_gnuplot_quote(fa, qa, sizeof qa) || vl_gnuplot_quote(fb, qb, sizeof qb) ||
-            vl_gnuplot_quote(ra->label, qla, sizeof qla) ||
-            vl_gnuplot_quote(rb->label, qlb, sizeof qlb) ||
-            vl_gnuplot_quote(fig_tmp, qo, sizeof qo)) {
-            vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "path too long");
-        } else {
-            char expr[16384];
-            snprintf(expr, sizeof expr,
-                     "fileA='%s'; fileB='%s'; labelA='%s'; labelB='%s'; outfile='%s'; fmt='%s'",
-                     qa, qb, qla, qlb, qo, fmt);
-            vl_gnuplot_run(script, expr, fig_tmp, st);
-        }
+        snprintf(title, sizeof title, "%s and %s", ra->label, rb->label);
+        const char *const args[] = {fig_tmp, title, fa, ra->label, fb, rb->label};
+        vl_gnuplot_call(script, args, sizeof args / sizeof args[0], st);
     }
     if (st->code == VL_OK) {
         if (rename(fig_tmp, fig) != 0)

@@ -1,0 +1,254 @@
+# comparison.gp -- two or three volev runs on shared axes (gnuplot >= 5.4).
+#
+# Usage:
+#   gnuplot -c plots/comparison.gp OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]
+#
+#   OUT       figure to write; its extension (.png, .pdf or .svg) picks the format
+#   TITLE     figure title; "" gives "comparison of N runs"
+#   SERIESi   series.csv of run i (`volev run`); an empty SERIES3 means two runs
+#   LABELi    name of run i in the legend, shown as written (no markup); "" gives the
+#             run folder (SERIESi without its "/series.csv")
+#
+# At most three runs: gnuplot passes a script at most nine arguments (OUT, TITLE and
+# three SERIES/LABEL pairs fill eight) and silently drops any beyond the ninth, so a
+# fourth run cannot be given; a ninth argument is refused.
+#
+# Examples (what `volev compare wet dry -o cmp` and `make validation` run):
+#   gnuplot -c plots/comparison.gp cmp/compare.png "wet and dry" wet/series.csv wet dry/series.csv dry
+#   gnuplot -c plots/comparison.gp docs/divergence.png "Venus, Earth and Mars from one starting inventory" \
+#       v/series.csv Venus e/series.csv Earth m/series.csv Mars
+#
+# Four panels share a logarithmic axis of stellar age (yr): surface water (TO), CO2
+# and O2 partial pressures (bar) on logarithmic axes, surface temperature (K) on a
+# linear one. Run i keeps colour word(c_runs, i) of style.gp and dash type i in every
+# panel; one legend above the panels names the runs. Columns are found by their names
+# in the header line of series.csv; a file lacking one of them stops the script (exit
+# status 2) naming file and column. Non-positive values are left out of the logarithmic
+# panels; a quantity that is zero throughout every run leaves its panel empty with a
+# note, and the runs in which it is zero throughout are named above the panel.
+
+vl_script = "comparison.gp"
+vl_dir = system(sprintf("dirname '%s'", ARG0)) . "/"
+vl_out = ARG1
+if (ARGC < 5) {
+    print "comparison.gp: usage: gnuplot -c comparison.gp OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]"
+    exit status 2
+}
+load vl_dir . "style.gp"
+vl_w = 8.0; vl_h = 10.0
+# the data settings first: arguments and files are checked, and axis ranges found,
+# before the output is opened, so a refused call leaves no figure file behind
+eval VL_BASE
+
+if (ARGC > 8) {
+    vl_msg = sprintf("at most three runs (SERIES/LABEL pairs); a ninth argument ('%s') was given", ARG9)
+    eval VL_FAIL
+}
+
+# ---- the runs ----------------------------------------------------------------------
+nrun = (ARGC >= 7 && strlen(ARG7) > 0) ? 3 : 2
+array run_file[3]
+array run_lab[3]
+run_file[1] = ARG3; run_lab[1] = ARG4
+run_file[2] = ARG5; run_lab[2] = (ARGC >= 6) ? ARG6 : ""
+run_file[3] = (nrun == 3) ? ARG7 : ""; run_lab[3] = (ARGC >= 8) ? ARG8 : ""
+sfx = "/series.csv"
+do for [i = 1:nrun] {
+    f = run_file[i]
+    if (strlen(f) == 0) {
+        vl_msg = sprintf("SERIES%d is empty: give the series.csv of run %d", i, i)
+        eval VL_FAIL
+    }
+    if (strlen(run_lab[i]) == 0) {
+        run_lab[i] = f
+        if (strlen(f) > strlen(sfx) && f[strlen(f) - strlen(sfx) + 1:] eq sfx) {
+            run_lab[i] = f[1:strlen(f) - strlen(sfx)]
+        }
+    }
+    # a very long name keeps its end (the distinctive part of a path)
+    if (strlen(run_lab[i]) > 80) { run_lab[i] = "..." . run_lab[i][strlen(run_lab[i]) - 76:] }
+}
+fig_title = strlen(ARG2) > 0 ? ARG2 : sprintf("comparison of %d runs", nrun)
+
+# every column drawn, checked by name in each run's header before anything is drawn
+need_cols = "time_yr surface_water_to p_co2_bar p_o2_bar surface_temp_k"
+do for [i = 1:nrun] {
+    undefine STATS_*
+    stats run_file[i] using 0 nooutput
+    if (!exists("STATS_columns") || !exists("STATS_records") || STATS_records < 1) {
+        vl_msg = sprintf("%s: no data (cannot be read, or no rows below the header)", run_file[i])
+        eval VL_FAIL
+    }
+    hdr = ","
+    do for [j = 1:STATS_columns] {
+        stats run_file[i] every ::0::0 using (hdr = hdr . columnheader(j) . ",", 0) nooutput
+    }
+    do for [c in need_cols] {
+        if (strstrt(hdr, "," . c . ",") == 0) {
+            vl_msg = sprintf("%s: column '%s' (needed for the figure) is missing from the header", run_file[i], c)
+            eval VL_FAIL
+        }
+    }
+}
+
+pos(x) = x > 0 ? x : NaN
+
+# SCAN: for column SC of every run, sets s_max (largest value over the runs, or 0),
+# s_min (smallest positive value, meaningful when s_max > 0), s_zero (labels of the
+# runs with no positive value, comma-separated), s_znum (their numbers, likewise) and
+# s_nzero (how many such runs).
+SCAN = 's_max = 0.0; s_min = 1e300; s_zero = ""; s_znum = ""; s_nzero = 0; \
+do for [r = 1:nrun] { \
+    undefine STATS_*; \
+    stats run_file[r] using (column(SC)) nooutput; \
+    if (exists("STATS_max") && STATS_max > 0) { \
+        s_m = STATS_max; \
+        if (s_m > s_max) { s_max = s_m }; \
+        stats run_file[r] using (s_v = column(SC), s_v > 0 ? s_v : s_m) nooutput; \
+        if (STATS_min < s_min) { s_min = STATS_min } \
+    } else { \
+        s_zero = s_zero . (s_nzero > 0 ? ", " : "") . run_lab[r]; \
+        s_znum = s_znum . (s_nzero > 0 ? ", " : "") . r; s_nzero = s_nzero + 1 \
+    } \
+}'
+# "either run" for two, "any of the N runs" otherwise
+any_run = (nrun == 2) ? "either run" : sprintf("any of the %d runs", nrun)
+
+# time axis: positive ages only
+SC = "time_yr"; eval SCAN
+if (s_max > 0) {
+    t_lo = s_min; t_hi = s_max
+    if (t_hi <= t_lo * 1.0001) { t_lo = t_lo / 10.0; t_hi = t_hi * 10.0 }
+} else {
+    vl_msg = "no positive stellar age (time_yr) in any run"
+    eval VL_FAIL
+}
+
+# the three logarithmic panels: column, axis label, decades shown, quantity named in notes
+lg_cols = "surface_water_to p_co2_bar p_o2_bar"
+lg_labels = '"Surface water (TO)" "CO_2 pressure (bar)" "O_2 pressure (bar)"'
+lg_decades = "8 12 12"
+lg_what = '"surface water" "CO2" "O2"'
+array lg_on[3]
+array lg_lo[3]
+array lg_hi[3]
+array lg_note[3]
+do for [k = 1:3] {
+    SC = word(lg_cols, k); eval SCAN
+    lg_on[k] = (s_max > 0)
+    lg_note[k] = ""
+    if (s_max > 0) {
+        lg_lo[k] = decfloor(s_min, s_max, int(word(lg_decades, k)))
+        lg_hi[k] = 10.0**ceil(log10(s_max) + 0.15)   # a line at its top stays off the border
+        if (s_nzero > 0) {
+            lg_note[k] = sprintf("no %s throughout: %s", word(lg_what, k), s_zero)
+            # names too long for one line: the runs' places in the legend instead
+            if (strlen(lg_note[k]) > 100) {
+                lg_note[k] = sprintf("no %s throughout: run%s %s of the legend", word(lg_what, k), s_nzero > 1 ? "s" : "", s_znum)
+            }
+        }
+    }
+}
+
+# surface temperature: linear axis, at least 20 K tall
+T_on = 0; T_lo = 1e300; T_hi = -1e300
+do for [r = 1:nrun] {
+    undefine STATS_*
+    stats run_file[r] using (column("surface_temp_k")) nooutput
+    if (exists("STATS_max") && STATS_records > 0) {
+        T_on = 1
+        if (STATS_min < T_lo) { T_lo = STATS_min }
+        if (STATS_max > T_hi) { T_hi = STATS_max }
+    }
+}
+if (!T_on) { T_lo = 0.0; T_hi = 1.0 }
+if (T_hi - T_lo < 20.0) { T_mid = 0.5 * (T_hi + T_lo); T_lo = T_mid - 10.0; T_hi = T_mid + 10.0 }
+T_pad = 0.05 * (T_hi - T_lo)
+
+eval VL_TERM; eval VL_BASE
+
+# ---- layout (screen coordinates) ---------------------------------------------------
+# title, the legend (one row when the names fit across, else one run per row), then
+# four panels; the gaps between panels hold the notes on runs without a quantity
+key_len = 0
+do for [i = 1:nrun] {
+    key_len = key_len + strlen(run_lab[i]) + 10
+}
+key_rows = (key_len <= 95) ? 1 : nrun
+L_x0 = 0.12; L_x1 = 0.96
+K_top = 0.955
+P_top = K_top - 0.024 * key_rows - 0.03
+P_bot = 0.065; P_gap = 0.028
+P_h = (P_top - P_bot - 3 * P_gap) / 4.0
+ptop(i) = P_top - (i - 1) * (P_h + P_gap)
+
+set multiplot
+set label 100 fig_title at screen 0.5, 0.982 center noenhanced font ",13"
+set lmargin at screen L_x0
+set rmargin at screen L_x1
+
+# the panels (the title goes with the first)
+eval VL_LOGTIME
+set xrange [t_lo:t_hi]
+set format x ""
+unset xlabel
+do for [k = 1:3] {
+    set tmargin at screen ptop(k)
+    set bmargin at screen ptop(k) - P_h
+    set ylabel word(lg_labels, k)
+    set logscale y
+    set mytics 10
+    if (strlen(lg_note[k]) > 0) {
+        set label 2 lg_note[k] at graph 1, 1 right offset 0, 0.7 noenhanced font ",9" tc rgb "#555555"
+    }
+    if (lg_on[k]) {
+        set format y "10^{%L}"
+        set yrange [lg_lo[k]:lg_hi[k]]
+        plot for [i = 1:nrun] run_file[i] \
+             using (pos(column("time_yr"))):(pos(column(word(lg_cols, k)))) \
+             with lines lw 2 dt i lc rgb word(c_runs, i) notitle
+    } else {
+        unset ytics
+        set yrange [1e-3:1]
+        set label 1 sprintf("no %s in %s", word(lg_what, k), any_run) at graph 0.5, 0.5 center
+        plot NaN notitle
+        unset label 1
+        set ytics nomirror
+    }
+    unset label 2
+    unset label 100
+}
+
+unset logscale y
+set format y "%g"
+set mytics default
+set yrange [T_lo - T_pad:T_hi + T_pad]
+eval VL_LOGTIME
+set tmargin at screen ptop(4)
+set bmargin at screen ptop(4) - P_h
+set ylabel "Surface temperature (K)"
+if (T_on) {
+    plot for [i = 1:nrun] run_file[i] \
+         using (pos(column("time_yr"))):(column("surface_temp_k")) \
+         with lines lw 2 dt i lc rgb word(c_runs, i) notitle
+} else {
+    unset ytics
+    set label 1 sprintf("no surface temperature in %s", any_run) at graph 0.5, 0.5 center
+    plot NaN notitle
+    unset label 1
+}
+
+# the legend, drawn last: a plot with nothing in it but the key
+set tmargin at screen K_top
+set bmargin at screen P_top + 0.01
+unset border; unset tics; unset grid; unset logscale; unset xlabel; unset ylabel
+set xrange [0:1]; set yrange [0:1]
+if (key_rows == 1) {
+    set key at screen 0.5 * (L_x0 + L_x1), K_top center top horizontal samplen 4 width 2
+} else {
+    set key at screen L_x0, K_top left top vertical maxrows nrun samplen 4
+}
+plot for [i = 1:nrun] NaN with lines lw 2 dt i lc rgb word(c_runs, i) title run_lab[i] noenhanced
+
+unset multiplot
+unset output
