@@ -59,7 +59,7 @@ else
 Q := @
 endif
 
-.PHONY: all check demo deps install uninstall clean bench docs validation
+.PHONY: all check demo deps install uninstall clean bench docs validation figures
 all: $(BIN)
 
 $(BUILD)/%.o: %.c
@@ -124,6 +124,10 @@ docs: $(BIN)
 # Venus, Earth and Mars today against measurements: docs/validation.md.
 validation: $(BIN)
 	@sh scripts/validation.sh $(BIN)
+
+# One figure of every kind from the bundled scenarios: docs/figures/*.png (docs/figures.md).
+figures: $(BIN)
+	@sh scripts/figures.sh $(BIN)
 
 bench: $(BIN)
 	@sh bench/run.sh $(BIN)

@@ -1,6 +1,7 @@
 #!/bin/sh
 # demo.sh BIN -- run the wet and dry demo scenarios with the volev binary BIN,
-# render each run and an overlay of both, and list the files produced.
+# render each run (volev plot: plots/history.gp) and both on shared axes
+# (plots/comparison.gp), and list the files produced.
 # Run from anywhere; outputs go to demo-out/ in the source tree.
 set -eu
 
@@ -41,9 +42,8 @@ echo "== running scenarios/demo-dry.cfg (dry)"
 echo "== rendering"
 "$bin" plot "$out/wet"
 "$bin" plot "$out/dry"
-gnuplot -e "datafile='$out/wet/series.csv'; eventfile='$out/wet/events.csv'; \
-datafile2='$out/dry/series.csv'; label1='wet (demo.cfg)'; label2='dry (demo-dry.cfg)'; \
-title='Demo: wet vs dry start'; outfile='$out/wet-vs-dry.png'; fmt='png'" plots/history.gp
+# both runs on shared axes (the comparison figure, plots/comparison.gp)
+"$bin" plot "$out/wet" "$out/dry" -o "$out/wet-vs-dry.png" --title "Demo: wet vs dry start"
 
 for f in "$out/wet/history.png" "$out/dry/history.png" "$out/wet-vs-dry.png" \
          "$out/wet/summary.csv" "$out/dry/summary.csv"; do

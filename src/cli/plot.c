@@ -1,72 +1,427 @@
-/* plot.c: `volev plot DIR [--format png|pdf|svg]`: render the figures of what DIR
- * holds through gnuplot: DIR/history.FORMAT from a run's series.csv (plots/history.gp),
- * DIR/balance.FORMAT from `volev balance`'s balance.csv (plots/balance.gp). */
+/* plot.c: `volev plot DIR... [--format png|pdf|svg] [-o FILE] [--kind NAME] [--title TEXT]` and
+ * `volev plot --list`: render the figures of what the folders hold (docs/figures.md).
+ *
+ *   history     a run's series.csv (+ events.csv)           plots/history.gp
+ *   balance     balance.csv of `volev balance`               plots/balance.gp
+ *   comparison  two or three run folders                     plots/comparison.gp
+ *   ensemble    ensemble_series.csv + ensemble_summary.csv   plots/ensemble.gp
+ *   regime_map  members.csv of a grid sweep with two axes:   plots/regime_map.gp
+ *               outcome class; water_map: final water
+ *
+ * Before gnuplot runs, every input file is checked for the columns its figure needs, so
+ * a missing or misnamed column is an error naming it (never an empty plot). Figures are
+ * written by gnuplot straight to their final names; a failed render removes its file. */
+#include <errno.h>
+#include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 #include <unistd.h>
 
 #include "cli.h"
 #include "gnuplot.h"
+#include "volev/climate.h"
+#include "volev/scenario.h"
+#include "volev/star.h"
+#include "volev/units.h"
 
-/* Render DIR/FIGURE.FMT from DIR/DATA with plots/SCRIPT; prints the figure's path. */
-static int render(const char *dir, const char *data, const char *script_name, const char *figure,
-                  const char *fmt, vl_status *st)
+enum { K_HISTORY, K_BALANCE, K_COMPARISON, K_ENSEMBLE, K_REGIME, K_WATER, NKIND };
+
+static const struct {
+    const char *name, *script, *holds;
+} kinds[NKIND] = {
+    {"history", "history.gp",
+     "a run folder (series.csv, events.csv): water, partial pressures, temperature with the "
+     "regime, escape by channel and element, luminosity and XUV"},
+    {"balance", "balance.gp",
+     "a `volev balance` folder (balance.csv): OLR and absorbed flux against surface "
+     "temperature, albedo, stratospheric water"},
+    {"comparison", "comparison.gp",
+     "two or three run folders: water, CO2, O2 and temperature of each run on shared axes"},
+    {"ensemble", "ensemble.gp",
+     "a sweep folder (ensemble_series.csv, ensemble_summary.csv): median and quantile bands "
+     "of water and O2 against age, histogram of outcome classes"},
+    {"regime_map", "regime_map.gp",
+     "a grid sweep over two axes (members.csv): outcome class of every member, with the "
+     "habitable-zone limits when one axis is the orbit"},
+    {"water_map", "regime_map.gp",
+     "a grid sweep over two axes (members.csv): final surface water of every member"},
+};
+
+/* Columns each input needs (NULL-terminated). */
+static const char *const need_series[] = {
+    "time_yr", "regime", "surface_temp_k", "surface_water_to", "p_h2o_bar", "p_co2_bar",
+    "p_n2_bar", "p_o2_bar", "p_h2_bar", "h_escape_kg_s", "o_escape_kg_s", "f_xuv_w_m2",
+    "luminosity_lsun", NULL};
+static const char *const need_compare[] = {"time_yr", "surface_water_to", "p_co2_bar",
+                                           "p_o2_bar", "surface_temp_k", NULL};
+static const char *const need_balance[] = {"surface_temp_k", "olr_w_m2", "absorbed_w_m2", NULL};
+static const char *const need_ens_series[] = {
+    "time_yr", "water_to_p05", "water_to_p25", "water_to_p50", "water_to_p75", "water_to_p95",
+    "o2_bar_p05", "o2_bar_p25", "o2_bar_p50", "o2_bar_p75", "o2_bar_p95", NULL};
+static const char *const need_ens_summary[] = {"kind", "name", "count", "fraction", NULL};
+static const char *const need_members[] = {"final_water_to", "outcome", NULL};
+
+/* ------------------------------------------------------------------ inputs */
+
+static int readable(const char *dir, const char *name)
 {
-    char datafile[4200], events[4200], outfile[4200], script[4200], expr[16384];
-    snprintf(datafile, sizeof datafile, "%s/%s", dir, data);
-    snprintf(events, sizeof events, "%s/events.csv", dir);
-    snprintf(outfile, sizeof outfile, "%s/%s.%s", dir, figure, fmt);
-    if (vl_gnuplot_find_script(script_name, script, sizeof script) != 0)
+    char p[4200];
+    snprintf(p, sizeof p, "%s/%s", dir, name);
+    return access(p, R_OK) == 0;
+}
+
+/* The header line of a CSV (first line not starting with '#') into buf. */
+static int header_of(const char *path, char *buf, size_t n, int *line, vl_status *st)
+{
+    FILE *f = fopen(path, "r");
+    if (!f)
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
+    int k = 0, rc = VL_ERR_INPUT;
+    while (fgets(buf, (int)n, f)) {
+        k++;
+        if (buf[0] == '#')
+            continue;
+        buf[strcspn(buf, "\r\n")] = '\0';
+        rc = VL_OK;
+        break;
+    }
+    /* at least one data row after the header */
+    char row[64];
+    int data = rc == VL_OK && fgets(row, sizeof row, f) != NULL;
+    fclose(f);
+    *line = k;
+    if (rc != VL_OK)
+        return vl_fail(st, VL_ERR_INPUT, path, 0, "no header line (not a volev output file?)");
+    if (!data)
+        return vl_fail(st, VL_ERR_INPUT, path, k + 1, "no data rows");
+    return VL_OK;
+}
+
+static int has_column(const char *header, const char *name)
+{
+    size_t n = strlen(name);
+    for (const char *p = header; *p;) {
+        size_t len = strcspn(p, ",");
+        if (len == n && strncmp(p, name, n) == 0)
+            return 1;
+        p += len;
+        if (*p == ',')
+            p++;
+    }
+    return 0;
+}
+
+/* path must hold every column of need (and extra, if not NULL), for figure `kind`. */
+static int check_columns(const char *path, const char *const *need, const char *const *extra,
+                         int kind, vl_status *st)
+{
+    static char header[1 << 16];
+    int line = 0;
+    int rc = header_of(path, header, sizeof header, &line, st);
+    if (rc)
+        return rc;
+    for (int pass = 0; pass < 2; pass++) {
+        const char *const *list = pass ? extra : need;
+        for (size_t i = 0; list && list[i]; i++)
+            if (!has_column(header, list[i]))
+                return vl_fail(st, VL_ERR_INPUT, path, line,
+                               "no column '%s' (the %s figure needs it)", list[i],
+                               kinds[kind].name);
+    }
+    return VL_OK;
+}
+
+/* ------------------------------------------------------------------ grid sweeps */
+
+typedef struct {
+    char key[2][128];
+    char scale[2][32];
+    int n;           /* axes found */
+    int grid;        /* all of them grid axes */
+} axes_t;
+
+/* The "# axis KEY grid SPACING FROM TO POINTS" lines of members.csv. */
+static int read_axes(const char *path, axes_t *ax, vl_status *st)
+{
+    memset(ax, 0, sizeof *ax);
+    ax->grid = 1;
+    FILE *f = fopen(path, "r");
+    if (!f)
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
+    char line[1024];
+    while (fgets(line, sizeof line, f) && line[0] == '#') {
+        char key[128], kind[32], spacing[32];
+        if (sscanf(line, "# axis %127s %31s %31s", key, kind, spacing) < 2)
+            continue;
+        if (ax->n < 2) {
+            snprintf(ax->key[ax->n], sizeof ax->key[0], "%s", key);
+            snprintf(ax->scale[ax->n], sizeof ax->scale[0], "%s",
+                     strcmp(kind, "grid") == 0 ? spacing : "linear");
+        }
+        if (strcmp(kind, "grid") != 0)
+            ax->grid = 0;
+        ax->n++;
+    }
+    fclose(f);
+    return VL_OK;
+}
+
+/* Habitable-zone limits as orbits (au) for the base scenario in dir, when the map's x
+ * axis is the orbit: the runaway greenhouse (Kopparapu et al. 2014, for the planet's
+ * mass) and the maximum greenhouse (Kopparapu et al. 2013) for the star at the end of
+ * the run: d = sqrt(L / L_sun / S_eff). "" if not applicable. */
+static void hz_lines(const char *dir, const char *xkey, char *out, size_t n)
+{
+    out[0] = '\0';
+    if (strcmp(xkey, "planet.orbit_au") != 0)
+        return;
+    char path[4200];
+    snprintf(path, sizeof path, "%s/scenario.resolved.cfg", dir);
+    vl_status st;
+    vl_scenario *sc = vl_scenario_load(path, NULL, 0, &st);
+    if (!sc)
+        return;
+    vl_star *s = vl_star_new(&sc->star, sc->run.start_s, sc->run.end_s, &st);
+    if (s) {
+        vl_star_state ss;
+        vl_star_eval(s, sc->run.end_s, &ss);
+        double l = ss.l_bol_w / VL_L_SUN;
+        double run = vl_hz_seff_runaway_2014(sc->planet.mass_kg / VL_M_EARTH, ss.teff_k);
+        double maxg = vl_hz_seff_2013(VL_HZ_MAX_GREENHOUSE, ss.teff_k);
+        snprintf(out, n, "runaway greenhouse=%.6g;maximum greenhouse=%.6g", sqrt(l / run),
+                 sqrt(l / maxg));
+        vl_star_free(s);
+    }
+    vl_scenario_free(sc);
+}
+
+/* ------------------------------------------------------------------ rendering */
+
+typedef struct {
+    const char *fmt;     /* png | pdf | svg */
+    const char *out;     /* -o FILE, or NULL */
+    const char *title;   /* --title TEXT, or "" (each script's default) */
+    int rendered;
+} job_t;
+
+static int render(job_t *j, int kind, const char *dir, const char *const *args, size_t nargs,
+                  size_t out_index, vl_status *st)
+{
+    char script[4200], outfile[4200];
+    if (vl_gnuplot_find_script(kinds[kind].script, script, sizeof script) != 0)
         return vl_fail(st, VL_ERR_TOOL, NULL, 0,
                        "cannot find plots/%s (set VOLEV_PLOTS_DIR to the plots folder)",
-                       script_name);
-    snprintf(expr, sizeof expr, "datafile='%s'; eventfile='%s'; outfile='%s'; fmt='%s'", datafile,
-             access(events, R_OK) == 0 ? events : "", outfile, fmt);
-    if (vl_gnuplot_run(script, expr, outfile, st) != VL_OK)
+                       kinds[kind].script);
+    if (j->out)
+        snprintf(outfile, sizeof outfile, "%s", j->out);
+    else
+        snprintf(outfile, sizeof outfile, "%s/%s.%s", dir, kinds[kind].name, j->fmt);
+    const char *a[12];
+    for (size_t i = 0; i < nargs && i < 12; i++)
+        a[i] = i == out_index ? outfile : args[i];
+    if (vl_gnuplot_call(script, a, nargs, st) != VL_OK) {
+        unlink(outfile); /* no half-written figure under its final name */
         return st->code;
+    }
     printf("%s\n", outfile);
+    j->rendered++;
     return VL_OK;
+}
+
+static int plot_run(job_t *j, int kind, const char *dir, vl_status *st)
+{
+    char data[4200], events[4200];
+    snprintf(data, sizeof data, "%s/%s", dir, kind == K_HISTORY ? "series.csv" : "balance.csv");
+    snprintf(events, sizeof events, "%s/events.csv", dir);
+    int rc = check_columns(data, kind == K_HISTORY ? need_series : need_balance, NULL, kind, st);
+    if (rc)
+        return rc;
+    if (kind == K_HISTORY) {
+        const char *args[] = {data, "", readable(dir, "events.csv") ? events : "", j->title};
+        return render(j, kind, dir, args, 4, 1, st);
+    }
+    const char *args[] = {data, "", j->title};
+    return render(j, kind, dir, args, 3, 1, st);
+}
+
+static int plot_ensemble(job_t *j, const char *dir, vl_status *st)
+{
+    char ser[4200], sum[4200];
+    snprintf(ser, sizeof ser, "%s/ensemble_series.csv", dir);
+    snprintf(sum, sizeof sum, "%s/ensemble_summary.csv", dir);
+    int rc = check_columns(ser, need_ens_series, NULL, K_ENSEMBLE, st);
+    if (!rc)
+        rc = check_columns(sum, need_ens_summary, NULL, K_ENSEMBLE, st);
+    if (rc)
+        return rc;
+    const char *args[] = {ser, sum, "", j->title};
+    return render(j, K_ENSEMBLE, dir, args, 4, 2, st);
+}
+
+static int plot_map(job_t *j, int kind, const char *dir, const axes_t *ax, vl_status *st)
+{
+    char mem[4200], hz[256];
+    snprintf(mem, sizeof mem, "%s/members.csv", dir);
+    const char *const keys[] = {ax->key[0], ax->key[1], NULL};
+    int rc = check_columns(mem, need_members, keys, kind, st);
+    if (rc)
+        return rc;
+    hz_lines(dir, ax->key[0], hz, sizeof hz);
+    const char *args[] = {mem, "", ax->key[0], ax->key[1], kind == K_REGIME ? "class" : "water",
+                          ax->scale[0], ax->scale[1], hz, j->title};
+    return render(j, kind, dir, args, 9, 1, st);
+}
+
+/* Two or three run folders: one comparison figure. */
+static int plot_comparison(job_t *j, char **dirs, int n, vl_status *st)
+{
+    static char series[3][4200], label[3][1024];
+    const char *args[8];
+    args[0] = "";
+    args[1] = j->title;
+    for (int r = 0; r < n; r++) {
+        snprintf(series[r], sizeof series[r], "%s/series.csv", dirs[r]);
+        int rc = check_columns(series[r], need_compare, NULL, K_COMPARISON, st);
+        if (rc)
+            return rc;
+        const char *slash = strrchr(dirs[r], '/');
+        snprintf(label[r], sizeof label[r], "%s", slash && slash[1] ? slash + 1 : dirs[r]);
+        args[2 + 2 * r] = series[r];
+        args[3 + 2 * r] = label[r];
+    }
+    char out[4200];
+    if (!j->out) {
+        snprintf(out, sizeof out, "comparison.%s", j->fmt);
+        j->out = out;
+    }
+    int rc = render(j, K_COMPARISON, ".", args, (size_t)(2 + 2 * n), 0, st);
+    j->out = NULL;
+    return rc;
+}
+
+static void list_kinds(void)
+{
+    printf("figure kinds (volev plot DIR... picks them from what the folders hold):\n");
+    for (int k = 0; k < NKIND; k++)
+        printf("  %-11s %s\n              script plots/%s\n", kinds[k].name, kinds[k].holds,
+               kinds[k].script);
+    printf("formats: png (screens), pdf and svg (vector, for papers); docs/figures.md\n");
 }
 
 int vl_cli_plot(int argc, char **argv)
 {
-    const char *dir = NULL, *fmt = "png";
+    const char *fmt = NULL, *out = NULL, *want = NULL, *title = "";
+    char *dirs[4];
+    int ndirs = 0;
     for (int i = 1; i < argc; i++) {
-        if (strcmp(argv[i], "--format") == 0 || strcmp(argv[i], "-f") == 0) {
+        const char *a = argv[i];
+        if (strcmp(a, "--list") == 0) {
+            list_kinds();
+            return VL_OK;
+        }
+        if (!strcmp(a, "--format") || !strcmp(a, "-f") || !strcmp(a, "-o") ||
+            !strcmp(a, "--kind") || !strcmp(a, "--title")) {
             if (i + 1 >= argc)
-                return vl_cli_usage_error(argv[0], "%s needs png, pdf or svg", argv[i]);
-            fmt = argv[++i];
-        } else if (argv[i][0] == '-') {
-            return vl_cli_usage_error(argv[0], "unknown option '%s'", argv[i]);
-        } else if (dir) {
-            return vl_cli_usage_error(argv[0], "more than one folder");
+                return vl_cli_usage_error(argv[0], "%s needs a value", a);
+            const char *v = argv[++i];
+            if (a[1] == 'o')
+                out = v;
+            else if (!strcmp(a, "--kind"))
+                want = v;
+            else if (!strcmp(a, "--title"))
+                title = v;
+            else
+                fmt = v;
+        } else if (a[0] == '-') {
+            return vl_cli_usage_error(argv[0], "unknown option '%s'", a);
+        } else if (ndirs < 4) {
+            dirs[ndirs++] = argv[i];
         } else {
-            dir = argv[i];
+            return vl_cli_usage_error(argv[0], "at most three folders (a comparison)");
         }
     }
-    if (!dir)
-        return vl_cli_usage_error(argv[0], "missing DIR (the output folder of a run)");
-    if (strcmp(fmt, "png") && strcmp(fmt, "pdf") && strcmp(fmt, "svg"))
+    if (ndirs == 0)
+        return vl_cli_usage_error(argv[0], "missing DIR (a run, balance or sweep folder); "
+                                           "'volev plot --list' names the figures");
+    if (ndirs > 3)
+        return vl_cli_usage_error(argv[0], "at most three folders (a comparison)");
+    /* the format: --format, or the extension of -o, which must agree */
+    const char *ext = out ? strrchr(out, '.') : NULL;
+    if (out && (!ext || (strcmp(ext, ".png") && strcmp(ext, ".pdf") && strcmp(ext, ".svg"))))
+        return vl_cli_usage_error(argv[0], "-o %s: the file must end in .png, .pdf or .svg", out);
+    if (fmt && strcmp(fmt, "png") && strcmp(fmt, "pdf") && strcmp(fmt, "svg"))
         return vl_cli_usage_error(argv[0], "unknown format '%s' (png, pdf or svg)", fmt);
-    if (strchr(dir, '\'') || strchr(dir, '\\'))
-        return vl_cli_usage_error(argv[0], "folder names with quotes or backslashes are not supported");
+    if (fmt && ext && strcmp(fmt, ext + 1) != 0)
+        return vl_cli_usage_error(argv[0], "--format %s disagrees with -o %s", fmt, out);
+    if (!fmt)
+        fmt = ext ? ext + 1 : "png";
+    int kind_wanted = -1;
+    if (want) {
+        for (int k = 0; k < NKIND; k++)
+            if (strcmp(want, kinds[k].name) == 0)
+                kind_wanted = k;
+        if (kind_wanted < 0)
+            return vl_cli_usage_error(argv[0], "unknown figure kind '%s' (volev plot --list)", want);
+    }
+    for (int d = 0; d < ndirs; d++)
+        if (strchr(dirs[d], '\n'))
+            return vl_cli_usage_error(argv[0], "folder names with line breaks are not supported");
 
-    static const struct {
-        const char *data, *script, *figure;
-    } kinds[] = {{"series.csv", "history.gp", "history"}, {"balance.csv", "balance.gp", "balance"}};
     vl_status st;
     vl_status_clear(&st);
-    int found = 0;
-    for (size_t k = 0; k < sizeof kinds / sizeof kinds[0] && st.code == VL_OK; k++) {
-        char data[4200];
-        snprintf(data, sizeof data, "%s/%s", dir, kinds[k].data);
-        if (access(data, R_OK) != 0)
-            continue;
-        found = 1;
-        render(dir, kinds[k].data, kinds[k].script, kinds[k].figure, fmt, &st);
+    job_t j = {fmt, out, title, 0};
+    if (ndirs > 1) {
+        if (kind_wanted >= 0 && kind_wanted != K_COMPARISON)
+            return vl_cli_usage_error(argv[0], "several folders make a comparison, not '%s'", want);
+        plot_comparison(&j, dirs, ndirs, &st);
+        return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
     }
-    if (!found && st.code == VL_OK)
+    const char *dir = dirs[0];
+    /* what the folder holds */
+    int avail[NKIND] = {0};
+    axes_t ax;
+    memset(&ax, 0, sizeof ax);
+    avail[K_HISTORY] = readable(dir, "series.csv");
+    avail[K_BALANCE] = readable(dir, "balance.csv");
+    avail[K_ENSEMBLE] = readable(dir, "ensemble_series.csv") && readable(dir, "ensemble_summary.csv");
+    if (readable(dir, "members.csv")) {
+        char mem[4200];
+        snprintf(mem, sizeof mem, "%s/members.csv", dir);
+        if (read_axes(mem, &ax, &st) != VL_OK)
+            return vl_cli_report(&st);
+        avail[K_REGIME] = avail[K_WATER] = ax.grid && ax.n == 2;
+    }
+    int navail = 0;
+    for (int k = 0; k < NKIND; k++)
+        navail += avail[k];
+    if (kind_wanted >= 0 && !avail[kind_wanted]) {
+        const char *why = kind_wanted == K_COMPARISON ? "give two or three run folders"
+                          : (kind_wanted == K_REGIME || kind_wanted == K_WATER) && readable(dir, "members.csv")
+                              ? "the map needs a grid sweep over exactly two axes"
+                              : "the folder lacks its input files (volev plot --list)";
+        vl_fail(&st, VL_ERR_INPUT, dir, 0, "no %s figure here: %s", want, why);
+        return vl_cli_report(&st);
+    }
+    if (navail == 0) {
         vl_fail(&st, VL_ERR_IO, dir, 0,
-                "nothing to plot: no series.csv (volev run) or balance.csv (volev balance) here");
+                "nothing to plot: no series.csv (volev run), balance.csv (volev balance) or "
+                "sweep files (volev sweep) here; volev plot --list");
+        return vl_cli_report(&st);
+    }
+    if (out && kind_wanted < 0 && navail > 1)
+        return vl_cli_usage_error(argv[0],
+                                  "%s holds several figures: choose one with --kind (volev plot --list)",
+                                  dir);
+    for (int k = 0; k < NKIND && st.code == VL_OK; k++) {
+        if (!avail[k] || (kind_wanted >= 0 && k != kind_wanted))
+            continue;
+        if (k == K_HISTORY || k == K_BALANCE)
+            plot_run(&j, k, dir, &st);
+        else if (k == K_ENSEMBLE)
+            plot_ensemble(&j, dir, &st);
+        else
+            plot_map(&j, k, dir, &ax, &st);
+    }
     return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
 }
