@@ -1,10 +1,20 @@
 #!/bin/sh
-# deps.sh -- make sure the Debian packages needed to build, test and render
-# volev are installed.  Quiet when everything is present.  As root, missing
-# packages are installed with apt-get; otherwise the command to run is printed.
+# deps.sh [--hardening] [--bench] -- make sure the Debian packages needed to build,
+# test and render volev are installed.  Quiet when everything is present.  As root,
+# missing packages are installed with apt-get; otherwise the command to run is printed.
+#   --hardening  also the fuzzing and leak-checking tools CI uses (clang with
+#                libFuzzer, valgrind): make fuzz, the valgrind stage of .ci/run
+#   --bench      also SciPy, for the side-by-side benchmark (bench/scipy)
 set -eu
 
 PACKAGES="gcc make pkg-config libgsl-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev"
+for opt in "$@"; do
+    case "$opt" in
+        --hardening) PACKAGES="$PACKAGES clang libclang-rt-14-dev valgrind" ;;
+        --bench) PACKAGES="$PACKAGES python3 python3-scipy" ;;
+        *) echo "usage: sh scripts/deps.sh [--hardening] [--bench]" >&2; exit 2 ;;
+    esac
+done
 
 if ! command -v dpkg-query >/dev/null 2>&1; then
     echo "deps.sh: dpkg-query not found (not a Debian-based system?)." >&2

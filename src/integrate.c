@@ -8,6 +8,7 @@
 
 #include <float.h>
 #include <pthread.h>
+#include <signal.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -18,6 +19,14 @@
 #include <gsl/gsl_odeiv2.h>
 
 #include "volev/units.h"
+
+/* A stop request from a signal handler (vl_integrate_request_stop). */
+static volatile sig_atomic_t stop_sig;
+
+void vl_integrate_request_stop(int sig) { stop_sig = sig ? sig : -1; }
+
+int vl_integrate_stop_signal(void) { return stop_sig; }
+
 
 typedef struct {
     const vl_model *m;
@@ -354,6 +363,11 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
             if (rc != GSL_SUCCESS || !all_finite(y, VL_NRES)) {
                 rc = vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "integration failed at age %.6g yr: %s",
                              t0 / VL_YR, rc != GSL_SUCCESS ? gsl_strerror(rc) : "non-finite state");
+                break;
+            }
+            if (stop_sig) {
+                rc = vl_fail(st, VL_ERR_STOPPED, NULL, 0, "stopped at age %.6g yr (signal %d)",
+                             t / VL_YR, (int)stop_sig);
                 break;
             }
             if (++r->stats->steps > rp->max_steps) {

@@ -186,15 +186,18 @@ static int row_cb(void *ctx, double t, const double *y, const double *dydt, cons
             env->ocean_kg / VL_TO_KG, env->p_surf_pa * bar, env->p_pa[VL_GAS_H2O] * bar,
             env->p_pa[VL_GAS_CO2] * bar, env->p_pa[VL_GAS_N2] * bar, env->p_pa[VL_GAS_O2] * bar,
             env->p_pa[VL_GAS_H2] * bar, env->instellation, env->s_eff, env->f_xuv,
-            env->star.l_bol_w / VL_L_SUN, env->f_strat, dydt[VL_R_SPACE_H], dydt[VL_R_SPACE_O]);
-    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d,%.10g", dydt[VL_R_SPACE_C],
-            dydt[VL_R_SPACE_N], env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3,
+            env->star.l_bol_w / VL_L_SUN, env->f_strat, clamp0(dydt[VL_R_SPACE_H]),
+            clamp0(dydt[VL_R_SPACE_O]));
+    fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d,%.10g", clamp0(dydt[VL_R_SPACE_C]),
+            clamp0(dydt[VL_R_SPACE_N]), env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3,
             env->r_mp_rp, env->lambda_h, env->esc_h_limit, ocean_co2(y, env));
     o->last_regime = env->regime;
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%.10g", clamp0(y[r]));
+    /* a flux reversed by the depletion ramp (restoring an integrator overshoot below
+     * zero, at the level of the tolerances) prints as 0: fluxes are one-way by name */
     for (size_t c = 0; c < o->m->ncolumns; c++)
-        fprintf(f, ",%.10g", columns[c]);
+        fprintf(f, ",%.10g", clamp0(columns[c]));
     if (fputc('\n', f) == EOF)
         return io_fail(st, o->tmp[F_SERIES]);
     return VL_OK;
@@ -253,15 +256,16 @@ static void summary(vl_output *o, const vl_run_stats *s)
         size_t len = strlen(name);
         /* a column "x_kg_s" integrates to "x_kg" */
         int tail = len > 5 && strcmp(name + len - 5, "_kg_s") == 0;
-        fprintf(f, "total_%.*s,%.10g,kg\n", (int)(tail ? len - 5 : len), name, s->channel_kg[c]);
+        fprintf(f, "total_%.*s,%.10g,kg\n", (int)(tail ? len - 5 : len), name,
+                clamp0(s->channel_kg[c]));
     }
     for (int el = 0; el < VL_NELEMENTS; el++) {
         double t0 = s->totals0[el], d = fabs(s->totals1[el] - t0);
         fprintf(f, "residual_%s,%.3e,relative\n", vl_element_name(el), t0 > 0.0 ? d / t0 : d);
     }
-    /* the one place raw masses show: rows and finals print overshoots below zero
-     * (integrator error, restored by the depletion ramp) as 0 */
-    fprintf(f, "min_reservoir_mass,%.10g,kg\n", s->min_mass_kg);
+    /* rows and finals print overshoots below zero (integrator error, restored by the
+     * depletion ramp) as 0; their largest depth, as a non-negative mass, is here */
+    fprintf(f, "reservoir_overshoot,%.10g,kg\n", s->min_mass_kg < 0.0 ? -s->min_mass_kg : 0.0);
     fprintf(f, "rhs_evaluations,%ld,count\n", s->rhs_calls);
     fprintf(f, "steps,%ld,count\n", s->steps);
     fprintf(f, "events,%ld,count\n", s->events);

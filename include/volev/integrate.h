@@ -33,4 +33,10 @@ typedef struct vl_run_sink {
 
 int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats, vl_status *st);
 
+/* Ask every running integration to stop at its next step (async-signal-safe: for a
+ * signal handler); they return VL_ERR_STOPPED. sig is remembered for the exit status. */
+void vl_integrate_request_stop(int sig);
+/* The signal of the stop request, 0 if none. */
+int vl_integrate_stop_signal(void);
+
 #endif

@@ -13,7 +13,8 @@ enum vl_code {
     VL_ERR_INPUT = 3,   /* bad scenario, override or data table */
     VL_ERR_NUMERIC = 4, /* integration failed (step underflow, non-finite state) */
     VL_ERR_IO = 5,      /* a file could not be read or written */
-    VL_ERR_TOOL = 6     /* an external program (gnuplot) is missing or failed */
+    VL_ERR_TOOL = 6,    /* an external program (gnuplot) is missing or failed */
+    VL_ERR_STOPPED = 7  /* stopped on request (a signal): the program exits 128 + signal */
 };
 
 #define VL_MSG_MAX 1024

@@ -13,6 +13,10 @@ int vl_cli_balance(int argc, char **argv);
 int vl_cli_sweep(int argc, char **argv);
 int vl_cli_compare(int argc, char **argv);
 
+/* SIGINT and SIGTERM ask running integrations to stop (vl_integrate_request_stop);
+ * vl_cli_report then returns 128 + signal. */
+void vl_cli_catch_signals(void);
+
 /* Print st to stderr as "volev: FILE:LINE: message" and return its code. */
 int vl_cli_report(const vl_status *st);
 /* Print a usage error to stderr and return VL_ERR_USAGE. */

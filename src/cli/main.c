@@ -1,9 +1,11 @@
 /* main.c: the volev command line: subcommand dispatch, --help, --version. */
+#include <signal.h>
 #include <stdarg.h>
 #include <stdio.h>
 #include <string.h>
 
 #include "cli.h"
+#include "volev/integrate.h"
 #include "volev/output.h"
 
 static const struct {
@@ -31,7 +33,8 @@ static void help(FILE *f)
     fprintf(f, "  volev --help | --version\n\n"
                "exit codes: 0 success, 1 internal error, 2 bad command line,\n"
                "  3 bad scenario or input data, 4 integration failed, 5 file I/O error,\n"
-               "  6 external program (gnuplot) missing or failed\n"
+               "  6 external program (gnuplot) missing or failed,\n"
+               "  128 + signal: stopped by SIGINT or SIGTERM (nothing incomplete left behind)\n"
                "See volev(1) and docs/model.md.\n");
 }
 
@@ -39,8 +42,26 @@ int vl_cli_report(const vl_status *st)
 {
     char buf[VL_MSG_MAX + VL_PATH_MAX + 32];
     vl_status_format(st, buf, sizeof buf);
+    if (st->code == VL_ERR_STOPPED) {
+        int sig = vl_integrate_stop_signal();
+        fprintf(stderr, "volev: interrupted (%s): %s; no output written\n",
+                sig == SIGINT ? "SIGINT" : sig == SIGTERM ? "SIGTERM" : "signal", buf);
+        return sig > 0 ? 128 + sig : 130;
+    }
     fprintf(stderr, "volev: %s\n", buf);
     return st->code;
+}
+
+static void on_stop(int sig) { vl_integrate_request_stop(sig); }
+
+void vl_cli_catch_signals(void)
+{
+    struct sigaction sa;
+    memset(&sa, 0, sizeof sa);
+    sa.sa_handler = on_stop;
+    sigemptyset(&sa.sa_mask);
+    sigaction(SIGINT, &sa, NULL);
+    sigaction(SIGTERM, &sa, NULL);
 }
 
 int vl_cli_usage_error(const char *cmd, const char *fmt, ...)

@@ -59,6 +59,7 @@ int vl_cli_run(int argc, char **argv)
             out = vl_output_open(dir, m, &st);
     }
     if (out) {
+        vl_cli_catch_signals();
         vl_run_sink sink = vl_output_sink(out);
         vl_run_stats stats;
         if (vl_integrate(m, &sink, &stats, &st) == VL_OK) {

@@ -30,6 +30,7 @@
 #endif
 
 #include "cli.h"
+#include "volev/integrate.h"
 #include "volev/output.h"
 #include "volev/sweep.h"
 
@@ -38,7 +39,12 @@
 
 static volatile sig_atomic_t stop_signal;
 
-static void on_signal(int sig) { stop_signal = sig; }
+/* Stop taking members, and stop the running ones (they are not recorded). */
+static void on_signal(int sig)
+{
+    stop_signal = sig;
+    vl_integrate_request_stop(sig);
+}
 
 /* Compact record of a finished member (the reason only when it failed). */
 typedef struct {
@@ -56,7 +62,7 @@ typedef struct {
     record *rec;
     long done;              /* members with a record */
     FILE *journal;          /* rank 0 */
-    int io_error;
+    volatile int io_error;
     char io_msg[VL_MSG_MAX];
     int progress;           /* print a progress line (terminal, not --quiet) */
     double t_start, t_last;
@@ -682,15 +688,17 @@ int vl_cli_sweep(int argc, char **argv)
         long sent = 0;
 #pragma omp parallel for schedule(dynamic, 1) num_threads(threads) reduction(+ : sent)
         for (long j = 0; j < (mine ? nmine : 0); j++) {
-            if (stop_signal)
+            if (stop_signal || c.io_error) /* an unwritable journal: stop taking members */
                 continue;
             vl_member *m = malloc(sizeof *m);
             if (!m)
                 continue;
             vl_sweep_run_member(sw, mine[j], m);
+            if (m->status != VL_ERR_STOPPED) { /* a member cut short is run again on resume */
 #pragma omp critical(volev_sweep_out)
-            finished(&c, m);
-            sent++;
+                finished(&c, m);
+                sent++;
+            }
             free(m);
         }
 #ifdef VL_MPI
