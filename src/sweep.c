@@ -288,6 +288,7 @@ static int read_group(vl_sweep *sw, const config_setting_t *g, vl_status *st)
     if (set[1]) {
         if ((rc = get_long(&r, set[1], "sweep.members", 1, MAX_MEMBERS, &sw->n)))
             return rc;
+        sw->members_line = line_of(set[1]);
     } else if (!sw->catalogue_mode && sw->design != VL_DESIGN_GRID) {
         return fail_line(&r, sw->line, "sweep: design \"%s\" needs members = N",
                          design_names[sw->design]);
@@ -429,6 +430,41 @@ static int hash_file(const char *path, uint64_t *h, vl_status *st)
     return bad ? vl_fail(st, VL_ERR_IO, path, 0, "read error") : VL_OK;
 }
 
+/* The loader's message without its "--set KEY: " prefix: in a sweep the overrides
+ * come from the sweep group or the catalogue, not from the command line. */
+static const char *without_set(const char *msg)
+{
+    if (strncmp(msg, "--set ", 6) != 0)
+        return msg;
+    const char *colon = strstr(msg, ": ");
+    return colon ? colon + 2 : msg;
+}
+
+/* Every candidate's values must load onto the base scenario: a key that does not
+ * exist or a value out of its bounds is an error at the catalogue's line, before any
+ * member runs (docs/catalogue.md). */
+static int probe_catalogue(const vl_sweep *sw, vl_status *st)
+{
+    for (size_t r = 0; r < sw->cat->nrows; r++) {
+        char **ov = calloc(sw->cat->ncols + 1, sizeof *ov);
+        if (!ov)
+            return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        size_t n = vl_catalogue_overrides(sw->cat, r, ov);
+        if (n == (size_t)-1) {
+            free(ov);
+            return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        }
+        vl_status e;
+        vl_scenario *probe = vl_scenario_load(sw->path, (const char *const *)ov, n, &e);
+        vl_sweep_free_overrides(ov, n);
+        if (!probe)
+            return vl_fail(st, e.code, sw->cat_path, sw->cat->lines[r], "candidate '%s': %s",
+                           sw->cat->names[r], without_set(e.msg));
+        vl_scenario_free(probe);
+    }
+    return VL_OK;
+}
+
 static int finish_setup(vl_sweep *sw, const vl_scenario *base, vl_status *st)
 {
     int rc;
@@ -436,12 +472,18 @@ static int finish_setup(vl_sweep *sw, const vl_scenario *base, vl_status *st)
         sw->cat = vl_catalogue_read(sw->cat_path, st);
         if (!sw->cat)
             return st->code;
+        if ((rc = probe_catalogue(sw, st)))
+            return rc;
         long per = sw->nwaters ? (long)sw->nwaters : 1;
         sw->members = (long)sw->cat->nrows * per;
     } else {
         sw->members = vl_design_size(sw->design, sw->axes, sw->k, sw->n, st);
-        if (sw->members < 0)
-            return st->code;
+        if (sw->members < 0) { /* at the axis the library names, else at members */
+            char msg[VL_MSG_MAX];
+            snprintf(msg, sizeof msg, "%s", st->msg);
+            int line = st->line > 0 ? st->line : sw->members_line ? sw->members_line : sw->line;
+            return vl_fail(st, st->code, sw->sweep_path, line, "%s", msg);
+        }
         if (sw->members > MAX_MEMBERS)
             return vl_fail(st, VL_ERR_INPUT, sw->sweep_path, sw->line,
                            "sweep: %ld members, more than the %ld allowed", sw->members, MAX_MEMBERS);
@@ -485,7 +527,7 @@ static int finish_setup(vl_sweep *sw, const vl_scenario *base, vl_status *st)
         vl_scenario *probe = vl_scenario_load(sw->path, one, 1, &tmp);
         if (!probe)
             return vl_fail(st, VL_ERR_INPUT, sw->sweep_path, x->line, "sweep.axes: axis '%s' at %g: %s",
-                           x->key, v, tmp.msg);
+                           x->key, v, without_set(tmp.msg));
         vl_scenario_free(probe);
     }
     return VL_OK;

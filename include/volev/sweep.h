@@ -56,6 +56,7 @@ typedef struct vl_sweep {
     char path[1024];         /* base scenario, as given */
     char sweep_path[1024];   /* file holding the sweep group (the base scenario) */
     int line;                /* line of the sweep group */
+    int members_line;        /* line of sweep.members (0 if absent) */
     int catalogue_mode;      /* members from a catalogue instead of a design */
     int design;              /* enum vl_design_kind (design mode) */
     long n;                  /* sweep.members: samples (saltelli: base samples) */

@@ -4,6 +4,7 @@
  * written to DIR/balance.csv for plots/balance.gp -- the figure that shows where a
  * runaway begins. */
 #include <errno.h>
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -27,7 +28,7 @@ static int take_age(int *argc, char **argv, double *age_yr, int *given)
         if (i + 1 >= *argc)
             return vl_cli_usage_error(argv[0], "--age-yr needs a stellar age in years");
         *age_yr = strtod(argv[i + 1], &end);
-        if (*end || !(*age_yr > 0.0))
+        if (*end || !(*age_yr > 0.0) || !isfinite(*age_yr))
             return vl_cli_usage_error(argv[0], "--age-yr '%s': expected a positive number of years",
                                       argv[i + 1]);
         *given = 1;

@@ -5,6 +5,7 @@
 #include "args.h"
 #include "cli.h"
 #include "volev/model.h"
+#include "volev/sweep.h"
 
 int vl_cli_validate(int argc, char **argv)
 {
@@ -16,7 +17,13 @@ int vl_cli_validate(int argc, char **argv)
         vl_cli_args_free(&a);
         return VL_ERR_USAGE;
     }
-    if (m) {
+    if (m && sc->sweep_line) { /* the sweep group is part of the file: check it too */
+        vl_sweep *sw = vl_sweep_load(a.scenario, &st);
+        if (sw)
+            printf("# sweep: %ld members (volev sweep %s)\n", sw->members, a.scenario);
+        vl_sweep_free(sw);
+    }
+    if (m && st.code == VL_OK) {
         vl_scenario_print(sc, stdout);
         printf("# %s: valid\n", a.scenario);
     }
