@@ -2,12 +2,19 @@
 # `make demo` installs missing packages (as root), builds, runs the demo and renders it.
 # Switches: SAN=1 (ASan+UBSan), WERROR=1, V=1 (show commands), MPI=1 (an MPI build of
 # `volev sweep` with mpicc, in build-mpi/ unless BUILD is given), PREFIX, DESTDIR.
+# `make fuzz` builds the libFuzzer targets with clang in build-fuzz/ (scripts/fuzz.sh runs
+# them); it calls this Makefile again with FUZZ=1, which is not meant to be set by hand.
 
 VERSION := 0.1.0
 PREFIX ?= /usr/local
 DESTDIR ?=
 CC ?= cc
-ifeq ($(MPI),1)
+FUZZ_CC ?= clang
+ifeq ($(FUZZ),1)
+override CC := $(FUZZ_CC)
+override BUILD := build-fuzz
+CFLAGS ?= -O1 -g
+else ifeq ($(MPI),1)
 CC := mpicc
 BUILD ?= build-mpi
 else
@@ -22,9 +29,12 @@ WARN := -Wall -Wextra -Wpedantic -Wshadow -Wconversion -Wstrict-prototypes \
 CFLAGS ?= -O2 -g
 CFLAGS += -std=c17 $(WARN) -ffp-contract=off -Iinclude \
           -D_POSIX_C_SOURCE=200809L -DVL_VERSION='"$(VERSION)"' -DVL_GIT_REV='"$(GIT_REV)"'
-# members of a sweep run on threads (OpenMP: GCC's libgomp)
+# members of a sweep run on threads (OpenMP: GCC's libgomp); the library itself has no
+# OpenMP, so the fuzz build (clang, library and fuzz targets only) does without it
+ifneq ($(FUZZ),1)
 CFLAGS += -fopenmp
 LDFLAGS += -fopenmp
+endif
 ifeq ($(MPI),1)
 CFLAGS += -DVL_MPI
 endif
@@ -35,6 +45,11 @@ ifeq ($(SAN),1)
 CFLAGS += -fsanitize=address,undefined -fno-omit-frame-pointer -fno-sanitize-recover=all
 LDFLAGS += -fsanitize=address,undefined
 endif
+ifeq ($(FUZZ),1)
+CFLAGS += -fsanitize=fuzzer-no-link,address,undefined -fno-omit-frame-pointer \
+          -fno-sanitize-recover=all
+LDFLAGS += -fsanitize=address,undefined
+endif
 
 PKG_CFLAGS = $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
 PKG_LIBS = $(shell pkg-config --libs $(PKGS) 2>/dev/null)
@@ -43,11 +58,14 @@ CHECK_LIBS = $(shell pkg-config --libs check 2>/dev/null)
 
 LIB_SRC := $(wildcard src/*.c) $(wildcard src/processes/*.c)
 CLI_SRC := $(wildcard src/cli/*.c)
-TEST_SRC := $(wildcard tests/*.c)
+TEST_SRC := $(wildcard tests/*.c) tests/fuzz/exercise.c
+FUZZ_TARGETS := scenario track catalogue
+FUZZ_OBJ := $(FUZZ_TARGETS:%=$(BUILD)/tests/fuzz/fuzz_%.o) $(BUILD)/tests/fuzz/exercise.o
+FUZZ_BIN := $(FUZZ_TARGETS:%=build-fuzz/fuzz_%)
 LIB_OBJ := $(LIB_SRC:%.c=$(BUILD)/%.o)
 CLI_OBJ := $(CLI_SRC:%.c=$(BUILD)/%.o)
 TEST_OBJ := $(TEST_SRC:%.c=$(BUILD)/%.o)
-DEPS := $(LIB_OBJ:.o=.d) $(CLI_OBJ:.o=.d) $(TEST_OBJ:.o=.d)
+DEPS := $(LIB_OBJ:.o=.d) $(CLI_OBJ:.o=.d) $(TEST_OBJ:.o=.d) $(FUZZ_OBJ:.o=.d)
 
 LIB := $(BUILD)/libvolev.a
 BIN := $(BUILD)/volev
@@ -59,7 +77,7 @@ else
 Q := @
 endif
 
-.PHONY: all check demo deps install uninstall clean bench docs validation figures
+.PHONY: all check demo deps install uninstall clean bench docs validation figures fuzz fuzz-dict
 all: $(BIN)
 
 $(BUILD)/%.o: %.c
@@ -105,6 +123,25 @@ ifneq ($(MPICC),)
 endif
 	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) $(MPI_ENV) CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
 
+# libFuzzer targets (clang; library objects with -fsanitize=fuzzer-no-link,address,undefined,
+# the targets linked with -fsanitize=fuzzer): build-fuzz/fuzz_{scenario,track,catalogue}.
+# scripts/fuzz.sh builds and runs them; tests/fuzz/ holds the targets, seeds and regressions.
+fuzz:
+	@$(MAKE) --no-print-directory FUZZ=1 $(FUZZ_BIN)
+
+ifeq ($(FUZZ),1)
+.SECONDARY: $(FUZZ_OBJ)
+$(BUILD)/fuzz_%: $(BUILD)/tests/fuzz/fuzz_%.o $(BUILD)/tests/fuzz/exercise.o $(LIB)
+	@$(if $(Q),echo "  LD  $@")
+	$(Q)$(CC) $(LDFLAGS) -fsanitize=fuzzer $^ $(PKG_LIBS) -lm -o $@
+endif
+
+# The scenario fuzzer's dictionary (keys, group names, choices) from the parameter tables.
+fuzz-dict: $(BIN)
+	@sh scripts/fuzz-dict.sh $(BIN) > tests/fuzz/scenario.dict.tmp
+	@mv tests/fuzz/scenario.dict.tmp tests/fuzz/scenario.dict
+	@echo "  GEN tests/fuzz/scenario.dict"
+
 # Missing Debian packages: installed when root, otherwise the exact command is printed.
 deps:
 	@sh scripts/deps.sh
@@ -129,10 +166,14 @@ validation: $(BIN)
 figures: $(BIN)
 	@sh scripts/figures.sh $(BIN)
 
+# Timings (docs/performance.md); the SciPy side by side only where a Python with SciPy
+# exists (sh scripts/deps.sh --bench).
 bench: $(BIN)
 	@sh bench/run.sh $(BIN)
 	@if command -v mpicc >/dev/null 2>&1; then $(MAKE) --no-print-directory MPI=1 BUILD=build-mpi SAN= build-mpi/volev; fi
 	@sh bench/sweep.sh $(BIN) 1000 build-mpi/volev
+	@if sh bench/scipy/compare.sh --have-scipy; then sh bench/scipy/compare.sh $(BIN); \
+	 else echo "bench: SciPy comparison skipped: no Python with SciPy (sh scripts/deps.sh --bench)"; fi
 
 install: $(BIN)
 	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/share/man/man1 \
@@ -147,6 +188,6 @@ uninstall:
 	rm -rf $(DESTDIR)$(PREFIX)/share/volev
 
 clean:
-	rm -rf $(BUILD) build-san build-mpi demo-out
+	rm -rf $(BUILD) build-san build-mpi build-fuzz demo-out
 
 -include $(DEPS)

@@ -22,48 +22,29 @@ case "$bin" in
         ;;
 esac
 cd "$(dirname "$0")/.." || exit 2
+. bench/lib.sh
 
 target_ms=20
 # case = tag, scenario, optional override (KEY=VALUE), separated by '|'
+# every bundled single-run scenario on its default climate (the column) and on hz_fit
 cases="earth|scenarios/earth.cfg|
 earth-hz_fit|scenarios/earth.cfg|climate.model=hz_fit
+venus|scenarios/venus.cfg|
+venus-hz_fit|scenarios/venus.cfg|climate.model=hz_fit
+mars|scenarios/mars.cfg|
+mars-hz_fit|scenarios/mars.cfg|climate.model=hz_fit
 demo|scenarios/demo.cfg|
-demo-hz_fit|scenarios/demo.cfg|climate.model=hz_fit"
+demo-hz_fit|scenarios/demo.cfg|climate.model=hz_fit
+demo-dry|scenarios/demo-dry.cfg|
+demo-dry-hz_fit|scenarios/demo-dry.cfg|climate.model=hz_fit"
 
 work=$(mktemp -d "${TMPDIR:-/tmp}/volev-bench.XXXXXX") || exit 2
 trap 'rm -rf "$work"' EXIT
 trap 'exit 130' INT TERM
 
-# value of NAME in a summary.csv (comment lines, header "name,value,unit", rows)
-summary_value() {
-    awk -F, -v key="$2" '
-        /^#/ { next }
-        !seen_header { seen_header = 1; next }
-        { name = $1; gsub(/^[ \t]+|[ \t\r]+$/, "", name) }
-        name == key { v = $2; gsub(/^[ \t]+|[ \t\r]+$/, "", v); print v; exit }
-    ' "$1"
-}
-
-# process wall clock in ns when date supports %N (GNU), else empty
-now_ns() {
-    t=$(date +%s%N 2>/dev/null)
-    case "$t" in *N*|'') echo "" ;; *) echo "$t" ;; esac
-}
-
-# median / min / max of the numbers in file $1 (one per line), scaled by $2
-stats_of() {
-    sort -g "$1" | awk -v k="$2" '
-        { v[NR] = $1 * k }
-        END {
-            if (NR == 0) { print "- - -"; exit }
-            m = (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2
-            printf "%.2f %.2f %.2f\n", m, v[1], v[NR]
-        }'
-}
-
-echo "volev benchmark: $bin, $n runs per scenario, target ${target_ms} ms per run"
+echo "volev benchmark: $bin, $n runs per scenario, target ${target_ms} ms per run (load $(load1) at the start)"
 echo "(solver time = median of wall_time_s in summary.csv; process time = whole 'volev run' incl. start-up and output)"
-printf '%-14s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' \
+printf '%-16s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' \
     case solver_ms min_ms max_ms process_ms steps rhs_evals nodes table_ms result
 
 old_ifs=$IFS
@@ -115,7 +96,7 @@ for line in $cases; do
     done
 
     if [ -n "$err" ]; then
-        printf '%-14s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' "$tag" - - - - - - - - "FAIL ($err)"
+        printf '%-16s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' "$tag" - - - - - - - - "FAIL ($err)"
         continue
     fi
     # shellcheck disable=SC2046  # three numbers, split on purpose
@@ -128,7 +109,7 @@ for line in $cases; do
     fi
     result=$(awk -v m="$med" -v t="$target_ms" 'BEGIN { print (m + 0 <= t + 0) ? "PASS" : "FAIL" }')
     table_ms=$(awk -v b="${build:-0}" 'BEGIN { printf "%.1f", b * 1000 }')
-    printf '%-14s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' \
+    printf '%-16s %10s %9s %9s %10s %8s %10s %6s %9s  %s\n' \
         "$tag" "$med" "$lo" "$hi" "$proc" "${steps:--}" "${rhs:--}" "${nodes:--}" "$table_ms" "$result"
 done
 IFS=$old_ifs

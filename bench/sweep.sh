@@ -5,7 +5,8 @@
 # (0.1-10 TO, log-uniform), the XUV heating efficiency (0.05-0.3) and the orbit
 # (0.95-1.10 au). It is swept with 1 thread, 2 threads and, given an MPI build, 2 ranks
 # of 1 thread; prints members per second, the projected time for 10 000 members and the
-# peak memory per member, and checks that the three members.csv files are identical.
+# peak memory of the whole process (bench/ensemble.sh measures the marginal memory of a
+# member), and checks that the three members.csv files are identical.
 # Target (issue: ensembles): 10 000 Earth-like members in under 5 minutes on 2 cores.
 # Informational: exits 0 whatever the timings (2 for bad arguments, 1 if outputs differ).
 set -u
@@ -20,33 +21,17 @@ case "$n" in ''|*[!0-9]*) usage ;; esac
 mpi=""
 [ "$#" -eq 3 ] && [ -x "$3" ] && mpi=$(abs "$3")
 cd "$(dirname "$0")/.." || exit 2
+. bench/lib.sh
 
 work=$(mktemp -d "${TMPDIR:-/tmp}/volev-sweep-bench.XXXXXX") || exit 2
 trap 'rm -rf "$work"' EXIT
 trap 'exit 130' INT TERM
 
 scen="$work/earth-ensemble.cfg"
-sed 's/^run:$/climate: { model = "hz_fit"; };\nrun:/' scenarios/earth.cfg |
-    sed 's/^  end_yr = 4.57e9;.*/  end_yr = 4.57e9;\n  log_points = 40;\n  linear_points = 20;/' > "$scen"
-cat >> "$scen" <<CFG
-
-sweep:
-{
-  design = "latin_hypercube";
-  members = $n;
-  seed = 4242;
-  axes = (
-    { key = "inventory.surface_water_to"; distribution = "log_uniform"; low = 0.1; high = 10.0; },
-    { key = "processes.hydrogen_escape.xuv_efficiency"; distribution = "uniform"; low = 0.05; high = 0.3; },
-    { key = "planet.orbit_au"; distribution = "uniform"; low = 0.95; high = 1.10; }
-  );
-};
-CFG
-grep -q 'model = "hz_fit"' "$scen" && grep -q 'log_points = 40' "$scen" || {
+ensemble_scenario "$scen" "$n" || {
     echo "bench: could not derive the ensemble scenario from scenarios/earth.cfg" >&2; exit 2; }
 
 now() { date +%s.%N; }
-peak_kb() { awk -F: '/Maximum resident set size/ { gsub(/ /, "", $2); print $2 }' "$1"; }
 
 # run TAG COMMAND...: time the sweep into $work/TAG, print one line
 run() {
@@ -60,9 +45,9 @@ run() {
     fi
     awk -v tag="$tag" -v n="$n" -v t0="$t0" -v t1="$t1" -v kb="$(peak_kb "$work/$tag.time")" 'BEGIN {
         s = t1 - t0; r = n / s
-        printf "%-10s %7d members %8.2f s %8.1f members/s  10000 members: %6.1f s (%s)  peak RSS %d MB, %.1f kB/member\n",
+        printf "%-10s %7d members %8.2f s %8.1f members/s  10000 members: %6.1f s (%s)  peak RSS %.1f MB\n",
             tag, n, s, r, 10000 / r, (10000 / r <= 300 ? "within 5 min" : "over 5 min"),
-            kb / 1024, kb / n }'
+            kb / 1024 }'
 }
 
 echo "Earth-like ensemble: $n members (scenarios/earth.cfg, hz_fit climate, 60 output ages)"

@@ -15,6 +15,7 @@
 
 #include "volev/params.h"
 #include "volev/scenario.h"
+#include "volev/text.h"
 
 /* Short column names and the scenario keys they stand for; their values are numbers. */
 static const struct {
@@ -114,60 +115,27 @@ static const char *field_label(const parser *p, size_t k, char *buf, size_t n)
 
 /* ---------------------------------------------------------------- text checks */
 
-/* Length of the well-formed UTF-8 sequence at s (n >= 1 bytes left), 0 if there is none
- * (overlong forms, surrogates and code points above U+10FFFF are ill-formed). */
-static size_t utf8_len(const unsigned char *s, size_t n)
-{
-    unsigned char c = s[0], lo = 0x80, hi = 0xBF;
-    size_t k;
-    if (c < 0x80)
-        return 1;
-    if (c >= 0xC2 && c <= 0xDF)
-        k = 2;
-    else if (c == 0xE0)
-        k = 3, lo = 0xA0;
-    else if ((c >= 0xE1 && c <= 0xEC) || c == 0xEE || c == 0xEF)
-        k = 3;
-    else if (c == 0xED)
-        k = 3, hi = 0x9F;
-    else if (c == 0xF0)
-        k = 4, lo = 0x90;
-    else if (c >= 0xF1 && c <= 0xF3)
-        k = 4;
-    else if (c == 0xF4)
-        k = 4, hi = 0x8F;
-    else
-        return 0;
-    if (n < k || s[1] < lo || s[1] > hi)
-        return 0;
-    for (size_t j = 2; j < k; j++)
-        if (s[j] < 0x80 || s[j] > 0xBF)
-            return 0;
-    return k;
-}
-
 /* The line (end stripped) is UTF-8 text: no NUL, no control character but TAB. */
 static int check_text(const parser *p, const char *s, size_t len, vl_status *st)
 {
-    const unsigned char *u = (const unsigned char *)s;
-    for (size_t i = 0; i < len;) {
-        unsigned char c = u[i];
-        if (c == 0)
-            return fail(p, st, "NUL byte at byte %zu of the line: binary data, not CSV text",
-                        i + 1);
+    int fault;
+    size_t i = vl_text_scan(s, len, &fault);
+    unsigned char c = i < len ? (unsigned char)s[i] : 0;
+    switch (fault) {
+    case VL_TEXT_OK: return VL_OK;
+    case VL_TEXT_NUL:
+        return fail(p, st, "NUL byte at byte %zu of the line: binary data, not CSV text",
+                    i + 1);
+    case VL_TEXT_CONTROL:
         if (c == '\r')
             return fail(p, st, "carriage return at byte %zu of the line (only CRLF line ends "
                         "are accepted)", i + 1);
-        if ((c < 0x20 && c != '\t') || c == 0x7F)
-            return fail(p, st, "control character 0x%02X at byte %zu of the line: binary data, "
-                        "not CSV text", c, i + 1);
-        size_t k = utf8_len(u + i, len - i);
-        if (k == 0)
-            return fail(p, st, "byte 0x%02X at byte %zu of the line is not UTF-8 text "
-                        "(binary data?)", c, i + 1);
-        i += k;
+        return fail(p, st, "control character 0x%02X at byte %zu of the line: binary data, "
+                    "not CSV text", c, i + 1);
+    default:
+        return fail(p, st, "byte 0x%02X at byte %zu of the line is not UTF-8 text "
+                    "(binary data?)", c, i + 1);
     }
-    return VL_OK;
 }
 
 /* A whole-field finite decimal number: digits, sign, point, exponent and nothing else

@@ -464,8 +464,9 @@ static int check_tables(vl_status *st)
 
 /* ------------------------------------------------------------------ reading the file */
 
-/* The whole file into a new NUL-terminated buffer. */
-static int slurp(const char *path, char **text, vl_status *st)
+/* The whole file into a new buffer (NUL-terminated; *len bytes before the terminator,
+ * which may include NULs: read_text rejects them). */
+static int slurp(const char *path, char **text, size_t *len_out, vl_status *st)
 {
     FILE *f = fopen(path, "rb");
     if (!f)
@@ -485,13 +486,13 @@ static int slurp(const char *path, char **text, vl_status *st)
     fclose(f);
     if (!buf)
         return vl_fail(st, VL_ERR_INTERNAL, path, 0, "out of memory reading the scenario");
-    buf[len] = '\0';
-    if (bad || strlen(buf) != len) {
+    if (bad) {
         free(buf);
-        return vl_fail(st, VL_ERR_IO, path, 0, bad ? "cannot read the scenario"
-                                                   : "the scenario contains a NUL byte");
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario");
     }
+    buf[len] = '\0';
     *text = buf;
+    *len_out = len;
     return VL_OK;
 }
 
@@ -539,38 +540,72 @@ static int check_number(const char **s, int line, const char *path, vl_status *s
                    (int)(c - t), t, (int)(c - t), t);
 }
 
-/* Lexical pass over the text for what libconfig would accept but mishandle silently:
- * oversized integers, and directives (@include: a scenario is one self-contained file). */
-static int prescan(const char *s, const char *path, vl_status *st)
+/* 1 if the file format's grammar allows a string literal after the token prev (its
+ * punctuation character, '"' for a string; '\0' at the start) when the innermost open
+ * bracket is open ('\0' at the top level): where a value starts, or another string
+ * continues one. */
+static int string_allowed(char prev, char open)
 {
+    return prev == '=' || prev == ':' || prev == '(' || prev == '[' || prev == '"' ||
+           (prev == ',' && (open == '(' || open == '['));
+}
+
+/* Lexical pass over the text for what libconfig would accept but mishandle silently:
+ * oversized integers, and directives (@include: a scenario is one self-contained file).
+ * It also defuses a leak of libconfig 1.5: when its parser stops at a string literal
+ * that the grammar does not allow there, the string's buffer is lost. Such a string's
+ * opening quote is replaced by '`', which starts no token, so the parser stops at the
+ * same place with the same "syntax error" and nothing to lose; the scan ends there. */
+static int prescan(char *text, const char *path, vl_status *st)
+{
+    const char *s = text;
     int line = 1;
-    while (*s) {
+    char prev = '\0';                 /* last token: punctuation, '"', 'w' word or number */
+    size_t depth = 0;                  /* brackets open */
+    char *open = malloc(strlen(text) + 1); /* the open brackets, innermost last */
+    if (!open)
+        return vl_fail(st, VL_ERR_INTERNAL, path, 0, "out of memory reading the scenario");
+    int rc = VL_OK;
+    while (*s && rc == VL_OK) {
         unsigned char c = (unsigned char)*s;
         if (c == '\n') {
             line++;
+            s++;
+        } else if (isspace(c)) {
             s++;
         } else if (c == '#' || (c == '/' && s[1] == '/')) {
             s += strcspn(s, "\n");
         } else if (c == '/' && s[1] == '*') {
             s = skip_block(s, &line);
         } else if (c == '"') {
+            if (!string_allowed(prev, depth ? open[depth - 1] : '\0')) {
+                text[s - text] = '`';
+                break;
+            }
             s = skip_string(s, &line);
+            prev = '"';
         } else if (c == '@') {
-            return vl_fail(st, VL_ERR_INPUT, path, line,
-                           "directives such as @include are not supported: a scenario is one file");
+            rc = vl_fail(st, VL_ERR_INPUT, path, line,
+                         "directives such as @include are not supported: a scenario is one file");
         } else if (isalpha(c) || c == '*' || c == '_') {
             while (isalnum((unsigned char)*s) || *s == '_' || *s == '*' || *s == '-')
                 s++;
+            prev = 'w';
         } else if (isdigit(c) || ((c == '-' || c == '+' || c == '.') && isdigit((unsigned char)s[1])) ||
                    ((c == '-' || c == '+') && s[1] == '.' && isdigit((unsigned char)s[2]))) {
-            int rc = check_number(&s, line, path, st);
-            if (rc)
-                return rc;
+            rc = check_number(&s, line, path, st);
+            prev = 'w';
         } else {
+            if (c == '(' || c == '[' || c == '{')
+                open[depth++] = (char)c;
+            else if ((c == ')' || c == ']' || c == '}') && depth > 0)
+                depth--;
+            prev = (char)c;
             s++;
         }
     }
-    return VL_OK;
+    free(open);
+    return rc;
 }
 
 /* How a libconfig setting type reads in a message. */
@@ -760,28 +795,57 @@ static int folder_of(const char *path, char *out, size_t n, vl_status *st)
     return VL_OK;
 }
 
-/* Parses the file and walks every setting in it. */
-static int read_file(vl_scenario *sc, const char *path, vl_status *st)
+/* Parses len bytes of scenario text (NUL and control bytes refused: binary data) and
+ * walks every setting in it; relative paths resolve against dir; messages name sc->path. */
+static int read_text(vl_scenario *sc, const char *text, size_t len, const char *dir,
+                     vl_status *st)
 {
-    loader ld = {sc, st, path, ""};
-    char *text = NULL;
-    int rc = folder_of(path, ld.dir, sizeof ld.dir, st);
-    if (!rc)
-        rc = slurp(path, &text, st);
-    if (!rc)
-        rc = prescan(text, path, st);
+    loader ld = {sc, st, sc->path, ""};
+    snprintf(ld.dir, sizeof ld.dir, "%s", dir);
+    int line = 1;
+    for (size_t i = 0; i < len; i++) {
+        unsigned char c = (unsigned char)text[i];
+        if (c == '\n')
+            line += line < INT_MAX;
+        else if (c == 0)
+            return vl_fail(st, VL_ERR_INPUT, sc->path, line,
+                           "the scenario contains a NUL byte (binary data, not a text file)");
+        else if ((c < 0x20 && !isspace(c)) || c == 0x7F)
+            return vl_fail(st, VL_ERR_INPUT, sc->path, line,
+                           "binary data, not a text file: control character 0x%02X", c);
+    }
+    char *copy = malloc(len + 1);
+    if (!copy)
+        return vl_fail(st, VL_ERR_INTERNAL, sc->path, 0, "out of memory reading the scenario");
+    memcpy(copy, text, len);
+    copy[len] = '\0';
+    int rc = prescan(copy, sc->path, st);
     if (rc) {
-        free(text);
+        free(copy);
         return rc;
     }
     config_t cfg;
     config_init(&cfg);
-    if (!config_read_string(&cfg, text))
-        rc = vl_fail(st, VL_ERR_INPUT, path, config_error_line(&cfg), "%s",
+    if (!config_read_string(&cfg, copy))
+        rc = vl_fail(st, VL_ERR_INPUT, sc->path, config_error_line(&cfg), "%s",
                      config_error_text(&cfg));
     else
         rc = walk_group(&ld, config_root_setting(&cfg), "");
     config_destroy(&cfg);
+    free(copy);
+    return rc;
+}
+
+/* The file at sc->path, relative paths in it resolved against its folder. */
+static int read_file(vl_scenario *sc, vl_status *st)
+{
+    char dir[VL_PATH_MAX], *text = NULL;
+    size_t len = 0;
+    int rc = folder_of(sc->path, dir, sizeof dir, st);
+    if (!rc)
+        rc = slurp(sc->path, &text, &len, st);
+    if (!rc)
+        rc = read_text(sc, text, len, dir, st);
     free(text);
     return rc;
 }
@@ -1008,22 +1072,42 @@ static int cross_check(const vl_scenario *sc, vl_status *st)
     return rc;
 }
 
-/* Defaults, then the file, then the overrides in order, then the cross-checks. */
-vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, size_t n_overrides,
-                              vl_status *st)
+/* check_tables once per process (the tables are constant): its result is kept. */
+static vl_status tables_status;
+static pthread_once_t tables_once = PTHREAD_ONCE_INIT;
+static void check_tables_once(void)
+{
+    vl_status_clear(&tables_status);
+    check_tables(&tables_status);
+}
+
+/* The table check, a scenario of defaults and its identity (path or label); NULL with
+ * st filled on error. */
+static vl_scenario *begin(const char *label, vl_status *st)
 {
     vl_status_clear(st);
-    int rc = check_tables(st);
-    if (rc)
-        return NULL;
-    vl_scenario *sc = vl_scenario_new();
-    if (!sc) {
-        vl_fail(st, VL_ERR_INTERNAL, path, 0, "out of memory");
+    pthread_once(&tables_once, check_tables_once);
+    if (tables_status.code != VL_OK) {
+        *st = tables_status;
         return NULL;
     }
-    rc = set_identity(sc, path, st);
-    if (!rc)
-        rc = read_file(sc, path, st);
+    vl_scenario *sc = vl_scenario_new();
+    if (!sc) {
+        vl_fail(st, VL_ERR_INTERNAL, label, 0, "out of memory");
+        return NULL;
+    }
+    if (set_identity(sc, label, st)) {
+        vl_scenario_free(sc);
+        return NULL;
+    }
+    return sc;
+}
+
+/* After the text was read with result rc: the overrides in order, then the
+ * cross-checks; frees sc and returns NULL on any error. */
+static vl_scenario *finish(vl_scenario *sc, int rc, const char *const *overrides,
+                           size_t n_overrides, vl_status *st)
+{
     for (size_t k = 0; !rc && k < n_overrides; k++)
         rc = vl_scenario_override(sc, overrides[k], st);
     if (!rc)
@@ -1033,6 +1117,35 @@ vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, si
         return NULL;
     }
     return sc;
+}
+
+/* Defaults, then the file, then the overrides in order, then the cross-checks. */
+vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, size_t n_overrides,
+                              vl_status *st)
+{
+    vl_scenario *sc = begin(path, st);
+    return sc ? finish(sc, read_file(sc, st), overrides, n_overrides, st) : NULL;
+}
+
+/* The same from memory: defaults, the text (relative paths against the current folder),
+ * the cross-checks. */
+vl_scenario *vl_scenario_parse(const char *text, size_t len, const char *label, vl_status *st)
+{
+    if (!label)
+        label = "(text)";
+    if (!text && len > 0) {
+        vl_status_clear(st);
+        vl_fail(st, VL_ERR_INTERNAL, label, 0, "vl_scenario_parse: no text");
+        return NULL;
+    }
+    vl_scenario *sc = begin(label, st);
+    if (!sc)
+        return NULL;
+    char cwd[VL_PATH_MAX];
+    int rc = current_dir(cwd, sizeof cwd, st);
+    if (!rc)
+        rc = read_text(sc, text ? text : "", len, cwd, st);
+    return finish(sc, rc, NULL, 0, st);
 }
 
 /* ------------------------------------------------------------------ writing */
@@ -1150,23 +1263,20 @@ static void write_row(const vl_scenario *sc, FILE *out, size_t i, const char *na
 /* 1 if no row before i has a full key beginning with group. */
 static int first_in_group(size_t i, const char *group)
 {
-    char key[KEY_MAX];
     size_t len = strlen(group);
-    for (size_t j = 0; j < i; j++) {
-        param_key(j, key, sizeof key);
-        if (strncmp(key, group, len) == 0)
+    for (size_t j = 0; j < i; j++)
+        if (strncmp(cached_key(j), group, len) == 0)
             return 0;
-    }
     return 1;
 }
 
 /* Every row under prefix ("" or "a.b."), subgroups nested where they first appear. */
 static void write_group(const vl_scenario *sc, FILE *out, const char *prefix, int depth)
 {
-    char key[KEY_MAX], sub[KEY_MAX];
+    char sub[KEY_MAX];
     size_t plen = strlen(prefix);
     for (size_t i = 0, n = vl_param_count(); i < n; i++) {
-        param_key(i, key, sizeof key);
+        const char *key = cached_key(i);
         if (strncmp(key, prefix, plen) != 0)
             continue;
         const char *rest = key + plen, *dot = strchr(rest, '.');

@@ -166,6 +166,15 @@ void vl_scenario_free(vl_scenario *sc);
 vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, size_t n_overrides,
                               vl_status *st);
 
+/* The same checks on scenario text held in memory (len bytes; a NUL or control byte
+ * among them is an input error: binary data), without overrides: defaults, the text,
+ * the cross-checks. label (NULL: "(text)") stands for the file name in messages and in
+ * sc->path / sc->name; relative paths in the text (star.track_file) resolve against the
+ * current folder. On error returns NULL and fills st. A top-level `sweep` group is
+ * accepted and its line kept, but src/sweep.c reads it from sc->path, which here names
+ * no file. */
+vl_scenario *vl_scenario_parse(const char *text, size_t len, const char *label, vl_status *st);
+
 /* Apply one "PATH=VALUE" override to sc. */
 int vl_scenario_override(vl_scenario *sc, const char *assignment, vl_status *st);
 

@@ -1,0 +1,21 @@
+/* fuzz_catalogue.c: libFuzzer target for the candidate-catalogue CSV (vl_catalogue_parse) and the
+ * cheap steps after it (tests/fuzz/exercise.c). Built by `make fuzz`, run by
+ * scripts/fuzz.sh. A broken promise aborts, so libFuzzer keeps the input as a crash. */
+#include <stddef.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+
+#include "exercise.h"
+
+int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size);
+
+int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
+{
+    const char *why = vl_fuzz_catalogue(data, size);
+    if (why) {
+        fprintf(stderr, "fuzz_catalogue: %s\n", why);
+        abort();
+    }
+    return 0;
+}
