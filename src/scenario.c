@@ -482,13 +482,13 @@ static int slurp(const char *path, char **text, size_t *len_out, vl_status *st)
             free(buf);
         buf = bigger;
     }
-    int bad = ferror(f);
+    int bad = ferror(f), why = errno;
     fclose(f);
     if (!buf)
         return vl_fail(st, VL_ERR_INTERNAL, path, 0, "out of memory reading the scenario");
     if (bad) {
         free(buf);
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario");
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario: %s", strerror(why));
     }
     buf[len] = '\0';
     *text = buf;

@@ -20,7 +20,7 @@ int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
         if (strcmp(s, "--set") == 0 || strcmp(s, "-s") == 0) {
             if (i + 1 >= argc)
                 return vl_cli_usage_error(cmd, "%s needs KEY=VALUE", s);
-            if (!strchr(argv[i + 1], '='))
+            if (!strchr(argv[i + 1], '=') || argv[i + 1][0] == '=')
                 return vl_cli_usage_error(cmd, "%s '%s': expected KEY=VALUE", s, argv[i + 1]);
             a->sets[a->nsets++] = argv[++i];
         } else if (allow_out && (strcmp(s, "-o") == 0 || strcmp(s, "--output") == 0)) {
