@@ -109,11 +109,13 @@ awk -v rec="$record" '
         }
         b = sxw / sxx; a = mw - b * mn; d = sxp / sxx; cc = mp - d * mn; bc = sxc / sxx; ac = mc - bc * mn
         for (i = 1; i <= NR; i++) {
-            r = w[i] - (a + b * n[i]); if (r < 0) r = -r; if (r / w[i] > dw) dw = r / w[i]
-            r = c[i] - (ac + bc * n[i]); if (r < 0) r = -r; if (r / c[i] > dc) dc = r / c[i]
+            r = w[i] - (a + b * n[i]); if (r < 0) r = -r; if (r > dw) dw = r
+            r = c[i] - (ac + bc * n[i]); if (r < 0) r = -r; if (r > dc) dc = r
+            q = w[i] / n[i]; if (i == 1 || q < qlo) qlo = q; if (i == 1 || q > qhi) qhi = q
         }
-        printf "wall     = %.3f s + %.3f ms x members (largest deviation of a point from the line: %.1f %%)\n", a, 1000 * b, 100 * dw
-        printf "CPU      = %.3f s + %.3f ms x members (largest deviation of a point from the line: %.1f %%)\n", ac, 1000 * bc, 100 * dc
+        printf "wall     = %.3f s + %.3f ms x members (largest residual %.2f s)\n", a, 1000 * b, dw
+        printf "CPU      = %.3f s + %.3f ms x members (largest residual %.2f s)\n", ac, 1000 * bc, dc
+        printf "wall per member: %.2f-%.2f ms over the sizes (%.1f %% apart)\n", 1000 * qlo, 1000 * qhi, 100 * (qhi / qlo - 1)
         printf "peak RSS = %.2f MB + %.0f bytes x members\n", cc / 1024, 1024 * d
         printf "driver record of a finished member (sizeof(record), src/cli/sweep.c): %s bytes\n", rec
     }' "$work/points"
