@@ -123,8 +123,10 @@ static int get_choice(const rd *r, const config_setting_t *s, const char *what,
 }
 
 #define SPACING_CHOICES "linear|log"
-static const char *const dist_names[] = {"uniform", "log_uniform", "normal", "truncated_normal"};
-static const char *const design_names[] = {"grid", "random", "latin_hypercube", "sobol", "saltelli"};
+const char *const vl_sweep_design_name[] = {"grid", "random", "latin_hypercube", "sobol",
+                                            "saltelli"};
+const char *const vl_sweep_spacing_name[] = {"linear", "log"};
+const char *const vl_sweep_dist_name[] = {"uniform", "log_uniform", "normal", "truncated_normal"};
 #define DIST_CHOICES "uniform|log_uniform|normal|truncated_normal"
 
 /* One axis group; design decides which keys belong. */
@@ -198,7 +200,7 @@ static int read_axis(const rd *r, const config_setting_t *g, int design, vl_axis
     for (int k = 2; k <= 5; k++) {
         if (uses[a->dist][k - 2] && !have[k])
             return fail_line(r, line, "sweep.axes: axis '%s' (%s) needs %s", a->key,
-                             dist_names[a->dist], samp_keys[k]);
+                             vl_sweep_dist_name[a->dist], samp_keys[k]);
         if (!uses[a->dist][k - 2] && have[k])
             return fail_line(r, line, "sweep.axes: axis '%s': %s has no meaning for this distribution",
                              a->key, samp_keys[k]);
@@ -291,7 +293,7 @@ static int read_group(vl_sweep *sw, const config_setting_t *g, vl_status *st)
         sw->members_line = line_of(set[1]);
     } else if (!sw->catalogue_mode && sw->design != VL_DESIGN_GRID) {
         return fail_line(&r, sw->line, "sweep: design \"%s\" needs members = N",
-                         design_names[sw->design]);
+                         vl_sweep_design_name[sw->design]);
     }
     if (set[2]) {
         if ((rc = get_long(&r, set[2], "sweep.seed", 0, 4294967295L, &v)))

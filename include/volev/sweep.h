@@ -52,6 +52,12 @@ enum vl_outcome_class {
 };
 extern const char *const vl_class_name[VL_NCLASS];
 
+/* Names of the designs (enum vl_design_kind), grid spacings (enum vl_spacing) and
+ * distributions (enum vl_dist), as written in the sweep group. */
+extern const char *const vl_sweep_design_name[];
+extern const char *const vl_sweep_spacing_name[];
+extern const char *const vl_sweep_dist_name[];
+
 typedef struct vl_sweep {
     char path[1024];         /* base scenario, as given */
     char sweep_path[1024];   /* file holding the sweep group (the base scenario) */

@@ -291,22 +291,19 @@ static int out_close(outfile *o, vl_status *st)
 
 static void header_lines(const sweep_ctx *c, FILE *f)
 {
-    static const char *const names[] = {"grid", "random", "latin_hypercube", "sobol", "saltelli"};
     fprintf(f, "# volev %s\n", vl_version());
     fprintf(f, "# sweep hash %s of %s: %s, %ld members\n", c->sw->hash, c->sw->path,
-            c->sw->catalogue_mode ? "catalogue" : names[c->sw->design], c->sw->members);
+            c->sw->catalogue_mode ? "catalogue" : vl_sweep_design_name[c->sw->design], c->sw->members);
 }
 
 /* "# axis KEY grid SPACING FROM TO POINTS" or "# axis KEY DISTRIBUTION P1 P2": how each
  * axis varied (the figures read it: docs/figures.md). */
 static void axis_lines(const vl_sweep *sw, FILE *f)
 {
-    static const char *const spacing[] = {"linear", "log"};
-    static const char *const dist[] = {"uniform", "log_uniform", "normal", "truncated_normal"};
     for (size_t a = 0; a < sw->k; a++) {
         const vl_axis *x = &sw->axes[a];
         if (sw->design == VL_DESIGN_GRID)
-            fprintf(f, "# axis %s grid %s %.17g %.17g %ld\n", x->key, spacing[x->spacing], x->from,
+            fprintf(f, "# axis %s grid %s %.17g %.17g %ld\n", x->key, vl_sweep_spacing_name[x->spacing], x->from,
                     x->to, x->points);
         else if (x->dist == VL_DIST_NORMAL)
             fprintf(f, "# axis %s normal %.17g %.17g\n", x->key, x->mean, x->sd);
@@ -314,7 +311,7 @@ static void axis_lines(const vl_sweep *sw, FILE *f)
             fprintf(f, "# axis %s truncated_normal %.17g %.17g %.17g %.17g\n", x->key, x->mean,
                     x->sd, x->low, x->high);
         else
-            fprintf(f, "# axis %s %s %.17g %.17g\n", x->key, dist[x->dist], x->low, x->high);
+            fprintf(f, "# axis %s %s %.17g %.17g\n", x->key, vl_sweep_dist_name[x->dist], x->low, x->high);
     }
 }
 
