@@ -56,7 +56,8 @@ PKG_LIBS = $(shell pkg-config --libs $(PKGS) 2>/dev/null)
 CHECK_CFLAGS = $(shell pkg-config --cflags check 2>/dev/null)
 CHECK_LIBS = $(shell pkg-config --libs check 2>/dev/null)
 
-LIB_SRC := $(wildcard src/*.c) $(wildcard src/processes/*.c)
+# the library: every layer folder of src/ but the program's (src/cli)
+LIB_SRC := $(filter-out src/cli/%,$(wildcard src/*/*.c src/*/*/*.c))
 CLI_SRC := $(wildcard src/cli/*.c)
 TEST_SRC := $(wildcard tests/*.c) tests/fuzz/exercise.c
 FUZZ_TARGETS := scenario track catalogue
@@ -94,7 +95,7 @@ $(BUILD)/tests/%.o: tests/%.c
 $(BUILD)/gitrev.txt: FORCE
 	@mkdir -p $(BUILD)
 	@echo "$(GIT_REV)" | cmp -s - $@ || echo "$(GIT_REV)" > $@
-$(BUILD)/src/output.o: $(BUILD)/gitrev.txt
+$(BUILD)/src/output/output.o: $(BUILD)/gitrev.txt
 FORCE:
 
 $(LIB): $(LIB_OBJ)

@@ -1,4 +1,4 @@
-/* test_catalogue.c: the planet-catalogue reader (src/catalogue.c, docs/catalogue.md):
+/* test_catalogue.c: the planet-catalogue reader (src/input/catalogue.c, docs/catalogue.md):
  * a valid catalogue with every feature of the format, the override strings, loading
  * every candidate of tests/data/catalogue/candidates.csv onto scenarios/earth.cfg, and
  * one malformed input per error, each read both from memory and from a file. All
@@ -306,7 +306,7 @@ END_TEST
 
 START_TEST(test_empty)
 {
-    /* Line numbers and messages: src/catalogue.c, finish(). */
+    /* Line numbers and messages: src/input/catalogue.c, finish(). */
     expect_fail("", 0, "no header line");
     expect_fail("# only a comment\n\n   \n\t# another\n", 0, "no header line");
     expect_fail("# header only\nname,orbit_au\r\n# and a comment\n\n", 2, "no candidates");

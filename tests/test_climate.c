@@ -1,5 +1,5 @@
-/* test_climate.c: water saturation (src/water.c) and the hz_fit climate
- * (src/climate.c, src/climate_hzfit.c).
+/* test_climate.c: water saturation (src/physics/water.c) and the hz_fit climate
+ * (src/physics/climate.c, src/physics/climate_hzfit.c).
  * Tags: [C] computed from the stated formula; [V] read in the cited source;
  * [S] transcription agreed by several sources (science spec 3b). */
 #include <math.h>
@@ -15,7 +15,7 @@
 #define EARTH_AREA (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH)
 #define CO2_REF_PA 28.37            /* 2.837e-4 bar: 280 ppmv x 1.01325 bar (common practice) */
 
-/* An Earth scenario with the climate defaults of src/params_core.c. */
+/* An Earth scenario with the climate defaults of src/input/params_core.c. */
 static void earth_scenario(vl_scenario *sc)
 {
     memset(sc, 0, sizeof *sc);

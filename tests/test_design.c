@@ -1,4 +1,4 @@
-/* test_design.c: ensemble designs and Sobol indices (src/design.c, src/sobol.c).
+/* test_design.c: ensemble designs and Sobol indices (src/ensembles/design.c, src/ensembles/sobol.c).
  * Tags: [C] computed from the stated formula; [V] read in the cited source. */
 #include <limits.h>
 #include <math.h>

@@ -1,4 +1,4 @@
-/* test_impacts.c: impact erosion and volatile delivery (src/processes/impacts.c) against
+/* test_impacts.c: impact erosion and volatile delivery (src/physics/processes/impacts.c) against
  * the tangent-plane law of Schlichting, Sari & Yalinewich 2015 (Icarus 247:81), the
  * analytic rate history N(t) = N0 exp(-(t - t0)/tau) + N_bg, and the element ledger. */
 #include <stdio.h>

@@ -1,5 +1,5 @@
 /* test_nonthermal.c: ion pickup, sputtering, photochemical escape and polar outflow
- * (src/processes/nonthermal.c) against the present-day rates of science.md section 7:
+ * (src/physics/processes/nonthermal.c) against the present-day rates of science.md section 7:
  * reference rates reproduced, the scaling laws exact, magnetic shielding and polar
  * outflow, non-negative columns, element conservation, present Mars's total. */
 #include <stdlib.h>

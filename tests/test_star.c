@@ -1,4 +1,4 @@
-/* test_star.c: stellar tracks, XUV, Lyman-alpha, wind and track files (src/star.c).
+/* test_star.c: stellar tracks, XUV, Lyman-alpha, wind and track files (src/physics/star.c).
  * Tags: [C] computed from the stated formula; [V] read in the cited source. */
 #include <math.h>
 #include <stdio.h>
@@ -13,7 +13,7 @@
 #define GYR (1.0e9 * VL_YR)
 #define MYR (1.0e6 * VL_YR)
 
-/* The present Sun with the scenario defaults of src/params_core.c. */
+/* The present Sun with the scenario defaults of src/input/params_core.c. */
 static vl_star_params sun_params(void)
 {
     vl_star_params p;

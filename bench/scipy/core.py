@@ -5,9 +5,9 @@ The configuration is bench/scipy/core.cfg: an Earth-like planet on the Sun's ana
 track (Gough 1981) with the solar XUV history (Ribas et al. 2005), the hz_fit climate,
 and five processes, in volev's registry order: hydrogen_escape, photolysis,
 oxygen_sink, outgassing, weathering. Everything volev computes for them on the way is
-transcribed here operation by operation from the C sources (src/model.c, src/flux.c,
-src/star.c, src/interior.c, src/ocean.c, src/climate.c, src/climate_hzfit.c,
-src/water.c, src/upper.c and the five process files), in the same order, so that the
+transcribed here operation by operation from the C sources (src/engine/model.c, src/engine/flux.c,
+src/physics/star.c, src/physics/interior.c, src/physics/ocean.c, src/physics/climate.c, src/physics/climate_hzfit.c,
+src/physics/water.c, src/physics/upper.c and the five process files), in the same order, so that the
 right-hand side agrees with volev's to rounding:
 
   environment: star (luminosity, Teff, XUV), orbit-averaged fluxes, radiogenic heat
@@ -18,13 +18,13 @@ right-hand side agrees with volev's to rounding:
   heights, thermosphere-base density) for the Jeans limit;
   escape: least of the diffusion, Jeans and energy limits with the hydrodynamic blend,
   and the deuterium fractionation blend;
-  fluxes: the depletion ramp of src/flux.c on every outflow, deuterium carried with
+  fluxes: the depletion ramp of src/engine/flux.c on every outflow, deuterium carried with
   hydrogen, the balanced photolysis reaction.
 
 The state is volev's whole 23-reservoir vector (reservoirs no core process touches
 stay at zero), so the error norm of the solver runs over the same components with the
 same weights: atol_i = run.abs_tolerance_kg x floor_i / 1e3 kg, rtol = run.rel_tolerance
-(src/integrate.c passes floor/1e3 as the absolute-tolerance scale of GSL's scaled
+(src/engine/integrate.c passes floor/1e3 as the absolute-tolerance scale of GSL's scaled
 control). Parameter values are read from the resolved scenario volev writes
 (scenario.resolved.cfg), in file units times the same SI factors volev uses, so both
 programs start from bit-identical inputs.
@@ -147,7 +147,7 @@ def element_fraction_h(r):
 GAS_H2O, GAS_CO2, GAS_N2, GAS_O2, GAS_H2 = range(5)
 GAS_MOLAR = [MOLAR["H2O"], MOLAR["CO2"], MOLAR["N2"], MOLAR["O2"], MOLAR["H2"]]
 
-# hz_fit climate (src/climate_hzfit.c)
+# hz_fit climate (src/physics/climate_hzfit.c)
 K2013_RUNAWAY = (1.0385, 1.2456e-4, 1.4612e-8, -7.6345e-12, -1.7511e-15)
 K2013_MOIST = (1.0146, 8.1884e-5, 1.9394e-9, -4.3618e-12, -6.8260e-16)
 K2014_MASS = (0.1, 1.0, 5.0)
@@ -311,7 +311,7 @@ def pos(v):
 
 
 def ramp_for(r, m_kg, demand):
-    """The depletion ramp of src/flux.c."""
+    """The depletion ramp of src/engine/flux.c."""
     band = max(FLOOR[r], abs(demand) * DRAIN_TIME_S)
     x = m_kg / band
     return 1.0 if x >= 1.0 else (x * (2.0 - x) if x > 0.0 else 2.0 * x)
@@ -335,7 +335,7 @@ def henry(t):
 
 
 class Ocean:
-    """The ocean-atmosphere CO2 split of src/ocean.c."""
+    """The ocean-atmosphere CO2 split of src/physics/ocean.c."""
 
     def __init__(self, ocean_m3, t_k, other_kg, other_mol, pa_per_kg):
         c0 = henry(OCEAN_T_REF_K) * PCO2_REF_PA
@@ -477,7 +477,7 @@ class Core:
                 y[d] = y[r] * element_fraction_h(r) * p.dh0 * AW_D / AW_H
         return y
 
-    # -- output ages (output_times in src/integrate.c)
+    # -- output ages (output_times in src/engine/integrate.c)
     def output_times(self):
         p = self.p
         t = [p.start]
@@ -656,7 +656,7 @@ class Core:
         e.esc_d_frac = s_d * f_dl + (1.0 - s_d) * f_cap
         e.esc_water_share = e.f_strat / f_t if f_t > 0.0 else 0.0
 
-    # -- flux API (src/flux.c)
+    # -- flux API (src/engine/flux.c)
     @staticmethod
     def move(y, dydt, frm, to, kg_s, f_d=1.0):
         rate = kg_s * ramp_for(frm, y[frm], kg_s)
@@ -763,7 +763,7 @@ class Core:
         return self.rates(t, y.tolist())
 
     def jac(self, t, y):
-        """volev's Jacobian (jac in src/integrate.c): forward differences with increments
+        """volev's Jacobian (jac in src/engine/integrate.c): forward differences with increments
         sqrt(eps) max(|y_j|, floor_j); the space columns, read by no process, are zero."""
         y = y.tolist()
         self.calls += 1

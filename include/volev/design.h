@@ -1,7 +1,7 @@
 /* design.h: ensemble designs (grids, random and Latin-hypercube samples, Sobol
  * sequences, the Saltelli design) and variance-based sensitivity (Sobol indices by
  * the Saltelli and Jansen estimators, with bootstrap intervals). Pure computation:
- * no files, no printing. Implementations: src/design.c, src/sobol.c. */
+ * no files, no printing. Implementations: src/ensembles/design.c, src/ensembles/sobol.c. */
 #ifndef VOLEV_DESIGN_H
 #define VOLEV_DESIGN_H
 

@@ -1,5 +1,5 @@
-/* process.h: a physical process is a plug-in. Each file in src/processes exports
- * one constant descriptor, listed once in src/processes/processes.def. */
+/* process.h: a physical process is a plug-in. Each file in src/physics/processes exports
+ * one constant descriptor, listed once in src/physics/processes/processes.def. */
 #ifndef VOLEV_PROCESS_H
 #define VOLEV_PROCESS_H
 

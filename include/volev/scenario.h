@@ -171,7 +171,7 @@ vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, si
  * the cross-checks. label (NULL: "(text)") stands for the file name in messages and in
  * sc->path / sc->name; relative paths in the text (star.track_file) resolve against the
  * current folder. On error returns NULL and fills st. A top-level `sweep` group is
- * accepted and its line kept, but src/sweep.c reads it from sc->path, which here names
+ * accepted and its line kept, but src/ensembles/sweep.c reads it from sc->path, which here names
  * no file. */
 vl_scenario *vl_scenario_parse(const char *text, size_t len, const char *label, vl_status *st);
 

@@ -1,5 +1,5 @@
 /* sweep.c: `volev sweep SCENARIO [-o DIR] [-j THREADS] [--quiet]`: run the members of the
- * scenario's sweep group (src/sweep.c) on threads (OpenMP) and, in a `make MPI=1` build,
+ * scenario's sweep group (src/ensembles/sweep.c) on threads (OpenMP) and, in a `make MPI=1` build,
  * on MPI ranks; write members.csv, ensemble_summary.csv, ensemble_series.csv and, for a
  * saltelli design, sensitivity.csv (docs/ensembles.md).
  *

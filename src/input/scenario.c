@@ -746,7 +746,7 @@ static int visit(loader *ld, const config_setting_t *s, const char *full, const 
         if (!grp)
             return fail_at(ld->st, &(where){ld->path, line, NULL},
                            "'sweep' must be a group: sweep = { ... };");
-        ld->sc->sweep_line = line; /* the ensemble settings: src/sweep.c reads them */
+        ld->sc->sweep_line = line; /* the ensemble settings: src/ensembles/sweep.c reads them */
         return VL_OK;
     }
     if (is_group(full))

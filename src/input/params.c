@@ -15,7 +15,7 @@
  * list, so the two cannot drift apart; the loader still checks them against each other). */
 static const char *const proc_prefix[] = {
 #define VL_PROCESS(name) "processes." #name ".",
-#include "processes/processes.def"
+#include "../physics/processes/processes.def"
 #undef VL_PROCESS
 };
 #define N_PREFIX (sizeof proc_prefix / sizeof proc_prefix[0])
