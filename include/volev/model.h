@@ -21,6 +21,10 @@ struct vl_model {
     size_t *col_base;          /* owned; first column of each process (registry order) */
     const char **col_name;     /* owned array of borrowed names */
     size_t *col_proc;          /* owned; process index of each column */
+    size_t nenabled;           /* enabled processes */
+    size_t *sum_order;         /* owned; the enabled processes' registry indices sorted by
+                                  name: their tendencies are added up in this order, so the
+                                  total does not depend on the registry's order */
     /* cache of the ocean-atmosphere CO2 split, one entry per pass (the Jacobian's
      * perturbations of reservoirs that do not touch it reuse it); a per-model cache,
      * not shared between threads */

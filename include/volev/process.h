@@ -40,7 +40,8 @@ typedef struct vl_process {
     .params_size = sizeof(param_type), .columns = (column_names),                      \
     .ncolumns = sizeof(column_names) / sizeof((column_names)[0])
 
-/* The registry, in processes.def order. */
+/* The registry, in processes.def order (at most VL_MAX_PROCESSES). */
+#define VL_MAX_PROCESSES 64
 extern const vl_process *const vl_processes[];
 extern const size_t vl_nprocesses;
 

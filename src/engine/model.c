@@ -32,6 +32,24 @@ static int check_xuv_source(const vl_scenario *sc, const vl_star *star, vl_statu
     return VL_OK;
 }
 
+/* m->sum_order: the enabled processes' registry indices in the order of their names
+ * (insertion sort: a few tens of entries). */
+static void sort_by_name(const vl_scenario *sc, vl_model *m)
+{
+    size_t n = 0;
+    for (size_t i = 0; i < vl_nprocesses; i++)
+        if (sc->proc[i].enabled)
+            m->sum_order[n++] = i;
+    for (size_t i = 1; i < n; i++)
+        for (size_t j = i; j > 0 && strcmp(vl_processes[m->sum_order[j - 1]]->name,
+                                           vl_processes[m->sum_order[j]]->name) > 0; j--) {
+            size_t t = m->sum_order[j];
+            m->sum_order[j] = m->sum_order[j - 1];
+            m->sum_order[j - 1] = t;
+        }
+    m->nenabled = n;
+}
+
 vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
 {
     vl_model *m = calloc(1, sizeof *m);
@@ -57,7 +75,8 @@ vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
     m->col_base = calloc(vl_nprocesses, sizeof *m->col_base);
     m->col_name = calloc(n ? n : 1, sizeof *m->col_name);
     m->col_proc = calloc(n ? n : 1, sizeof *m->col_proc);
-    if (!m->col_base || !m->col_name || !m->col_proc) {
+    m->sum_order = calloc(vl_nprocesses, sizeof *m->sum_order);
+    if (!m->col_base || !m->col_name || !m->col_proc || !m->sum_order) {
         vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
         goto fail;
     }
@@ -71,6 +90,7 @@ vl_model *vl_model_new(const vl_scenario *sc, vl_status *st)
             m->col_proc[n] = i;
         }
     }
+    sort_by_name(sc, m);
     return m;
 fail:
     vl_model_free(m);
@@ -86,6 +106,7 @@ void vl_model_free(vl_model *m)
     free(m->col_base);
     free(m->col_name);
     free(m->col_proc);
+    free(m->sum_order);
     free(m);
 }
 
@@ -214,14 +235,20 @@ void vl_model_rhs(const vl_model *m, double t_s, const double *y, int regime, do
     vl_env local;
     vl_env *e = env ? env : &local;
     vl_model_env(m, t_s, y, regime, e);
-    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
     if (columns)
         memset(columns, 0, m->ncolumns * sizeof columns[0]);
-    vl_flux fx = {y, dydt, columns, 0};
-    for (size_t i = 0; i < vl_nprocesses; i++) {
-        if (!m->sc->proc[i].enabled)
-            continue;
-        fx.col_base = m->col_base[i];
+    /* each process's tendencies go to a row of its own, added up in name order */
+    double rows[VL_MAX_PROCESSES][VL_NRES];
+    for (size_t k = 0; k < m->nenabled; k++) {
+        size_t i = m->sum_order[k];
+        memset(rows[k], 0, sizeof rows[k]);
+        vl_flux fx = {y, rows[k], columns, m->col_base[i]};
         vl_processes[i]->rates(m->sc->proc[i].params, m, y, e, &fx);
+    }
+    for (int r = 0; r < VL_NRES; r++) {
+        double s = 0.0;
+        for (size_t k = 0; k < m->nenabled; k++)
+            s += rows[k][r];
+        dydt[r] = s;
     }
 }
