@@ -49,7 +49,7 @@ sweep:
   seed = 4242;
   axes = (
     { key = "inventory.surface_water_to"; distribution = "log_uniform"; low = 0.1; high = 10.0; },
-    { key = "processes.hydrogen_escape.xuv_efficiency"; distribution = "uniform"; low = 0.05; high = 0.3; },
+    { key = "escape.xuv_efficiency"; distribution = "uniform"; low = 0.05; high = 0.3; },
     { key = "planet.orbit_au"; distribution = "uniform"; low = 0.95; high = 1.10; }
   );
 };

@@ -27,6 +27,26 @@ struct vl_scenario *vl_test_scenario(const char *rel, const char *const *sets, s
 /* The model of sc; fails the test with the message on error. */
 struct vl_model *vl_test_model(const struct vl_scenario *sc);
 
+struct vl_work;
+struct vl_climate;
+struct vl_climate_work;
+/* The test's workspace for m (made on first use, freed by vl_test_model_free). */
+struct vl_work *vl_test_work(const struct vl_model *m);
+/* Frees m and its test workspace. */
+void vl_test_model_free(struct vl_model *m);
+/* The same for a bare climate. */
+struct vl_climate_work *vl_test_climate_work(const struct vl_climate *c);
+void vl_test_climate_free(struct vl_climate *c);
+
+struct vl_process;
+struct vl_env;
+/* Process name alone at (y, env), with m's parameters for it (the scenario's when m has
+ * it switched off): its tendencies into dydt (VL_NRES entries) and its columns into
+ * cols, both zeroed first. */
+const struct vl_process *vl_test_process_rates(const struct vl_model *m, const char *name,
+                                               const double *y, const struct vl_env *env,
+                                               double *dydt, double *cols);
+
 /* Paths for tests that run the program or read bundled files. */
 const char *vl_test_bin(void);   /* $VOLEV_BIN or "build/volev" */
 const char *vl_test_top(void);   /* $VOLEV_TOP or "." */

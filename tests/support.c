@@ -9,6 +9,8 @@
 #include <sys/wait.h>
 
 #include "suites.h"
+#include "volev/climate.h"
+#include "volev/model.h"
 
 /* DIR/REL into path (of size n); fails the test if it does not fit. */
 static void path_of(char *path, size_t n, const char *dir, const char *rel)
@@ -93,4 +95,109 @@ void vl_test_file_contains(const char *dir, const char *rel, const char *needle)
     ck_assert_msg(s != NULL, "missing %s", rel);
     ck_assert_msg(strstr(s, needle) != NULL, "%s '%s' lacks '%s'", rel, s, needle);
     free(s);
+}
+
+/* Workspaces made for tests: one per model or bare climate, freed with its owner. */
+#define MAX_TEST_WORKS 64
+static struct {
+    const void *owner;
+    void *work;
+    int climate; /* 1: a vl_climate_work of a bare climate; 0: a vl_work of a model */
+} works[MAX_TEST_WORKS];
+
+static void *find_work(const void *owner)
+{
+    for (int i = 0; i < MAX_TEST_WORKS; i++)
+        if (works[i].owner == owner)
+            return works[i].work;
+    return NULL;
+}
+
+static void keep_work(const void *owner, void *work, int climate)
+{
+    for (int i = 0; i < MAX_TEST_WORKS; i++)
+        if (!works[i].owner) {
+            works[i].owner = owner;
+            works[i].work = work;
+            works[i].climate = climate;
+            return;
+        }
+    ck_abort_msg("more than %d test workspaces", MAX_TEST_WORKS);
+}
+
+static void drop_work(const void *owner)
+{
+    for (int i = 0; i < MAX_TEST_WORKS; i++)
+        if (works[i].owner == owner) {
+            if (works[i].climate)
+                vl_climate_work_free(works[i].work);
+            else
+                vl_work_free(works[i].work);
+            works[i].owner = NULL;
+            works[i].work = NULL;
+        }
+}
+
+vl_work *vl_test_work(const vl_model *m)
+{
+    vl_work *w = find_work(m);
+    if (!w) {
+        vl_status st;
+        vl_status_clear(&st);
+        w = vl_work_new(m, &st);
+        ck_assert_msg(w != NULL, "vl_work_new: %s", st.msg);
+        keep_work(m, w, 0);
+    }
+    return w;
+}
+
+void vl_test_model_free(vl_model *m)
+{
+    drop_work(m);
+    vl_model_free(m);
+}
+
+vl_climate_work *vl_test_climate_work(const vl_climate *c)
+{
+    vl_climate_work *w = find_work(c);
+    if (!w) {
+        vl_status st;
+        vl_status_clear(&st);
+        w = vl_climate_work_new(c, &st);
+        ck_assert_msg(w != NULL, "vl_climate_work_new: %s", st.msg);
+        keep_work(c, w, 1);
+    }
+    return w;
+}
+
+void vl_test_climate_free(vl_climate *c)
+{
+    drop_work(c);
+    vl_climate_free(c);
+}
+
+/* Process p with parameters params alone at (y, env) (see vl_test_process_rates). */
+static void rates_alone(const vl_model *m, const vl_process *p, const void *params,
+                        const double *y, const vl_env *env, double *dydt, double *cols)
+{
+    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    memset(cols, 0, p->ncolumns * sizeof cols[0]);
+    vl_flux fx = {y, dydt, cols, 0, p->transfers, p->ntransfers, p->reactions, p->nreactions};
+    vl_view v = {y, &m->planet, env};
+    p->rates(params, &v, &fx);
+}
+
+const vl_process *vl_test_process_rates(const vl_model *m, const char *name, const double *y,
+                                        const vl_env *env, double *dydt, double *cols)
+{
+    for (size_t i = 0; i < m->nproc; i++)
+        if (strcmp(m->proc[i]->name, name) == 0) {
+            rates_alone(m, m->proc[i], m->params[i], y, env, dydt, cols);
+            return m->proc[i];
+        }
+    /* not in the model (switched off): the registry's, with the scenario's parameters */
+    int k = vl_process_find(name);
+    ck_assert_msg(k >= 0, "no process %s", name);
+    rates_alone(m, vl_processes[k], m->sc->proc[k].params, y, env, dydt, cols);
+    return vl_processes[k];
 }

@@ -46,11 +46,8 @@ static void earth_state(double co2_mol, double y[VL_NRES])
 static double rate_of(const vl_model *m, const char *name, const double *y, const vl_env *env,
                       int col)
 {
-    int i = vl_process_find(name);
-    ck_assert_int_ge(i, 0);
-    double dydt[VL_NRES] = {0}, cols[8] = {0};
-    vl_flux fx = {y, dydt, cols, 0};
-    vl_processes[i]->rates(m->sc->proc[i].params, m, y, env, &fx);
+    double dydt[VL_NRES], cols[8];
+    vl_test_process_rates(m, name, y, env, dydt, cols);
     return cols[col];
 }
 
@@ -58,7 +55,7 @@ static double rate_of(const vl_model *m, const char *name, const double *y, cons
  * (280 ppmv x 1.01325 bar, 288 K, ice-free, present heat flow). */
 static void reference_env(const vl_model *m, const double *y, vl_env *env)
 {
-    vl_model_env(m, T_NOW, y, VL_REGIME_TEMPERATE, env);
+    vl_model_env(m, vl_test_work(m), T_NOW, y, VL_REGIME_TEMPERATE, env);
     env->p_pa[VL_GAS_CO2] = 28.37;
     env->t_surf_k = 288.0;
     env->liquid = 1.0;
@@ -90,7 +87,7 @@ START_TEST(continental_kinetic_law)
     /* no liquid water, no weathering */
     env.liquid = 0.0;
     ck_assert_double_eq(rate_of(m, "weathering", y, &env, 0), 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -123,8 +120,8 @@ START_TEST(rates_scale_with_planet)
     }
     /* absolute rates at the reference state are the table's: weathering 4.4 Tmol/yr */
     ck_assert_rel(rate_of(mb, "weathering", y, &eb, 0), 4.4 * TMOL_YR * mu_co2(), 1e-12);
-    vl_model_free(ma);
-    vl_model_free(mb);
+    vl_test_model_free(ma);
+    vl_test_model_free(mb);
     vl_scenario_free(sa);
     vl_scenario_free(sb);
 }
@@ -155,7 +152,7 @@ START_TEST(continental_runoff_and_supply)
     env.t_surf_k = 420.0;
     double w = rate_of(m, "weathering", y, &env, 0);
     ck_assert(w <= wmax && w > 0.999 * wmax);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -189,7 +186,7 @@ START_TEST(seafloor_law)
     /* ice-covered ocean: none */
     env.liquid = 0.0;
     ck_assert_double_eq(rate_of(m, p, y, &env, 0), 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     /* no spreading under a stagnant lid */
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
@@ -197,7 +194,7 @@ START_TEST(seafloor_law)
     m = vl_test_model(sc);
     reference_env(m, y, &env);
     ck_assert_double_eq(rate_of(m, p, y, &env, 0), 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -214,7 +211,7 @@ START_TEST(outgassing_heat_flow_and_lid)
     y[VL_R_MANTLE_N] = 2.3e19;
     /* env carries the interior's heat flow history (interior.c) */
     double t = 2.9e9 * VL_YR;
-    vl_model_env(m, t, y, VL_REGIME_TEMPERATE, &env);
+    vl_model_env(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, &env);
     double q = vl_interior_heat_flow_rel(&sc->interior, t);
     ck_assert_double_eq(env.heat_flow_rel, q);
     ck_assert(q > 1.2);
@@ -223,15 +220,15 @@ START_TEST(outgassing_heat_flow_and_lid)
     ck_assert_rel(rate_of(m, "outgassing", y, &env, 0), v0 * pow(q, 1.5), 1e-12);
     ck_assert_rel(rate_of(m, "outgassing", y, &env, 1),
                   1e-3 * TMOL_YR * vl_species_molar_mass(VL_SP_N2) * pow(q, 1.5), 1e-12);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     /* stagnant lid: f_sl V0 (Q/Q0)^m_sl, defaults 0.1 and 2 (docs/cycles.md) */
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
     sc = vl_test_scenario(NULL, stag, 1);
     m = vl_test_model(sc);
-    vl_model_env(m, t, y, VL_REGIME_TEMPERATE, &env);
+    vl_model_env(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, &env);
     ck_assert_rel(rate_of(m, "outgassing", y, &env, 0), 0.1 * v0 * q * q, 1e-12);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -250,7 +247,7 @@ START_TEST(recycling_split)
     double s = 1.37 * y[VL_R_CARBONATE] / (1.7e9 * VL_YR);
     ck_assert_rel(rate_of(m, "carbonate_recycling", y, &env, 0), 0.3 * s, 1e-12);
     ck_assert_rel(rate_of(m, "carbonate_recycling", y, &env, 1), 0.7 * s, 1e-12);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
     sc = vl_test_scenario(NULL, stag, 1);
@@ -258,7 +255,7 @@ START_TEST(recycling_split)
     /* stagnant lid: no subduction (docs/cycles.md) */
     ck_assert_double_eq(rate_of(m, "carbonate_recycling", y, &env, 0), 0.0);
     ck_assert_double_eq(rate_of(m, "carbonate_recycling", y, &env, 1), 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -279,7 +276,7 @@ START_TEST(dry_planet_grows_at_outgassing)
     vl_model_initial_state(m, y);
     double t = 4.0e9 * VL_YR;
     vl_env env;
-    vl_model_rhs(m, t, y, VL_REGIME_DRY, dydt, cols, &env);
+    vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_DRY, dydt, cols, &env);
     double v = 2.0 * TMOL_YR * mu_co2() * vl_interior_heat_flow_rel(&sc->interior, t);
     /* dCO2/dt = V (outgassing only; weathering needs liquid water) */
     ck_assert_rel(dydt[VL_R_CO2], v, 1e-9);
@@ -301,7 +298,7 @@ START_TEST(dry_planet_grows_at_outgassing)
     }
     double gain = 2.0 * TMOL_YR * mu_co2() * sum * (t1 - t) / (3.0 * n);
     ck_assert_rel(stats.y_final[VL_R_CO2] - y[VL_R_CO2], gain, 1e-6);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -330,7 +327,7 @@ static double air_share(const vl_model *m, double co2_mol, int regime, vl_env *e
 {
     double y[VL_NRES];
     earth_state(co2_mol, y);
-    vl_model_env(m, T_NOW, y, regime, env);
+    vl_model_env(m, vl_test_work(m), T_NOW, y, regime, env);
     return env->mass_kg[VL_GAS_CO2] / y[VL_R_CO2];
 }
 
@@ -348,7 +345,7 @@ START_TEST(partition_earth_and_dense)
     ck_assert_msg(atm_mol > 3.5e16 && atm_mol < 7e16, "atmosphere %g mol", atm_mol);
     /* at several bar most carbon is in the atmosphere (science.md section 5): 5 bar of
      * surface CO2 (as pressure alone) */
-    double five_bar = 5.0 * VL_BAR / m->pa_per_kg / mu_co2();
+    double five_bar = 5.0 * VL_BAR / m->planet.pa_per_kg / mu_co2();
     share = air_share(m, five_bar, VL_REGIME_TEMPERATE, &env);
     ck_assert_msg(share > 0.5 && share < 1.0, "air share %g at 5 bar", share);
     /* frozen: the ocean under the ice still holds carbon; moist greenhouse: ocean too */
@@ -357,7 +354,7 @@ START_TEST(partition_earth_and_dense)
     /* no ocean in the dry and runaway regimes: everything in the air */
     ck_assert_double_eq(air_share(m, 3.3e18, VL_REGIME_RUNAWAY, &env), 1.0);
     ck_assert_double_eq(air_share(m, 3.3e18, VL_REGIME_DRY, &env), 1.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -450,7 +447,7 @@ START_TEST(earth_history_carbon)
     vl_scenario *sc;
     vl_model *m;
     run_earth(NULL, 0, &hist, &s, &sc, &m); /* every default process on: conserves to 1e-8 */
-    double bar = m->pa_per_kg / VL_BAR, y_now[VL_NRES];
+    double bar = m->planet.pa_per_kg / VL_BAR, y_now[VL_NRES];
     memcpy(y_now, s.y_final, sizeof y_now);
     /* today: 288 K (hz_fit calibration, docs/model.md) and a few hundred ppmv */
     ck_assert_msg(fabs(hist.last.t_surf_k - 288.0) < 2.0, "T = %g", hist.last.t_surf_k);
@@ -464,7 +461,7 @@ START_TEST(earth_history_carbon)
     double carb = y_now[VL_R_CARBONATE] * bar;
     ck_assert_msg(carb > 31.5 && carb < 126.0, "carbonate %g bar", carb);
     ck_assert(y_now[VL_R_MANTLE_C] > 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 
     /* Perturbation around today: from 4.5 Gyr with today's carbon (baseline) and with the
@@ -482,13 +479,13 @@ START_TEST(earth_history_carbon)
     /* quasi-steady state at the end: continental + seafloor weathering balance the
      * outgassing (mantle + arc return); the net tendency is small against the fluxes */
     double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
-    vl_model_rhs(m, sc->run.end_s, s.y_final, base.last.regime, dydt, cols, NULL);
+    vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, base.last.regime, dydt, cols, NULL);
     double sinks = column(m, cols, "weathering_co2_kg_s") + column(m, cols, "seafloor_co2_kg_s");
     double sources = column(m, cols, "outgas_co2_kg_s") +
                      column(m, cols, "recycled_to_surface_kg_s");
     ck_assert_rel(sinks, sources, 1e-2);
     ck_assert_msg(fabs(dydt[VL_R_CO2]) < 1e-2 * sinks, "net %g of %g kg/s", dydt[VL_R_CO2], sinks);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     sets[5] = co2x2;
     run_earth(sets, 6, &pert, &s, &sc, &m);
@@ -504,7 +501,7 @@ START_TEST(earth_history_carbon)
     }
     /* science.md section 5 [C]: ~3.3e18 mol / 6-7 Tmol/yr -> ~0.5 Myr; asserted 0.1-2 Myr */
     ck_assert_msg(tau > 0.1e6 * VL_YR && tau < 2e6 * VL_YR, "e-folding %g Myr", tau / VL_YR / 1e6);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -557,7 +554,7 @@ START_TEST(ocean_column_written)
     }
     /* present Earth: the ocean holds more than 90 % (science.md section 5) */
     ck_assert_msg(ocean > 0.9 * surface && ocean < surface, "ocean %g of %g kg", ocean, surface);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     static const char *const files[] = {"series.csv", "events.csv", "summary.csv",
                                         "scenario.resolved.cfg"};

@@ -174,26 +174,26 @@ START_TEST(test_thresholds_in_env)
     vl_env env;
     earth_env(&env, VL_S_EARTH, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     /* Kopparapu et al. 2014: runaway at 1 M_earth, 5780 K = 1.107 [S] */
     ck_assert_rel(env.s_runaway, 1.107, 1e-15);
     /* Kopparapu et al. 2013: moist greenhouse S0 = 1.0146 [S] */
     ck_assert_rel(env.s_moist, 1.0146, 1e-15);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 
     /* planet mass enters the 2014 threshold: 5 M_earth -> 1.188 [S] */
     sc.planet.mass_kg = 5.0 * VL_M_EARTH;
     c = new_climate(&sc);
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     ck_assert_rel(env.s_runaway, 1.188, 1e-12);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 
     /* runaway_fit = k2013: Kopparapu et al. 2013 runaway S0 = 1.0385, mass-blind [S] */
     sc.climate.runaway_fit = VL_RUNAWAY_K2013;
     c = new_climate(&sc);
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     ck_assert_rel(env.s_runaway, 1.0385, 1e-15);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 }
 END_TEST
 
@@ -205,7 +205,7 @@ START_TEST(test_energy_balance)
     vl_env env;
     earth_env(&env, 1361.0, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     /* calibration (science spec 3a target 288 K): T_e(1361 W/m^2, A = 0.3) = 254.578 K [C]
      * plus greenhouse_ref 33.42 K at the reference CO2 = 288.0 K */
     ck_assert_msg(fabs(env.t_surf_k - 288.0) <= 0.1, "T_s = %g", env.t_surf_k);
@@ -217,20 +217,20 @@ START_TEST(test_energy_balance)
     /* doubled CO2 at fixed N2: +co2_doubling_k = 3 K (IPCC AR6 best estimate, from
      * memory), within 0.01 K as doubling x_CO2 also raises p_dry by 0.03 % [C] */
     env.mass_kg[VL_GAS_CO2] *= 2.0;
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     ck_assert_msg(fabs(env.t_surf_k - t1 - 3.0) < 0.01, "dT = %g", env.t_surf_k - t1);
 
     /* pure CO2 air: doubling its mass doubles pCO2_dry exactly, +3 K [C] */
     earth_env(&env, 1361.0, VL_REGIME_TEMPERATE);
     env.mass_kg[VL_GAS_CO2] = 2.385 * CO2_REF_PA * EARTH_AREA / EARTH_G;
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     t1 = env.t_surf_k;
     /* ln-law: 254.578 + 33.42 + 3 log2(2.385) = 291.76 K [C] */
     ck_assert_rel(t1, 254.57814 + 33.42 + 3.0 * log2(2.385), 1e-6);
     env.mass_kg[VL_GAS_CO2] *= 2.0;
-    vl_climate_eval(c, VL_TO_KG, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
     ck_assert_rel(env.t_surf_k - t1, 3.0, 1e-9);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 }
 END_TEST
 
@@ -242,7 +242,7 @@ START_TEST(test_co2_floor)
     vl_env env;
     earth_env(&env, 1361.0, VL_REGIME_TEMPERATE);
     set_air(&env, 1.0e5, 0.0);
-    vl_climate_eval(c, 1e19, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e19, &env);
     /* floor at 1e-9 pCO2_ref: T = 288.0 + 3 log2(1e-9) = 288.0 - 89.69 K [C] */
     double t_floor = 254.57814 + 33.42 + 3.0 * log2(1e-9);
     ck_assert_rel(env.t_balance_k, t_floor, 1e-6);
@@ -250,17 +250,17 @@ START_TEST(test_co2_floor)
     env.mass_kg[VL_GAS_CO2] = 0.5e-9 * CO2_REF_PA * EARTH_AREA / EARTH_G *
                               vl_species_molar_mass(VL_SP_CO2) /
                               vl_species_molar_mass(VL_SP_N2);
-    vl_climate_eval(c, 1e19, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e19, &env);
     ck_assert_rel(env.t_balance_k, t_floor, 1e-6);
     /* twice the floor: one doubling above it [C] */
     env.mass_kg[VL_GAS_CO2] *= 4.0;
-    vl_climate_eval(c, 1e19, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e19, &env);
     ck_assert_rel(env.t_balance_k, t_floor + 3.0, 1e-6);
     /* no dry air at all: the floor, not NaN [C] */
     memset(env.mass_kg, 0, sizeof env.mass_kg);
-    vl_climate_eval(c, 1e19, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e19, &env);
     ck_assert_rel(env.t_balance_k, t_floor, 1e-6);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 }
 END_TEST
 
@@ -273,7 +273,7 @@ START_TEST(test_vapour_partition)
     earth_env(&env, 1361.0, VL_REGIME_TEMPERATE);
     set_air(&env, 1.0e5, 280e-6);
     double water = 1.385 * VL_TO_KG;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert_msg(fabs(env.t_surf_k - 288.0) < 0.2, "T_s = %g", env.t_surf_k);
     /* thin shell, mole-fraction partial pressure x_v p_surf = p_sat(T_s) (science spec 4) [C] */
     ck_assert_rel(vapour_pressure(&env), vl_water_psat(env.t_surf_k), 1e-9);
@@ -288,19 +288,19 @@ START_TEST(test_vapour_partition)
     /* pure steam over the ocean: M_v = p_sat A / g [C] */
     memset(env.mass_kg, 0, sizeof env.mass_kg);
     env.instellation = 1361.0;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert_rel(env.vapour_kg, vl_water_psat(env.t_surf_k) * EARTH_AREA / EARTH_G, 1e-12);
 
     /* little water: all of it is vapour, the cap is continuous [C] */
     set_air(&env, 1.0e5, 280e-6);
-    vl_climate_eval(c, 2.385e12, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 2.385e12, &env);
     ck_assert_rel(env.vapour_kg, 2.385e12, 0.0);
     ck_assert_rel(env.ocean_kg, 0.0, 0.0);
 
     /* frozen: saturation over ice (Murphy & Koop 2005 eq. 7) at T_s < 273.16 K [C] */
     env.instellation = 900.0;
     env.regime = VL_REGIME_FROZEN;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert(env.t_surf_k < 273.0);
     ck_assert_rel(vapour_pressure(&env), vl_water_psat_ice(env.t_surf_k), 1e-9);
     ck_assert_double_eq(env.liquid, 0.0);
@@ -309,14 +309,14 @@ START_TEST(test_vapour_partition)
     /* moist greenhouse: liquid ocean, wet stratosphere (Kasting 1988: 3e-3) */
     env.instellation = 1.05 * VL_S_EARTH;
     env.regime = VL_REGIME_MOIST;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert_double_eq(env.liquid, 1.0);
     ck_assert_rel(env.f_strat, 3e-3, 0.0);
     ck_assert_rel(vapour_pressure(&env), vl_water_psat(env.t_surf_k), 1e-9);
 
     /* dry: same partition, no liquid flag, temperate stratosphere */
     env.regime = VL_REGIME_DRY;
-    vl_climate_eval(c, 1e9, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e9, &env);
     ck_assert_rel(env.vapour_kg, 1e9, 0.0);
     ck_assert_double_eq(env.liquid, 0.0);
     ck_assert_rel(env.f_strat, 7.6e-6, 0.0);
@@ -324,11 +324,11 @@ START_TEST(test_vapour_partition)
     /* T_s = 779 K above T_c: no ocean survives even outside a runaway (science spec 3a) */
     env.regime = VL_REGIME_TEMPERATE;
     env.instellation = 1.0e5;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert(env.t_surf_k > VL_WATER_TC_K);
     ck_assert_rel(env.vapour_kg, water, 0.0);
     ck_assert_double_eq(env.liquid, 0.0);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 }
 END_TEST
 
@@ -341,7 +341,7 @@ START_TEST(test_runaway_state)
     earth_env(&env, 1.2 * VL_S_EARTH, VL_REGIME_RUNAWAY);
     set_air(&env, 1.0e5, 280e-6);
     double water = VL_TO_KG;
-    vl_climate_eval(c, water, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     /* runaway: the hot steam state, all water in the air (science spec 3a) */
     ck_assert_rel(env.t_surf_k, 1500.0, 0.0);
     ck_assert_rel(env.vapour_kg, water, 0.0);
@@ -357,9 +357,9 @@ START_TEST(test_runaway_state)
     ck_assert_rel(env.f_strat, nv / (nv + nd), 1e-12);
     ck_assert(env.f_strat > 0.9);
     /* a trace of water: at least the moist-greenhouse value (Kasting 1988: 3e-3) */
-    vl_climate_eval(c, 1e15, &env);
+    vl_climate_eval(c, vl_test_climate_work(c), 1e15, &env);
     ck_assert_rel(env.f_strat, 3e-3, 0.0);
-    vl_climate_free(c);
+    vl_test_climate_free(c);
 }
 END_TEST
 
@@ -372,7 +372,7 @@ static int classify(const vl_climate *c, double water, double s_eff, double t_ba
     env.s_runaway = 1.1;
     env.s_moist = 1.0;
     env.t_balance_k = t_bal;
-    return vl_climate_classify(c, water, &env);
+    return vl_climate_classify(c, vl_test_climate_work(c), water, &env);
 }
 
 START_TEST(test_classify)
@@ -396,18 +396,18 @@ START_TEST(test_classify)
     vl_env env;
     earth_env(&env, VL_S_EARTH, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
-    vl_climate_eval(c, VL_TO_KG, &env);
-    ck_assert_int_eq(vl_climate_classify(c, VL_TO_KG, &env), VL_REGIME_TEMPERATE);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
+    ck_assert_int_eq(vl_climate_classify(c, vl_test_climate_work(c), VL_TO_KG, &env), VL_REGIME_TEMPERATE);
     earth_env(&env, VL_S_EARTH / 0.81, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
-    vl_climate_eval(c, VL_TO_KG, &env);
-    ck_assert_int_eq(vl_climate_classify(c, VL_TO_KG, &env), VL_REGIME_RUNAWAY);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
+    ck_assert_int_eq(vl_climate_classify(c, vl_test_climate_work(c), VL_TO_KG, &env), VL_REGIME_RUNAWAY);
     /* Earth at 1.5 au: T_balance 288 - 254.6 (1 - 1/sqrt 1.5) = 241 K, frozen [C] */
     earth_env(&env, VL_S_EARTH / 2.25, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
-    vl_climate_eval(c, VL_TO_KG, &env);
-    ck_assert_int_eq(vl_climate_classify(c, VL_TO_KG, &env), VL_REGIME_FROZEN);
-    vl_climate_free(c);
+    vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
+    ck_assert_int_eq(vl_climate_classify(c, vl_test_climate_work(c), VL_TO_KG, &env), VL_REGIME_FROZEN);
+    vl_test_climate_free(c);
 }
 END_TEST
 

@@ -123,7 +123,7 @@ static void make_planet(planet *p, double x_co2, const char *extra)
     p->m = vl_test_model(p->sc);
     memset(p->y, 0, sizeof p->y);
     double mc = vl_species_molar_mass(VL_SP_CO2), mn = vl_species_molar_mass(VL_SP_N2);
-    p->y[VL_R_N2] = VL_BAR / p->m->pa_per_kg;
+    p->y[VL_R_N2] = VL_BAR / p->m->planet.pa_per_kg;
     p->y[VL_R_CO2] = p->y[VL_R_N2] * x_co2 / (1.0 - x_co2) * mc / mn;
     p->y[VL_R_WATER] = VL_TO_KG;
     p->co2_air_kg = p->y[VL_R_CO2];
@@ -131,7 +131,7 @@ static void make_planet(planet *p, double x_co2, const char *extra)
 
 static void free_planet(planet *p)
 {
-    vl_model_free(p->m);
+    vl_test_model_free(p->m);
     vl_scenario_free(p->sc);
 }
 
@@ -143,14 +143,14 @@ static void env_at(planet *p, double s_eff, int regime, vl_env *env)
     double want = p->co2_air_kg, lo = log(want), hi = log(want) + log(1e4);
     for (int i = 0; i < 60; i++) {
         p->y[VL_R_CO2] = exp(0.5 * (lo + hi));
-        vl_model_env(p->m, 4.57e9 * VL_YR, p->y, regime, env);
+        vl_model_env(p->m, vl_test_work(p->m), 4.57e9 * VL_YR, p->y, regime, env);
         *(env->mass_kg[VL_GAS_CO2] < want ? &lo : &hi) = log(p->y[VL_R_CO2]);
     }
     p->y[VL_R_CO2] = exp(hi);
-    vl_model_env(p->m, 4.57e9 * VL_YR, p->y, regime, env);
+    vl_model_env(p->m, vl_test_work(p->m), 4.57e9 * VL_YR, p->y, regime, env);
     env->instellation = s_eff * VL_S_EARTH;
     env->s_eff = s_eff;
-    vl_climate_eval(p->m->climate, p->y[VL_R_WATER], env);
+    vl_climate_eval(p->m->climate, vl_test_climate_work(p->m->climate), p->y[VL_R_WATER], env);
 }
 
 START_TEST(present_earth_and_doubling)
@@ -162,7 +162,7 @@ START_TEST(present_earth_and_doubling)
     /* calibration target (docs/model.md): present Earth 288 +- 2 K at 1361 W/m^2,
      * 280 ppmv CO2, 1 bar N2 */
     ck_assert_msg(fabs(e1.t_surf_k - 288.0) < 2.0, "T = %g", e1.t_surf_k);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e1), VL_REGIME_TEMPERATE);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e1), VL_REGIME_TEMPERATE);
     free_planet(&p);
     make_planet(&p, 560e-6, NULL);
     env_at(&p, 1.0, VL_REGIME_TEMPERATE, &e2);
@@ -182,9 +182,9 @@ START_TEST(runaway_threshold)
     /* Kopparapu et al. 2013; Leconte et al. 2013 (375 W/m^2 = 1.10 S_earth): 1.0-1.15 */
     ck_assert_msg(e.s_runaway >= 1.0 && e.s_runaway <= 1.15, "S_runaway = %g", e.s_runaway);
     env_at(&p, 0.98 * e.s_runaway, VL_REGIME_TEMPERATE, &e);
-    ck_assert_int_ne(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_RUNAWAY);
+    ck_assert_int_ne(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_RUNAWAY);
     env_at(&p, 1.02 * e.s_runaway, VL_REGIME_TEMPERATE, &e);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_RUNAWAY);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_RUNAWAY);
     /* cooler stars: lower Rayleigh albedo, lower threshold (Kopparapu et al. 2013) */
     double sun = e.s_runaway;
     free_planet(&p);
@@ -204,7 +204,7 @@ START_TEST(moist_greenhouse_between)
     /* the moist greenhouse lies between today and the runaway (Kasting 1988) */
     ck_assert(e.s_moist > 1.0 && e.s_moist < e.s_runaway);
     env_at(&p, 0.5 * (e.s_moist + e.s_runaway), VL_REGIME_TEMPERATE, &e);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_MOIST);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_MOIST);
     ck_assert(e.f_strat >= 3e-3);
     free_planet(&p);
 }
@@ -219,17 +219,17 @@ START_TEST(ice_albedo_hysteresis)
      * (ice-albedo bistability: Budyko 1969; Sellers 1969): each regime keeps its branch */
     env_at(&p, 0.95, VL_REGIME_FROZEN, &e);
     ck_assert_msg(e.t_surf_k < 250.0, "frozen branch at %g K", e.t_surf_k);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_FROZEN);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_FROZEN);
     ck_assert(e.liquid < 0.05); /* nearly ice-covered: the bottom of the ice ramp */
     env_at(&p, 0.95, VL_REGIME_TEMPERATE, &e);
     ck_assert_msg(e.t_surf_k > 273.15, "warm branch at %g K", e.t_surf_k);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_TEMPERATE);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_TEMPERATE);
     /* brighter: the frozen branch vanishes (thaw) */
     env_at(&p, 1.0, VL_REGIME_FROZEN, &e);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_TEMPERATE);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_TEMPERATE);
     /* dimmer: the temperate branch vanishes (freeze) */
     env_at(&p, 0.85, VL_REGIME_TEMPERATE, &e);
-    ck_assert_int_eq(vl_climate_classify(p.m->climate, p.y[VL_R_WATER], &e), VL_REGIME_FROZEN);
+    ck_assert_int_eq(vl_climate_classify(p.m->climate, vl_test_climate_work(p.m->climate), p.y[VL_R_WATER], &e), VL_REGIME_FROZEN);
     /* just past the saddle-node the temperature stays continuous within the regime (the
      * branch's ghost), so the integrator can locate the event */
     vl_env a, b;
@@ -249,10 +249,10 @@ START_TEST(table_matches_column)
     env_at(&p, 0.97, VL_REGIME_TEMPERATE, &e);
     /* in 273-288 K the albedo is the temperate 0.3 (ice free, no steam) */
     ck_assert_msg(e.t_surf_k > 273.0 && e.t_surf_k < 288.0, "T = %g", e.t_surf_k);
-    vl_column_opts o = default_opts(p.m->g);
+    vl_column_opts o = default_opts(p.m->planet.g);
     double mc = vl_species_molar_mass(VL_SP_CO2), mn = vl_species_molar_mass(VL_SP_N2);
     vl_column_air a;
-    double pc = e.mass_kg[VL_GAS_CO2] * p.m->pa_per_kg, pn = p.y[VL_R_N2] * p.m->pa_per_kg;
+    double pc = e.mass_kg[VL_GAS_CO2] * p.m->planet.pa_per_kg, pn = p.y[VL_R_N2] * p.m->planet.pa_per_kg;
     a.p_dry_pa = pc + pn;
     a.q_co2 = pc / a.p_dry_pa;
     a.m_dry = a.p_dry_pa / (pc / mc + pn / mn);

@@ -79,7 +79,7 @@ static void gassy_state(const vl_model *m, double y[VL_NRES])
 {
     memset(y, 0, VL_NRES * sizeof y[0]);
     y[VL_R_WATER] = 1.3729 * VL_TO_KG;
-    y[VL_R_CO2] = 0.0417 * VL_BAR / m->pa_per_kg;
+    y[VL_R_CO2] = 0.0417 * VL_BAR / m->planet.pa_per_kg;
     y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
     y[VL_R_O2] = 1.19e18;
     y[VL_R_H2] = 2.17e16;
@@ -99,17 +99,15 @@ START_TEST(tangent_plane_earth)
     vl_scenario *sc = scenario(1, 0, BG_PER_MYR);
     set(sc, "planet.radius_rearth=%.17g", 1.0);
     vl_model *m = vl_test_model(sc);
-    int k = vl_process_find("impacts");
     double y[VL_NRES], dydt[VL_NRES] = {0}, *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 1.7e9 * VL_YR;
     vl_env env;
-    vl_model_env(m, t, y, VL_REGIME_TEMPERATE, &env);
+    vl_model_env(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, &env);
     /* an atmosphere whose scale height kT/(mg) is 8 km exactly */
     env.m_mean_kg = 28.97 * VL_AMU;
     env.t_surf_k = 8.0e3 * env.m_mean_kg * env.g / VL_K_BOLTZMANN;
-    vl_flux fx = {y, dydt, cols, m->col_base[k]};
-    vl_processes[k]->rates(sc->proc[k].params, m, y, &env, &fx);
+    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + column(m, "impact_co2_kg_s"));
     double n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
     double x = cols[column(m, "impact_n2_kg_s")] / (n * y[VL_R_N2]);
     /* Schlichting, Sari & Yalinewich 2015: tangent-plane loss h/(2R); Earth, h = 8 km:
@@ -118,11 +116,10 @@ START_TEST(tangent_plane_earth)
     ck_assert_rel(x, 8.0 / (2.0 * 6371.0), 1e-12);
     /* a scale height beyond 2R: one impact cannot remove more than the whole atmosphere */
     env.t_surf_k *= 1e4;
-    memset(cols, 0, m->ncolumns * sizeof *cols);
-    vl_processes[k]->rates(sc->proc[k].params, m, y, &env, &fx);
+    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + column(m, "impact_co2_kg_s"));
     ck_assert_rel(cols[column(m, "impact_n2_kg_s")], n * y[VL_R_N2], 1e-12);
     free(cols);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -135,7 +132,7 @@ START_TEST(erosion_of_each_gas)
     gassy_state(m, y);
     double t = 3.9e8 * VL_YR;
     vl_env env;
-    vl_model_rhs(m, t, y, VL_REGIME_RUNAWAY, dydt, cols, &env);
+    vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_RUNAWAY, dydt, cols, &env);
     ck_assert(env.vapour_kg > 0.0);
     /* erosion of gas i = N(t) X M_i, X = h/(2R) (Schlichting et al. 2015) */
     double loss = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR) * fraction(m, &env);
@@ -157,7 +154,7 @@ START_TEST(erosion_of_each_gas)
     ck_assert_rel(dydt[VL_R_SPACE_O], o2 + co2 * 31.998 / 44.009 + h2o * 15.999 / 18.015, 1e-12);
     ck_assert_rel(-dydt[VL_R_WATER], h2o, 1e-12);
     free(cols);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -167,7 +164,7 @@ static double rate_seen(const vl_model *m, double t, const double *y)
 {
     double dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
     vl_env env;
-    vl_model_rhs(m, t, y, VL_REGIME_TEMPERATE, dydt, cols, &env);
+    vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, &env);
     double n = cols[column(m, "impact_n2_kg_s")] / (fraction(m, &env) * y[VL_R_N2]);
     free(cols);
     return n;
@@ -186,7 +183,7 @@ START_TEST(rate_decays_with_efold)
     ck_assert_rel(rate_seen(m, t1 + 3.0 * tau, y) / rate_seen(m, t1, y), exp(-3.0), 1e-12);
     /* at the reference age the rate is early_rate_per_myr */
     ck_assert_rel(rate_seen(m, t0, y) * myr, EARLY_PER_MYR, 1e-12);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     sc = scenario(1, 0, BG_PER_MYR);
     m = vl_test_model(sc);
@@ -197,7 +194,7 @@ START_TEST(rate_decays_with_efold)
     ck_assert_rel(b / a, exp(-1.0), 1e-9);
     /* long after the early flux: the background alone (e^-37 of N0 left, [C]) */
     ck_assert_rel(rate_seen(m, t0 + 37.0 * tau, y) * myr, BG_PER_MYR, 1e-12);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -231,7 +228,7 @@ START_TEST(pools_hold_the_integral)
     double by_hand = EARLY_PER_MYR * tau * exp((t0 - a) / tau) * (1.0 - exp(-(b - a) / tau)) +
                      BG_PER_MYR * (b - a);
     ck_assert_rel(n, by_hand, 1e-9);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     /* delivery off: the pools stay empty */
     sc = scenario(0, 0, BG_PER_MYR);
@@ -240,7 +237,7 @@ START_TEST(pools_hold_the_integral)
     ck_assert_double_eq(y[VL_R_IMPACT_WATER], 0.0);
     ck_assert_double_eq(y[VL_R_IMPACT_CO2], 0.0);
     ck_assert_double_eq(y[VL_R_IMPACT_N2], 0.0);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -252,7 +249,7 @@ START_TEST(delivery_moves_from_pools)
     double y[VL_NRES], dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 2.9e8 * VL_YR, n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
-    vl_model_rhs(m, t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
+    vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
     /* each impact delivers the set masses: delivery rate = N(t) x mass per impact */
     double w = cols[column(m, "delivered_h2o_kg_s")], c = cols[column(m, "delivered_co2_kg_s")];
     double nn = cols[column(m, "delivered_n2_kg_s")];
@@ -268,10 +265,10 @@ START_TEST(delivery_moves_from_pools)
     ck_assert_rel(dydt[VL_R_N2], nn - cols[column(m, "impact_n2_kg_s")], 1e-12);
     /* an empty pool delivers nothing (depletion ramp, flux.h) */
     y[VL_R_IMPACT_WATER] = 0.0;
-    vl_model_rhs(m, t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
+    vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
     ck_assert_double_eq(cols[column(m, "delivered_h2o_kg_s")], 0.0);
     free(cols);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -296,7 +293,7 @@ START_TEST(conserves_with_delivery)
         double y[VL_NRES], dydt[VL_NRES];
         gassy_state(m, y);
         for (int regime = 0; regime < VL_NREGIMES; regime++) {
-            vl_model_rhs(m, 1.9e8 * VL_YR, y, regime, dydt, NULL, NULL);
+            vl_model_rhs(m, vl_test_work(m), 1.9e8 * VL_YR, y, regime, dydt, NULL, NULL);
             ck_assert(dydt[VL_R_IMPACT_WATER] < 0.0 && dydt[VL_R_SPACE_C] > 0.0);
             for (int el = 0; el < VL_NELEMENTS; el++)
                 /* conservation by construction: round-off only (common practice: 1e-12) */
@@ -304,7 +301,7 @@ START_TEST(conserves_with_delivery)
                               alone ? "impacts alone" : "all processes", regime,
                               vl_element_name(el), imbalance(dydt, el));
         }
-        vl_model_free(m);
+        vl_test_model_free(m);
         vl_scenario_free(sc);
     }
 }
@@ -338,7 +335,7 @@ START_TEST(earth_run_with_delivery)
          * over accepted steps, 1e-2) equals the pool's initial content */
         ck_assert_rel(s.channel_kg[column(m, col[i])], y0[pool[i]], 1e-2);
     }
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST

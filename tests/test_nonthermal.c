@@ -50,35 +50,26 @@ static void setup(fixture *f, const char *const *extra, size_t nextra)
     f->m = vl_model_new(f->sc, &st);
     ck_assert_msg(f->m != NULL, "%s", st.msg);
     memset(f->y, 0, sizeof f->y);
-    double co2 = 600.0 / f->m->pa_per_kg;
+    double co2 = 600.0 / f->m->planet.pa_per_kg;
     f->y[VL_R_CO2] = co2;
     f->y[VL_R_O2] = co2 * (0.13 / 95.0) * (31.998 / 44.009);
     f->y[VL_R_N2] = co2 * (2.7 / 95.0) * (28.013 / 44.009);
     f->y[VL_R_WATER] = 2.9e18;
-    vl_model_env(f->m, 4.57e9 * VL_YR, f->y, VL_REGIME_FROZEN, &f->env);
+    vl_model_env(f->m, vl_test_work(f->m), 4.57e9 * VL_YR, f->y, VL_REGIME_FROZEN, &f->env);
 }
 
 static void teardown(fixture *f)
 {
-    vl_model_free(f->m);
+    vl_test_model_free(f->m);
     vl_scenario_free(f->sc);
 }
 
 /* Run one process's rates on f->env; cols (its columns, kg/s) and dydt are zeroed first. */
 static const vl_process *run(fixture *f, const char *name, double *cols, double *dydt)
 {
-    int i = vl_process_find(name);
-    ck_assert_int_ge(i, 0);
-    const vl_process *p = vl_processes[i];
-    memset(cols, 0, p->ncolumns * sizeof cols[0]);
-    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
-    vl_flux fx = {f->y, dydt, cols, 0};
-    vl_env e = f->env; /* as the model does: the process's prepare hook, then its rates */
-    e.nt_h_factor_set = 0;
-    if (p->prepare)
-        p->prepare(f->sc->proc[i].params, f->m, f->y, &e);
-    p->rates(f->sc->proc[i].params, f->m, f->y, &e, &fx);
-    return p;
+    vl_env e = f->env; /* as the escape stage does: the room for non-thermal H, then rates */
+    e.escape.nt_h_factor = vl_model_h_room_factor(f->m, f->y, &e);
+    return vl_test_process_rates(f->m, name, f->y, &e, dydt, cols);
 }
 
 /* Column `col` of process `name` at f->env, kg/s. */
@@ -99,14 +90,14 @@ static void at_mars_reference(fixture *f)
 {
     f->env.f_xuv = MARS_XUV;
     f->env.wind_pressure_pa = MARS_WIND;
-    f->env.r_exo_m = 2.0 * VL_G_NEWTON * f->sc->planet.mass_kg / (MARS_VESC * MARS_VESC);
-    f->env.esc_hydro = 0.0;
+    f->env.upper.r_exo_m = 2.0 * VL_G_NEWTON * f->sc->planet.mass_kg / (MARS_VESC * MARS_VESC);
+    f->env.escape.hydro = 0.0;
 }
 
 START_TEST(mars_reference_rates)
 {
     fixture f;
-    const char *off[] = {"processes.hydrogen_escape.enabled=false"};
+    const char *off[] = {"escape.thermal=false"};
     setup(&f, off, 1);
     at_mars_reference(&f);
     double area = (0.532 * VL_R_EARTH / MARS_R) * (0.532 * VL_R_EARTH / MARS_R);
@@ -157,14 +148,14 @@ START_TEST(scaling_laws_exact)
     /* gravity: halving the escape energy (v_esc / sqrt 2) raises pickup by 2^2 and
      * sputtering by 2^3 (escape-energy exponents 2 and 3, docs) */
     f.env.wind_pressure_pa = MARS_WIND;
-    f.env.r_exo_m *= 2.0;
+    f.env.upper.r_exo_m *= 2.0;
     ck_assert_rel(column(&f, "ion_pickup", "pickup_c_kg_s") / pu0, 4.0, 1e-8);
     ck_assert_rel(column(&f, "sputtering", "sputter_o_kg_s") / sp0, 8.0, 1e-8);
-    /* bulk hydrodynamic weight: the channels fade out with it (hydrogen_escape.c) */
-    f.env.r_exo_m /= 2.0;
-    f.env.esc_bulk_hydro = 0.25;
+    /* bulk hydrodynamic weight: the channels fade out with it (escape.c) */
+    f.env.upper.r_exo_m /= 2.0;
+    f.env.escape.bulk_hydro = 0.25;
     ck_assert_rel(column(&f, "photochemical_escape", "photochem_o_kg_s") / pc0, 0.75, 1e-9);
-    f.env.esc_bulk_hydro = 1.0;
+    f.env.escape.bulk_hydro = 1.0;
     ck_assert_double_eq(column(&f, "ion_pickup", "pickup_o_kg_s"), 0.0);
     teardown(&f);
 }
@@ -175,14 +166,14 @@ START_TEST(polar_reference_earth)
     fixture f;
     const char *earth[] = {"planet.mass_mearth=1", "planet.radius_rearth=1", "planet.orbit_au=1",
                            "planet.dipole_moment_earth=1",
-                           "processes.hydrogen_escape.enabled=false"};
+                           "escape.thermal=false"};
     setup(&f, earth, 5);
     f.env.f_xuv = 4.6e-3;       /* Ribas et al. 2005: present Sun at 1 au */
     f.env.wind_pressure_pa = 1.792e-9; /* default solar wind at 1 au [C] */
-    f.env.r_mp_rp = 10.0;       /* Earth's magnetopause ~10 R_E (textbook) */
+    f.env.upper.r_mp_rp = 10.0;       /* Earth's magnetopause ~10 R_E (textbook) */
     /* open caps at 10 R_E, tapered by 1 - r_obs/r_mp (docs/escape.md, upper.c) [C] */
-    f.env.cap_fraction = (1.0 - sqrt(1.0 - 1.0 / 10.0)) * (1.0 - f.sc->planet.obstacle_rp / 10.0);
-    f.env.esc_hydro = 0.0;
+    f.env.upper.cap_fraction = (1.0 - sqrt(1.0 - 1.0 / 10.0)) * (1.0 - f.sc->planet.obstacle_rp / 10.0);
+    f.env.escape.hydro = 0.0;
     /* Seki et al. 2001 [V]: net O+ loss ~1e25 s^-1 (a tenth of the disturbed-time
      * outflow); polar wind 1e8 H+ cm^-2 s^-1 over Earth's caps (from memory) = 2.6e25 */
     ck_assert_rel(column(&f, "polar_outflow", "polar_o_kg_s"), 1e25 * M_O, 1e-6);
@@ -205,15 +196,15 @@ START_TEST(dipole_shields_pickup_opens_caps)
     setup(&dip, field, 1);
     /* the same planet with Earth's dipole moment: magnetopause far above the induced
      * obstacle (Chapman-Ferraro, ~21 Mars radii [C]) */
-    ck_assert(dip.env.r_mp_rp > 10.0);
-    ck_assert_double_eq(bare.env.r_mp_rp, bare.sc->planet.obstacle_rp);
+    ck_assert(dip.env.upper.r_mp_rp > 10.0);
+    ck_assert_double_eq(bare.env.upper.r_mp_rp, bare.sc->planet.obstacle_rp);
     double p0 = column(&bare, "ion_pickup", "pickup_o_kg_s");
     double p1 = column(&dip, "ion_pickup", "pickup_o_kg_s");
     double s0 = column(&bare, "sputtering", "sputter_o_kg_s");
     double s1 = column(&dip, "sputtering", "sputter_o_kg_s");
     ck_assert(p0 > 0.0 && p1 > 0.0 && p1 < 1e-2 * p0);
     /* exposure (r_obs/r_mp)^2 exactly: the exobase does not depend on the field */
-    double expo = pow(bare.sc->planet.obstacle_rp / dip.env.r_mp_rp, 2.0);
+    double expo = pow(bare.sc->planet.obstacle_rp / dip.env.upper.r_mp_rp, 2.0);
     ck_assert_rel(p1 / p0, expo, 1e-12);
     ck_assert_rel(s1 / s0, expo, 1e-12);
     /* neutral hot atoms do not see the field */
@@ -272,12 +263,12 @@ START_TEST(venus_from_mars_reference)
     /* Venus (NSSDC, science.md section 9): 4.867e24 kg, 6051.8 km, 0.723 au */
     const char *venus[] = {"planet.mass_mearth=0.81494", "planet.radius_rearth=0.94990",
                            "planet.orbit_au=0.723", "processes.ion_pickup.c_ref_per_s=0",
-                           "processes.hydrogen_escape.enabled=false"};
+                           "escape.thermal=false"};
     setup(&f, venus, 5);
     f.env.f_xuv = 4.6e-3 / (0.723 * 0.723); /* present Sun (Ribas et al. 2005) at Venus */
     f.env.wind_pressure_pa = 1.792e-9 / (0.723 * 0.723);
-    f.env.r_exo_m = 6251.8e3; /* exobase ~200 km, from memory */
-    f.env.esc_hydro = 0.0;
+    f.env.upper.r_exo_m = 6251.8e3; /* exobase ~200 km, from memory */
+    f.env.escape.hydro = 0.0;
     double o = column(&f, "ion_pickup", "pickup_o_kg_s") / M_O;
     double h = column(&f, "ion_pickup", "pickup_h_kg_s") / M_H;
     /* Fedorov et al. 2011 [V]: Venus O+ 2.7e24, H+ 7.1e24 s^-1 at solar minimum; the
@@ -296,11 +287,11 @@ START_TEST(hydrogen_within_diffusion_room)
     fixture f;
     const char *field[] = {"planet.dipole_moment_earth=0.01"};
     setup(&f, field, 1);
-    ck_assert(f.env.cap_fraction > 0.0);
-    f.env.esc_hydro = 0.0;
+    ck_assert(f.env.upper.cap_fraction > 0.0);
+    f.env.escape.hydro = 0.0;
     /* with the room unbounded, each takes its demand */
-    f.env.esc_h_diffusion = 1e30;
-    f.env.esc_h_flux = 0.0;
+    f.env.escape.h_diffusion = 1e30;
+    f.env.escape.h_flux = 0.0;
     double pu = column(&f, "ion_pickup", "pickup_h_kg_s") / M_H;
     double po = column(&f, "polar_outflow", "polar_h_kg_s") / M_H;
     ck_assert(pu > 0.0 && po > 0.0);
@@ -308,15 +299,15 @@ START_TEST(hydrogen_within_diffusion_room)
      * stay within it (Hunten 1973: all escaping H crosses the homopause) and keep their
      * proportions */
     double room = 0.1 * (pu + po);
-    f.env.esc_h_flux = 3.0e10;
-    f.env.esc_h_diffusion = f.env.esc_h_flux + room / f.m->area_m2;
+    f.env.escape.h_flux = 3.0e10;
+    f.env.escape.h_diffusion = f.env.escape.h_flux + room / f.m->planet.area_m2;
     double pu1 = column(&f, "ion_pickup", "pickup_h_kg_s") / M_H;
     double po1 = column(&f, "polar_outflow", "polar_h_kg_s") / M_H;
     ck_assert(pu1 + po1 <= room * (1.0 + 1e-12));
     ck_assert(pu1 + po1 > 0.9 * room);
     ck_assert_rel(pu1 / po1, pu / po, 1e-12);
     /* diffusion-limited thermal escape leaves no room */
-    f.env.esc_h_diffusion = f.env.esc_h_flux;
+    f.env.escape.h_diffusion = f.env.escape.h_flux;
     ck_assert_double_eq(column(&f, "ion_pickup", "pickup_h_kg_s"), 0.0);
     teardown(&f);
 }
@@ -366,7 +357,7 @@ START_TEST(columns_nonnegative_and_conserving)
         fixture f;
         const char *s[] = {dipoles[d]};
         setup(&f, s, 1);
-        f.env.esc_hydro = 0.0;
+        f.env.escape.hydro = 0.0;
         for (int k = 0; k < 4; k++) {
             /* high-entropy drivers, and an emptied O2 reservoir (k = 3) */
             f.env.f_xuv = MARS_XUV * pow(7.31, k);
@@ -400,7 +391,7 @@ START_TEST(present_mars_total)
     setup(&f, NULL, 0);
     double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
     vl_env env;
-    vl_model_rhs(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_FROZEN, dydt, cols, &env);
+    vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_FROZEN, dydt, cols, &env);
     double o = 0.0, h = 0.0;
     for (size_t c = 0; c < f.m->ncolumns; c++) {
         const char *n = f.m->col_name[c];
@@ -416,7 +407,7 @@ START_TEST(present_mars_total)
     ck_assert_msg(o + h > 0.1 && o + h < 10.0, "non-thermal O + H = %g kg/s", o + h);
     /* the model's exobase is where Mars's is (~200 km, from memory) and its drivers
      * near the reference: photochemical O within 20 % of Lillis et al. 2017's 4.3e25 */
-    double alt = (env.r_exo_m - f.sc->planet.radius_m) * 1e-3;
+    double alt = (env.upper.r_exo_m - f.sc->planet.radius_m) * 1e-3;
     ck_assert_msg(alt > 150.0 && alt < 250.0, "exobase at %g km", alt);
     double area = (0.532 * VL_R_EARTH / MARS_R) * (0.532 * VL_R_EARTH / MARS_R);
     int k = -1;
@@ -454,7 +445,7 @@ START_TEST(mars_today_runs)
         if (strncmp(n, "polar_", 6) == 0)
             ck_assert_double_eq(s.channel_kg[c], 0.0);
     }
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST

@@ -125,7 +125,7 @@ START_TEST(earth_history)
             k = (int)i;
     ck_assert_int_ge(k, 0);
     ck_assert_rel(s.channel_kg[k] * 2.016 / 18.015, s.y_final[VL_R_SPACE_H], 1e-2);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -145,7 +145,7 @@ START_TEST(demo_runaway_ends_at_threshold)
     /* the runaway side of the event: the ocean that condenses after it dissolves CO2
      * (docs/cycles.md), which moves the threshold of the row written there */
     vl_env runaway_side;
-    vl_model_env(m, c.event_t[k], c.event_y[k], VL_REGIME_RUNAWAY, &runaway_side);
+    vl_model_env(m, vl_test_work(m), c.event_t[k], c.event_y[k], VL_REGIME_RUNAWAY, &runaway_side);
     const vl_env *e = &runaway_side;
     /* at the located event, S_eff equals the largest flux with a warm equilibrium
      * (docs/model.md: runaway threshold), to the grid's precision: 1e-3 */
@@ -153,13 +153,13 @@ START_TEST(demo_runaway_ends_at_threshold)
     ck_assert(s.time_in_regime_s[VL_REGIME_RUNAWAY] > 0.0);
     /* the wet demo keeps an ocean, the dry one loses all (docs/model.md section 7) */
     ck_assert(s.y_final[VL_R_WATER] > 1.0 * VL_TO_KG);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
     run_file("scenarios/demo-dry.cfg", NULL, 0, &c, &s, &sc, &m);
     check_conservation(&s);
     ck_assert(event_index(&c, "ocean_lost") >= 0);
     ck_assert_int_eq(c.last_env.regime, VL_REGIME_DRY);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -177,11 +177,11 @@ START_TEST(earth_with_column_climate)
     check_conservation(&s);
     ck_assert(s.y_final[VL_R_WATER] > 0.99 * VL_TO_KG);
     double dydt[VL_NRES];
-    vl_model_rhs(m, sc->run.end_s, s.y_final, c.last_env.regime, dydt, NULL, NULL);
+    vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, c.last_env.regime, dydt, NULL, NULL);
     double h = dydt[VL_R_SPACE_H];
     ck_assert_msg(h > 1.0 && h < 9.0, "H escape today %g kg/s", h);
     ck_assert_int_eq(c.last_env.regime, VL_REGIME_TEMPERATE);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -204,7 +204,7 @@ START_TEST(venus_divergence)
     /* D/H of the residual water: measured ~100x (Donahue et al. 1982), > 10x required */
     double dh = vl_output_dh(s.y_final, VL_R_WATER) / sc->inventory.initial_dh;
     ck_assert_msg(dh > 10.0, "D/H enrichment %g", dh);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -222,7 +222,7 @@ START_TEST(mars_divergence)
     /* no stable surface liquid water: the climate finds no liquid share, frozen or dry */
     ck_assert_msg(c.last_env.liquid <= 0.0, "liquid share %g", c.last_env.liquid);
     ck_assert(c.last_env.regime == VL_REGIME_FROZEN || c.last_env.regime == VL_REGIME_DRY);
-    vl_model_free(m);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST

@@ -317,7 +317,7 @@ START_TEST(saltelli_layout_and_indices)
     /* tests/data/sweep/saltelli.cfg: 8 base samples, k = 2: 8 (2 + 2) = 32 members */
     ck_assert_int_eq(rows(m), 32);
     /* Saltelli et al. 2010 layout: block j holds A_j, B_j, then A_j with column i from B_j */
-    int c0 = col(m, "inventory.surface_water_to"), c1 = col(m, "processes.hydrogen_escape.xuv_efficiency");
+    int c0 = col(m, "inventory.surface_water_to"), c1 = col(m, "escape.xuv_efficiency");
     for (int j = 0; j < 8; j++) {
         int a = 4 * j, b = a + 1;
         ck_assert_rel(num(m, a + 2, c0), num(m, b, c0), 1e-12);

@@ -45,38 +45,38 @@ START_TEST(earth_upper_atmosphere)
     y[VL_R_N2] = 3.887e18; /* present atmospheric N2 [C] */
     y[VL_R_O2] = 1.185e18; /* present atmospheric O2, from memory */
     vl_env e;
-    vl_model_env(m, 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
+    vl_model_env(m, vl_test_work(m), 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
     /* dipole 8.0e22 A m^2 gives B_eq = mu0 M / (4 pi R^3) = 3.09e-5 T [C] */
-    ck_assert_rel(e.b_eq_t, 3.09e-5, 5e-3);
+    ck_assert_rel(e.upper.b_eq_t, 3.09e-5, 5e-3);
     /* present solar wind: magnetopause near 10 R_E (textbook 10-11) */
-    ck_assert_msg(e.r_mp_rp > 8.0 && e.r_mp_rp < 12.0, "R_mp = %g", e.r_mp_rp);
+    ck_assert_msg(e.upper.r_mp_rp > 8.0 && e.upper.r_mp_rp < 12.0, "R_mp = %g", e.upper.r_mp_rp);
     /* polar caps: sin^2 theta = 1/R_mp, both caps 1 - cos theta of the surface, tapered
      * by 1 - r_obs/R_mp (docs/escape.md) [C]; Earth's auroral ovals near 70 deg latitude
      * (textbook) -> a few per cent */
-    ck_assert_rel(e.cap_fraction,
-                  (1.0 - sqrt(1.0 - 1.0 / e.r_mp_rp)) * (1.0 - sc->planet.obstacle_rp / e.r_mp_rp),
+    ck_assert_rel(e.upper.cap_fraction,
+                  (1.0 - sqrt(1.0 - 1.0 / e.upper.r_mp_rp)) * (1.0 - sc->planet.obstacle_rp / e.upper.r_mp_rp),
                   1e-12);
-    ck_assert(e.cap_fraction > 0.03 && e.cap_fraction < 0.08);
+    ck_assert(e.upper.cap_fraction > 0.03 && e.upper.cap_fraction < 0.08);
     /* present exobase: ~1000 K (mean solar activity) and a few hundred km (from memory) */
-    ck_assert_msg(e.t_exo_k > 900.0 && e.t_exo_k < 1100.0, "T_exo = %g", e.t_exo_k);
-    double alt_km = (e.r_exo_m - VL_R_EARTH) * 1e-3;
+    ck_assert_msg(e.upper.t_exo_k > 900.0 && e.upper.t_exo_k < 1100.0, "T_exo = %g", e.upper.t_exo_k);
+    double alt_km = (e.upper.r_exo_m - VL_R_EARTH) * 1e-3;
     ck_assert_msg(alt_km > 300.0 && alt_km < 700.0, "exobase at %g km", alt_km);
     /* the exobase criterion: n sigma H = 1 at the exobase [C] */
-    double h = VL_K_BOLTZMANN * e.t_exo_k / (e.m_exo_kg * e.g_exo);
-    ck_assert_rel(e.n_exo_m3 * sc->planet.cross_section_m2 * h, 1.0, 1e-12);
+    double h = VL_K_BOLTZMANN * e.upper.t_exo_k / (e.upper.m_exo_kg * e.upper.g_exo);
+    ck_assert_rel(e.upper.n_exo_m3 * sc->planet.cross_section_m2 * h, 1.0, 1e-12);
     /* an unmagnetised planet has the induced obstacle and no open caps */
-    vl_model_free(m);
+    vl_test_model_free(m);
     ck_assert(vl_scenario_override(sc, "planet.dipole_moment_earth=0", &st) == VL_OK);
     m = vl_model_new(sc, &st);
-    vl_model_env(m, 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
-    ck_assert_double_eq(e.r_mp_rp, sc->planet.obstacle_rp);
-    ck_assert_double_eq(e.cap_fraction, 0.0);
+    vl_model_env(m, vl_test_work(m), 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
+    ck_assert_double_eq(e.upper.r_mp_rp, sc->planet.obstacle_rp);
+    ck_assert_double_eq(e.upper.cap_fraction, 0.0);
     /* CO2 cools the thermosphere (Venus, Mars: a few hundred K) */
-    double t_n2 = e.t_exo_k;
+    double t_n2 = e.upper.t_exo_k;
     y[VL_R_CO2] = 10.0 * y[VL_R_N2];
-    vl_model_env(m, 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
-    ck_assert(e.t_exo_k < 0.5 * t_n2);
-    vl_model_free(m);
+    vl_model_env(m, vl_test_work(m), 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
+    ck_assert(e.upper.t_exo_k < 0.5 * t_n2);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST

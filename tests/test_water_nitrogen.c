@@ -28,28 +28,23 @@ static void setup(fixture *f, const char *const *sets, size_t nsets)
     f->y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
     memset(&f->env, 0, sizeof f->env);
     f->env.heat_flow_rel = 1.0;
-    f->env.g = f->m->g;
-    f->env.area_m2 = f->m->area_m2;
+    f->env.g = f->m->planet.g;
+    f->env.area_m2 = f->m->planet.area_m2;
     f->env.ocean_kg = VL_TO_KG;
     f->env.liquid = 1.0;
 }
 
 static void teardown(fixture *f)
 {
-    vl_model_free(f->m);
+    vl_test_model_free(f->m);
     vl_scenario_free(f->sc);
 }
 
 /* Columns of process `name` evaluated alone at f->env and f->y (cols must hold them). */
 static void eval(fixture *f, const char *name, double *cols)
 {
-    int i = vl_process_find(name);
-    ck_assert_int_ge(i, 0);
-    double dydt[VL_NRES] = {0};
-    vl_flux fx = {f->y, dydt, cols, 0};
-    for (size_t c = 0; c < vl_processes[i]->ncolumns; c++)
-        cols[c] = 0.0;
-    vl_processes[i]->rates(f->sc->proc[i].params, f->m, f->y, &f->env, &fx);
+    double dydt[VL_NRES];
+    vl_test_process_rates(f->m, name, f->y, &f->env, dydt, cols);
 }
 
 /* Regassing and degassing (kg/s) with the ocean holding ocean_to. */
@@ -81,7 +76,7 @@ START_TEST(seafloor_pressure_dependence)
      * R = x_h rho_c chi d_h A_dot = 0.05 x 3000 x 0.23 x 3 km x 3 km^2/yr;
      * D = x_m rho_m d_melt f_degas A_dot, x_m = 2.385 TO / (0.67 M_earth) [C] */
     double p_ref = 26.76e6;
-    water_rates(&f, p_ref * f.m->area_m2 / f.m->g / VL_TO_KG, &r_ref, &d_ref);
+    water_rates(&f, p_ref * f.m->planet.area_m2 / f.m->planet.g / VL_TO_KG, &r_ref, &d_ref);
     double a_dot = 3.0e6 / VL_YR;
     ck_assert_rel(r_ref, 0.05 * 3000.0 * 0.23 * 3000.0 * a_dot, 1e-12);
     double x_m = 2.385 * VL_TO_KG / (0.67 * VL_M_EARTH);
@@ -138,13 +133,13 @@ START_TEST(regassing_needs_liquid_water)
      * needs no ocean) */
     double cols[2];
     f.y[VL_R_WATER] = 1.0 * VL_TO_KG;
-    vl_model_env(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_RUNAWAY, &f.env);
+    vl_model_env(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_RUNAWAY, &f.env);
     eval(&f, "mantle_water", cols);
     ck_assert_double_eq(f.env.liquid, 0.0);
     ck_assert_double_eq(cols[0], 0.0);
     ck_assert(cols[1] > 0.0);
     f.y[VL_R_WATER] = 1e-6 * VL_TO_KG;
-    vl_model_env(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_DRY, &f.env);
+    vl_model_env(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_DRY, &f.env);
     eval(&f, "mantle_water", cols);
     ck_assert_double_eq(cols[0], 0.0);
     ck_assert(cols[1] > 0.0);
@@ -167,7 +162,7 @@ START_TEST(regassing_continuous_through_freezing)
         const char *sets[] = {"climate.model=hz_fit", orbit};
         fixture f;
         setup(&f, sets, 2);
-        vl_model_env(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_FROZEN, &f.env);
+        vl_model_env(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_FROZEN, &f.env);
         double cols[2], full[2], liquid = f.env.liquid;
         eval(&f, "mantle_water", cols);
         f.env.liquid = 1.0;
@@ -272,7 +267,7 @@ START_TEST(nitrogen_burial)
     /* into crust_nitrogen, through the full right-hand side */
     double dydt[VL_NRES];
     f.y[VL_R_WATER] = VL_TO_KG;
-    vl_model_rhs(f.m, 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, NULL);
+    vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, NULL);
     ck_assert(dydt[VL_R_CRUST_N] > 0.0);
     teardown(&f);
 }
@@ -303,8 +298,8 @@ START_TEST(earth_mantle_water)
     /* a surface ocean remains, temperate (present Earth: one ocean, 1.39e21 kg) */
     vl_env env;
     double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
-    vl_model_rhs(m, sc->run.end_s, s.y_final, VL_REGIME_TEMPERATE, dydt, cols, &env);
-    ck_assert_int_eq(vl_climate_classify(m->climate, s.y_final[VL_R_WATER], &env),
+    vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, VL_REGIME_TEMPERATE, dydt, cols, &env);
+    ck_assert_int_eq(vl_climate_classify(m->climate, vl_test_climate_work(m->climate), s.y_final[VL_R_WATER], &env),
                      VL_REGIME_TEMPERATE);
     double ocean_to = s.y_final[VL_R_WATER] / VL_TO_KG;
     ck_assert_msg(ocean_to > 0.5 && ocean_to < 2.0, "ocean %g TO", ocean_to);
@@ -322,8 +317,8 @@ START_TEST(earth_mantle_water)
     ck_assert(found);
     /* today's N2 stays near its start (default regassing balances the default outgassing
      * today): within 10 % (docs/cycles.md) */
-    ck_assert_rel(s.y_final[VL_R_N2], sc->inventory.n2_pa / m->pa_per_kg, 0.1);
-    vl_model_free(m);
+    ck_assert_rel(s.y_final[VL_R_N2], sc->inventory.n2_pa / m->planet.pa_per_kg, 0.1);
+    vl_test_model_free(m);
     vl_scenario_free(sc);
 }
 END_TEST

@@ -227,7 +227,8 @@ class Params:
                 "climate.model": "hz_fit", "planet.interior.heat_flow_model": "radiogenic",
                 "planet.interior.tectonics": "mobile_lid",
                 "processes.photolysis.photon_limited": "false",
-                "processes.hydrogen_escape.radiative_cooling": "false",
+                "escape.radiative_cooling": "false",
+                "escape.thermal": "true", "escape.oxygen_drag": "false",
                 "processes.weathering.runoff": "false"}
         for key, want in need.items():
             if text(key) != want:
@@ -279,7 +280,7 @@ class Params:
         self.log_points = int(v["run.log_points"].rstrip("L"))
         self.linear_points = int(v["run.linear_points"].rstrip("L"))
         # processes
-        pe = "processes.hydrogen_escape."
+        pe = "escape."
         self.eps = real(pe + "xuv_efficiency")
         self.xuv_radius_ratio = real(pe + "xuv_radius_ratio")
         self.homopause_k = real(pe + "homopause_temp_k")
@@ -603,7 +604,7 @@ class Core:
         self.escape(e)
         return e
 
-    # -- hydrogen_escape's prepare hook (without oxygen_drag)
+    # -- the escape stage (src/physics/escape.c) without oxygen drag
     def escape(self, e):
         p = self.p
         m_h, m_d, m_o = AW_H * AMU, AW_D * AMU, AW_O * AMU
@@ -719,7 +720,7 @@ class Core:
         # hydrogen_escape: the H2-borne share
         atoms = (1.0 - e.esc_water_share) * e.esc_h_flux * area
         h2 = self.move(y, dydt, 7, 10, atoms * AW_H * 1e-3 / AVOGADRO, e.esc_d_frac)
-        # photolysis (esc_o_flux = 0 without oxygen_drag: nothing dragged)
+        # photolysis (o_flux = 0 without escape.oxygen_drag: nothing dragged)
         extent = 0.5 * (e.esc_water_share * e.esc_h_flux * area / (2.0 * AVOGADRO))
         lost = 0.0
         r1 = self.react(y, dydt, self.KEEP_O2, (1.0 - lost) * extent, e.esc_d_frac)

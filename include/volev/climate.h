@@ -7,10 +7,17 @@
 #include "volev/env.h"
 #include "volev/scenario.h"
 
-typedef struct vl_climate vl_climate;  /* opaque; immutable during a run */
+typedef struct vl_climate vl_climate;  /* opaque; fixed once created, shareable */
+/* What a run keeps between calls (tables built on demand, caches): one per run, never
+ * shared between threads. */
+typedef struct vl_climate_work vl_climate_work;
 
 vl_climate *vl_climate_new(const vl_scenario *sc, vl_status *st);
 void vl_climate_free(vl_climate *c);   /* accepts NULL */
+
+/* A fresh workspace for runs of c; NULL with st filled when out of memory. */
+vl_climate_work *vl_climate_work_new(const vl_climate *c, vl_status *st);
+void vl_climate_work_free(vl_climate_work *w);  /* accepts NULL */
 
 /* Fill env->t_surf_k, t_balance_k, vapour_kg, ocean_kg, mass_kg[VL_GAS_H2O], f_strat,
  * s_runaway, s_moist and liquid for the regime env->regime. Before the call env holds
@@ -19,10 +26,11 @@ void vl_climate_free(vl_climate *c);   /* accepts NULL */
  * m_mean_kg from mass_kg. The hz_fit greenhouse uses the CO2 partial pressure in dry
  * air (no circular dependence on the vapour). Continuous in the state for a fixed
  * regime. */
-void vl_climate_eval(const vl_climate *c, double water_kg, vl_env *env);
+void vl_climate_eval(const vl_climate *c, vl_climate_work *w, double water_kg, vl_env *env);
 
 /* The regime the conditions in env call for (env filled by vl_climate_eval). */
-int vl_climate_classify(const vl_climate *c, double water_kg, const vl_env *env);
+int vl_climate_classify(const vl_climate *c, vl_climate_work *w, double water_kg,
+                        const vl_env *env);
 
 /* The energy-balance curves at the instant in env (star and dry atmosphere): for each
  * surface temperature of the climate's grid, OLR, absorbed stellar flux, planetary
@@ -37,10 +45,11 @@ typedef struct vl_curve {
     double albedo[VL_CURVE_MAX];
     double f_strat[VL_CURVE_MAX];
 } vl_curve;
-size_t vl_climate_curve(const vl_climate *c, const vl_env *env, int wet, vl_curve *out);
+size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
+                        vl_curve *out);
 
-/* Table statistics: nodes computed so far and the wall time spent on them. */
-void vl_climate_table_stats(const vl_climate *c, long *nodes, double *build_s);
+/* Table statistics of a workspace: nodes computed so far and the wall time spent. */
+void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s);
 
 /* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
 enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,

@@ -1,6 +1,10 @@
-/* env.h: what every process sees at one instant. Computed once per RHS call:
- * star, then atmosphere from the reservoirs, then climate, then the process
- * prepare hooks in registry order (which may publish to the escape fields). */
+/* env.h: the environment at one instant, as the stages of one right-hand-side
+ * evaluation compute it before any process runs, in a fixed order: star and orbit,
+ * interior heat flow, atmosphere from the reservoirs, climate, upper atmosphere
+ * (vl_upper), escape budget (vl_escape). Each stage writes only its own fields and
+ * reads those of the stages before it; processes receive the result read-only, so no
+ * process can change what another sees and the order of the process registry cannot
+ * change any result. */
 #ifndef VOLEV_ENV_H
 #define VOLEV_ENV_H
 
@@ -21,6 +25,44 @@ enum vl_h_limit { VL_HLIM_DIFFUSION = 0, VL_HLIM_JEANS = 1, VL_HLIM_ENERGY = 2 }
 
 /* Atmospheric gases (index into p_pa and x). */
 enum vl_gas { VL_GAS_H2O, VL_GAS_CO2, VL_GAS_N2, VL_GAS_O2, VL_GAS_H2, VL_NGASES };
+
+/* The upper atmosphere and magnetosphere (upper.c; equations in docs/escape.md). */
+typedef struct vl_upper {
+    double f_xuv_rel;         /* f_xuv over present Earth's 4.6e-3 W/m^2 (Ribas et al. 2005) */
+    double t_exo_k;           /* exobase temperature, K */
+    double r_tb_m;            /* radius of the thermosphere base (homopause), m */
+    double r_exo_m;           /* exobase radius, m */
+    double n_exo_m3;          /* total number density at the exobase, m^-3 */
+    double n_tb_m3;           /* total number density at the thermosphere base, m^-3 */
+    double m_exo_kg;          /* mean mass of the thermosphere's particles, kg */
+    double g_exo;             /* gravity at the exobase, m/s^2 */
+    double b_eq_t;            /* equatorial surface field of the dipole, T (0: none) */
+    double r_mp_rp;           /* magnetopause (or induced obstacle) stand-off, planet radii */
+    double cap_fraction;      /* surface share of the open polar caps (dipole mapping of r_mp) */
+} vl_upper;
+
+/* The escape budget shared by several processes (escape.c; docs/escape.md): thermal
+ * hydrogen escape and the oxygen it drags, and the room the diffusion limit leaves for
+ * non-thermal hydrogen. All zero (the room factor 1) when escape.thermal is off. */
+typedef struct vl_escape {
+    double mass_flux;         /* energy-limited mass flux, kg m^-2 s^-1 (surface-area normalised) */
+    double h_diffusion;       /* diffusion-limited H flux, atoms m^-2 s^-1 */
+    double h_flux;            /* H escape flux the budget allows, atoms m^-2 s^-1 */
+    double o_flux;            /* O escape flux dragged with it, atoms m^-2 s^-1 */
+    double water_share;       /* fraction of the homopause hydrogen carried by H2O */
+    double h_jeans;           /* Jeans-limited H flux (exobase density in diffusive equilibrium), atoms m^-2 s^-1 of surface */
+    double hydro;             /* weight 0..1 of the hydrodynamic regime (escape parameter below critical) */
+    double lambda_h;          /* Jeans escape parameter of H at the exobase */
+    double bulk_hydro;        /* weight 0..1 of the whole upper atmosphere flowing out as a
+                                 fluid: hydrodynamic H that dominates it, or heavy atoms
+                                 (O) below their own critical escape parameter */
+    int h_limit;              /* what limits hydrogen escape: enum vl_h_limit */
+    double f_dl;              /* D fractionation factor of diffusion-limited escape */
+    double f_jeans;           /* D fractionation factor of Jeans escape */
+    double d_frac;            /* D fractionation factor of thermal hydrogen escape (blended) */
+    double nt_h_factor;       /* share of the non-thermal H demand (processes' h_demand)
+                                 that fits the room the diffusion limit leaves */
+} vl_escape;
 
 typedef struct vl_env {
     double t_s;               /* stellar age, s */
@@ -52,38 +94,8 @@ typedef struct vl_env {
     double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
     double liquid;            /* ice-free fraction of the ocean (0 without a liquid ocean) */
 
-    /* Upper atmosphere and magnetosphere (upper.c), before the prepare hooks. */
-    double f_xuv_rel;         /* f_xuv over present Earth's 4.6e-3 W/m^2 (Ribas et al. 2005) */
-    double t_exo_k;           /* exobase temperature, K */
-    double r_tb_m;            /* radius of the thermosphere base (homopause), m */
-    double r_exo_m;           /* exobase radius, m */
-    double n_exo_m3;          /* total number density at the exobase, m^-3 */
-    double n_tb_m3;           /* total number density at the thermosphere base, m^-3 */
-    double m_exo_kg;          /* mean mass of the thermosphere's particles, kg */
-    double g_exo;             /* gravity at the exobase, m/s^2 */
-    double b_eq_t;            /* equatorial surface field of the dipole, T (0: none) */
-    double r_mp_rp;           /* magnetopause (or induced obstacle) stand-off, planet radii */
-    double cap_fraction;      /* surface share of the open polar caps (dipole mapping of r_mp) */
-
-    /* Upper-atmosphere escape budget, published by prepare hooks (0 when off). */
-    double esc_mass_flux;     /* energy-limited mass flux, kg m^-2 s^-1 (surface-area normalised) */
-    double esc_h_diffusion;   /* diffusion-limited H flux, atoms m^-2 s^-1 */
-    double esc_h_flux;        /* H escape flux the budget allows, atoms m^-2 s^-1 */
-    double esc_o_flux;        /* O escape flux dragged with it, atoms m^-2 s^-1 */
-    double esc_water_share;   /* fraction of the homopause hydrogen carried by H2O */
-    double esc_h_jeans;       /* Jeans-limited H flux (exobase density in diffusive equilibrium), atoms m^-2 s^-1 of surface */
-    double esc_hydro;         /* weight 0..1 of the hydrodynamic regime (escape parameter below critical) */
-    double lambda_h;          /* Jeans escape parameter of H at the exobase */
-    double esc_bulk_hydro;    /* weight 0..1 of the whole upper atmosphere flowing out as a
-                                 fluid: hydrodynamic H that dominates it, or heavy atoms
-                                 (O) below their own critical escape parameter */
-    int esc_h_limit;          /* what limits hydrogen escape: enum vl_h_limit */
-    double photolysis_mol_s;  /* net H2O photolysed (its H escapes), mol/s */
-    double esc_f_dl;          /* D fractionation factor of diffusion-limited escape */
-    double esc_f_jeans;       /* D fractionation factor of Jeans escape */
-    double esc_d_frac;        /* D fractionation factor of thermal hydrogen escape (blended) */
-    double nt_h_factor;       /* share of the capped non-thermal H demand that fits the diffusion room */
-    int nt_h_factor_set;      /* 1 once a prepare hook has computed nt_h_factor */
+    vl_upper upper;           /* upper-atmosphere stage (upper.c) */
+    vl_escape escape;         /* escape-budget stage (escape.c) */
 } vl_env;
 
 #endif

@@ -1,8 +1,10 @@
-/* flux.h: the only way a process changes the state. Transfers move mass between
- * reservoirs of identical element make-up; reactions have fixed stoichiometry
- * checked for element balance at start-up. Conservation of H, C, N, O is thus
- * structural. Outflows are ramped to zero inside each source's floor band
- * (reservoir.h), so masses never go negative and the RHS stays continuous. */
+/* flux.h: the only way a process changes the state. A process declares its transfers
+ * (mass moved between reservoirs of identical element make-up) and reactions (fixed,
+ * balanced stoichiometry) in its descriptor (process.h); the model refuses a declaration
+ * that does not conserve every element when it is built, and the flux functions take
+ * the index of a declared row, so conservation of H, D, C, N, O holds by construction.
+ * Outflows are ramped to zero inside each source's floor band (reservoir.h), so masses
+ * never go negative and the RHS stays continuous. */
 #ifndef VOLEV_FLUX_H
 #define VOLEV_FLUX_H
 
@@ -18,11 +20,21 @@ typedef struct vl_reaction {
     double nu[VL_REACTION_MAX];/* stoichiometric coefficient: < 0 consumed, > 0 produced */
 } vl_reaction;
 
+/* A transfer: mass moved from one reservoir to another of the same make-up. */
+typedef struct vl_transfer {
+    int from, to;
+} vl_transfer;
+
+/* The flux accumulator of the process being evaluated (filled by the model). */
 typedef struct vl_flux {
     const double *y;           /* state, kg (borrowed) */
-    double *dydt;              /* accumulated tendencies, kg/s (borrowed) */
+    double *dydt;              /* this process's tendencies, kg/s (borrowed) */
     double *columns;           /* per-process output columns, kg/s, or NULL (borrowed) */
     size_t col_base;           /* first column of the process being evaluated */
+    const vl_transfer *transfers; /* the process's declared transfers (borrowed) */
+    size_t ntransfers;
+    const vl_reaction *reactions; /* its declared reactions (borrowed) */
+    size_t nreactions;
 } vl_flux;
 
 /* Depletion ramp of reservoir r at mass m, x = m/band: 1 above the band, x (2 - x) inside
@@ -35,28 +47,32 @@ double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s);
 /* The same for no demand (band = floor). */
 double vl_flux_ramp(int r, double m_kg);
 
-/* Move kg_s (>= 0) from reservoir `from` to `to` (same element make-up). The applied
- * rate (after the ramp) is added to the process's column col (if col >= 0) and returned. */
-double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col);
+/* Move kg_s (>= 0) along the process's declared transfer k. The applied rate (after the
+ * ramp) is added to the process's column col (if col >= 0) and returned. */
+double vl_flux_transfer(vl_flux *fx, int k, double kg_s, int col);
 
 /* The same, with hydrogen carrying deuterium at f_d times the source's D/H (the
- * fractionation factor of an escape process; vl_flux_move uses 1). Deuterium moves
+ * fractionation factor of an escape process; vl_flux_transfer uses 1). Deuterium moves
  * between the companions of H-bearing reservoirs (vl_reservoir_deuterium). */
-double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, double f_d);
+double vl_flux_transfer_f(vl_flux *fx, int k, double kg_s, int col, double f_d);
 
-/* Run reaction r at extent rate mol_s (>= 0): reservoir i changes by nu_i * M_i * rate.
- * Ramped by every consumed reservoir. Column col gets the mass rate of the first
- * term, kg/s. Returns the applied extent rate, mol/s. */
-double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col);
+/* Run the process's declared reaction k at extent rate mol_s (>= 0): reservoir i
+ * changes by nu_i * M_i * rate. Ramped by every consumed reservoir. Column col gets the
+ * mass rate of the first term, kg/s. Returns the applied extent rate, mol/s. */
+double vl_flux_react(vl_flux *fx, int k, double mol_s, int col);
 
-/* The same with deuterium fractionation f_d (see vl_flux_move_f): deuterium leaves each
- * H-bearing reactant with its hydrogen and is shared among the H-bearing products in
- * proportion to their hydrogen. */
-double vl_flux_react_f(vl_flux *fx, const vl_reaction *r, double mol_s, int col, double f_d);
+/* The same with deuterium fractionation f_d (see vl_flux_transfer_f): deuterium leaves
+ * each H-bearing reactant with its hydrogen and is shared among the H-bearing products
+ * in proportion to their hydrogen. */
+double vl_flux_react_f(vl_flux *fx, int k, double mol_s, int col, double f_d);
+
+/* Add kg_s to the process's column col (when columns are recorded): for a column that
+ * reports part of a transfer or reaction, e.g. one element of a reaction's products. */
+void vl_flux_add_column(vl_flux *fx, int col, double kg_s);
 
 /* 0 if r balances every element to 1e-12 relative; else nonzero with a reason in why. */
 int vl_reaction_check(const vl_reaction *r, char *why, size_t n);
-/* 0 if a move between the two reservoirs conserves every element. */
+/* 0 if a transfer between the two reservoirs conserves every element. */
 int vl_move_check(int from, int to);
 
 /* Element inventory of the state: kg of each element over all reservoirs (incl. space). */

@@ -20,6 +20,10 @@ typedef struct vl_run_stats {
     double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
     double channel_kg[VL_MAX_COLUMNS]; /* time integral of each process flux column, kg
                                           (trapezoid over accepted steps) */
+    vl_env env_last;           /* every stage at the last output row (the run's end once
+                                  it succeeded) */
+    long climate_nodes;        /* climate table nodes the run built */
+    double climate_build_s;    /* wall time spent building them */
 } vl_run_stats;
 
 typedef struct vl_run_sink {

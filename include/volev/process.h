@@ -1,5 +1,14 @@
-/* process.h: a physical process is a plug-in. Each file in src/physics/processes exports
- * one constant descriptor, listed once in src/physics/processes/processes.def. */
+/* process.h: a physical process is a plug-in. Each file in src/physics/processes
+ * exports one constant descriptor, listed once in src/physics/processes/processes.def.
+ *
+ * The contract. A process's rates function sees only what it needs, read-only: its own
+ * typed parameters, the run's constants (planet.h), the environment with every stage
+ * computed before processes run (env.h: star, atmosphere, climate, upper atmosphere,
+ * escape budget) and the state. It changes the state only through the transfers and
+ * reactions it declares (flux.h), which the model checks for element balance when it is
+ * built. It never writes anything another process reads and never reads another
+ * process's parameters; what several processes share is computed by a stage. So the
+ * order of the registry cannot change a result (tests/test_contract.c). */
 #ifndef VOLEV_PROCESS_H
 #define VOLEV_PROCESS_H
 
@@ -7,9 +16,15 @@
 #include "volev/env.h"
 #include "volev/flux.h"
 #include "volev/params.h"
+#include "volev/planet.h"
 #include "volev/scenario.h"
 
-typedef struct vl_model vl_model;
+/* What a process sees at one instant. */
+typedef struct vl_view {
+    const double *y;           /* state, kg (VL_NRES entries) */
+    const vl_planet *planet;   /* the run's constants */
+    const vl_env *env;         /* every stage at this instant */
+} vl_view;
 
 typedef struct vl_process {
     const char *name;          /* key under `processes` in the scenario */
@@ -20,32 +35,51 @@ typedef struct vl_process {
     size_t params_size;        /* bytes of its parameter block */
     const char *const *columns;/* output column names of its fluxes (each kg/s) */
     size_t ncolumns;
+    /* What it may do to the state (flux.h): index k of vl_flux_transfer / vl_flux_react
+     * is a row of these tables. Checked for element balance at model build. */
+    const vl_transfer *transfers;
+    size_t ntransfers;
+    const vl_reaction *reactions;
+    size_t nreactions;
     int default_enabled;
     /* Optional: add to the initial state (kg) after the inventory, e.g. a pool that the
      * process will draw from during the run. */
-    void (*initial)(const void *params, const vl_model *m, double *y);
+    void (*initial)(const void *params, const vl_planet *pl, double *y);
     /* Optional: cross-check parameters against the scenario at load time. */
     int (*check)(const void *params, const vl_scenario *sc, vl_status *st);
-    /* Optional: publish to env before any rates are evaluated (registry order). */
-    void (*prepare)(const void *params, const vl_model *m, const double *y, vl_env *env);
+    /* Optional: non-thermal hydrogen this process would remove, particles/s, before the
+     * room the diffusion limit leaves (escape.h): the escape stage adds up every
+     * declared demand and publishes the share that fits as env->escape.nt_h_factor,
+     * which the process then applies to its own hydrogen. */
+    double (*h_demand)(const void *params, const vl_view *v);
     /* Tendencies through the flux API only. */
-    void (*rates)(const void *params, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx);
+    void (*rates)(const void *params, const vl_view *v, vl_flux *fx);
 } vl_process;
+
+/* Number of rows of a table (an array, not a pointer). */
+#define VL_COUNT(table) (sizeof(table) / sizeof((table)[0]))
 
 /* Designated initialisers for a descriptor's tables: parameter table, parameter
  * struct type and column-name array (both arrays, so their sizes are known). */
 #define VL_PROCESS_TABLES(table, param_type, column_names)                              \
-    .params = (table), .nparams = sizeof(table) / sizeof((table)[0]),                  \
-    .params_size = sizeof(param_type), .columns = (column_names),                      \
-    .ncolumns = sizeof(column_names) / sizeof((column_names)[0])
+    .params = (table), .nparams = VL_COUNT(table), .params_size = sizeof(param_type),  \
+    .columns = (column_names), .ncolumns = VL_COUNT(column_names)
 
-/* The registry, in processes.def order (at most VL_MAX_PROCESSES). */
+/* The same for its declared transfers and reactions. */
+#define VL_PROCESS_TRANSFERS(table) .transfers = (table), .ntransfers = VL_COUNT(table)
+#define VL_PROCESS_REACTIONS(table) .reactions = (table), .nreactions = VL_COUNT(table)
+
+/* The registry, in processes.def order (at most VL_MAX_PROCESSES). The order only sets
+ * where each process's columns appear in the outputs. */
 #define VL_MAX_PROCESSES 64
 extern const vl_process *const vl_processes[];
 extern const size_t vl_nprocesses;
 
 /* Index of the process called name, or -1. */
 int vl_process_find(const char *name);
+
+/* 0 if every transfer and reaction p declares conserves every element and names valid,
+ * distinct reservoirs; else an internal error naming the process and the declaration. */
+int vl_process_check_declarations(const vl_process *p, vl_status *st);
 
 #endif

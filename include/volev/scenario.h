@@ -108,6 +108,21 @@ typedef struct vl_climate_params {
     double steam_full_k;       /* T_s where it reaches it */
 } vl_climate_params;
 
+/* The escape budget (escape.c): thermal hydrogen escape and the oxygen it drags. */
+typedef struct vl_escape_params {
+    int thermal;               /* thermal escape of hydrogen on (off: a zero budget) */
+    double efficiency;         /* XUV heating efficiency eps */
+    double xuv_radius_ratio;   /* R_XUV / R_p */
+    double homopause_temp_k;   /* temperature in the diffusion coefficient and scale heights */
+    int roche;                 /* apply the Roche-lobe factor K */
+    double lambda_crit;        /* hydrodynamic below this escape parameter */
+    int cooling;               /* reduce eps by CO2 and H2O cooling */
+    double cool_co2;           /* c_CO2 */
+    double cool_h2o;           /* c_H2O */
+    int drag;                  /* the escaping hydrogen drags oxygen (shares the energy) */
+    double drag_temp_k;        /* temperature of the escaping flow in the crossover mass */
+} vl_escape_params;
+
 typedef struct vl_run_params {
     double start_s;            /* stellar age at start */
     double end_s;              /* stellar age at end */
@@ -135,6 +150,7 @@ typedef struct vl_scenario {
     vl_interior_params interior;
     vl_inventory_params inventory;
     vl_climate_params climate;
+    vl_escape_params escape;
     vl_run_params run;
     vl_process_cfg *proc;      /* owned; one per registered process, registry order */
     unsigned char *origin;     /* owned; enum vl_origin per parameter, global index order */

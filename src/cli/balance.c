@@ -54,10 +54,10 @@ static int write_curves(const char *path, const vl_model *m, const vl_env *env, 
     fprintf(f, "# stellar age %.6g yr: instellation %.6g W/m^2 (s_eff %.6g), Teff %.6g K\n",
             env->t_s / VL_YR, env->instellation, env->s_eff, env->star.teff_k);
     fprintf(f, "# dry atmosphere: CO2 %.6g bar, N2 %.6g bar, O2 %.6g bar, H2 %.6g bar (alone); %s\n",
-            env->mass_kg[VL_GAS_CO2] * m->pa_per_kg / VL_BAR,
-            env->mass_kg[VL_GAS_N2] * m->pa_per_kg / VL_BAR,
-            env->mass_kg[VL_GAS_O2] * m->pa_per_kg / VL_BAR,
-            env->mass_kg[VL_GAS_H2] * m->pa_per_kg / VL_BAR, wet ? "over an ocean" : "no water");
+            env->mass_kg[VL_GAS_CO2] * m->planet.pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_N2] * m->planet.pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_O2] * m->planet.pa_per_kg / VL_BAR,
+            env->mass_kg[VL_GAS_H2] * m->planet.pa_per_kg / VL_BAR, wet ? "over an ocean" : "no water");
     fprintf(f, "# runaway threshold s_eff %.6g; moist-greenhouse threshold s_eff %.6g\n",
             env->s_runaway, env->s_moist);
     fprintf(f, "# stable equilibria (K):");
@@ -120,9 +120,10 @@ int vl_cli_balance(int argc, char **argv)
         size_t n = 0;
         if (st.code == VL_OK && !cv)
             vl_fail(&st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        vl_work *w = st.code == VL_OK ? vl_work_new(m, &st) : NULL;
         if (st.code == VL_OK) {
-            vl_model_env(m, t, y, wet ? VL_REGIME_TEMPERATE : VL_REGIME_DRY, &env);
-            n = vl_climate_curve(m->climate, &env, wet, cv);
+            vl_model_env(m, w, t, y, wet ? VL_REGIME_TEMPERATE : VL_REGIME_DRY, &env);
+            n = vl_climate_curve(m->climate, vl_work_climate(w), &env, wet, cv);
             if (n == 0)
                 vl_fail(&st, VL_ERR_INPUT, sc->path, 0,
                         "balance needs climate.model = \"column\" (the habitable-zone fits have "
@@ -141,6 +142,7 @@ int vl_cli_balance(int argc, char **argv)
             if (write_curves(path, m, &env, wet, cv, n, &st) == VL_OK)
                 printf("output: %s\n", dir);
         }
+        vl_work_free(w);
         free(cv);
     }
     return vl_cli_finish(&a, sc, m, &st);

@@ -27,7 +27,7 @@ static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
     printf("water lost to space: %.6g TO\n",
            y[VL_R_SPACE_H] / (2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O)) / VL_TO_KG);
     printf("O2 left in the atmosphere: %.6g bar\n",
-           (y[VL_R_O2] > 0 ? y[VL_R_O2] : 0) * m->pa_per_kg / VL_BAR);
+           (y[VL_R_O2] > 0 ? y[VL_R_O2] : 0) * m->planet.pa_per_kg / VL_BAR);
     printf("steps %ld, RHS evaluations %ld, events %ld, stepper restarts %ld, %.3f s\n",
            s->steps, s->rhs_calls, s->events, s->restarts, s->wall_s);
     printf("output: %s\n", dir);

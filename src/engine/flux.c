@@ -3,6 +3,7 @@
 
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 
 /* With x = m / band: 1 for x >= 1, x (2 - x) inside the band and 2 x below zero, so that
  * an integrator overshoot past zero is pulled back (the flow reverses) instead of
@@ -34,13 +35,24 @@ static double deuterium_out(const vl_flux *fx, int from, double rate, double f_d
     return f_d * rate / fx->y[from] * yd;
 }
 
-double vl_flux_move(vl_flux *fx, int from, int to, double kg_s, int col)
+/* A declaration index outside the process's tables is a programming error that the
+ * model's build-time check cannot see: stop loudly rather than move mass unchecked. */
+static void undeclared(const char *what, int k, size_t n)
 {
-    return vl_flux_move_f(fx, from, to, kg_s, col, 1.0);
+    fprintf(stderr, "volev: internal error: %s %d used, %zu declared\n", what, k, n);
+    abort();
 }
 
-double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, double f_d)
+double vl_flux_transfer(vl_flux *fx, int k, double kg_s, int col)
 {
+    return vl_flux_transfer_f(fx, k, kg_s, col, 1.0);
+}
+
+double vl_flux_transfer_f(vl_flux *fx, int k, double kg_s, int col, double f_d)
+{
+    if (k < 0 || (size_t)k >= fx->ntransfers)
+        undeclared("transfer", k, fx->ntransfers);
+    int from = fx->transfers[k].from, to = fx->transfers[k].to;
     double rate = kg_s * vl_flux_ramp_for(from, fx->y[from], kg_s);
     fx->dydt[from] -= rate;
     fx->dydt[to] += rate;
@@ -55,21 +67,30 @@ double vl_flux_move_f(vl_flux *fx, int from, int to, double kg_s, int col, doubl
     return rate;
 }
 
-double vl_flux_react(vl_flux *fx, const vl_reaction *r, double mol_s, int col)
+double vl_flux_react(vl_flux *fx, int k, double mol_s, int col)
 {
-    return vl_flux_react_f(fx, r, mol_s, col, 1.0);
+    return vl_flux_react_f(fx, k, mol_s, col, 1.0);
 }
 
-double vl_flux_react_f(vl_flux *fx, const vl_reaction *r, double mol_s, int col, double f_d)
+void vl_flux_add_column(vl_flux *fx, int col, double kg_s)
 {
+    if (fx->columns && col >= 0)
+        fx->columns[fx->col_base + (size_t)col] += kg_s;
+}
+
+double vl_flux_react_f(vl_flux *fx, int k, double mol_s, int col, double f_d)
+{
+    if (k < 0 || (size_t)k >= fx->nreactions)
+        undeclared("reaction", k, fx->nreactions);
+    const vl_reaction *r = &fx->reactions[k];
     double lim = 1.0;
     for (int i = 0; i < r->n; i++)
         if (r->nu[i] < 0.0) {
             int res = r->res[i];
             double demand = -r->nu[i] * vl_species_molar_mass(vl_reservoir_species(res)) * mol_s;
-            double k = vl_flux_ramp_for(res, fx->y[res], demand);
-            if (k < lim)
-                lim = k;
+            double ramp = vl_flux_ramp_for(res, fx->y[res], demand);
+            if (ramp < lim)
+                lim = ramp;
         }
     double rate = mol_s * lim;
     double d_total = 0.0, h_products = 0.0;

@@ -30,6 +30,7 @@ int vl_integrate_stop_signal(void) { return stop_sig; }
 
 typedef struct {
     const vl_model *m;
+    vl_work *w;                /* the run's workspace */
     int regime;
     long rhs_calls;
     double f0[VL_NRES], f1[VL_NRES], yt[VL_NRES];
@@ -47,7 +48,7 @@ static int rhs(double t, const double y[], double f[], void *pv)
 {
     ctx_t *c = pv;
     c->rhs_calls++;
-    vl_model_rhs(c->m, t, y, c->regime, f, NULL, NULL);
+    vl_model_rhs(c->m, c->w, t, y, c->regime, f, NULL, NULL);
     return all_finite(f, VL_NRES) ? GSL_SUCCESS : GSL_EBADFUNC;
 }
 
@@ -144,19 +145,18 @@ typedef struct {
 } signature_t;
 
 /* The signature at (t, y); with cols (m->ncolumns) also the process flux columns. */
-static signature_t signature(const vl_model *m, double t, const double *y, int regime,
+static signature_t signature(const vl_model *m, vl_work *w, double t, const double *y, int regime,
                              unsigned long armed, double *cols)
 {
     vl_env env;
     signature_t s = {0, 0};
     if (cols) {
         double dydt[VL_NRES];
-        vl_model_rhs(m, t, y, regime, dydt, cols, &env);
+        vl_model_rhs(m, w, t, y, regime, dydt, cols, &env);
     } else {
-        vl_model_env(m, t, y, regime, &env);
+        vl_model_env(m, w, t, y, regime, &env);
     }
-    double water = y[VL_R_WATER] > 0.0 ? y[VL_R_WATER] : 0.0;
-    s.regime = vl_climate_classify(m->climate, water, &env);
+    s.regime = vl_model_classify(m, w, y, &env);
     if (s.regime != regime) {
         /* take a change only to a regime consistent with itself: where the regime in force
          * calls for another that, evaluated in its own right, calls straight back (the
@@ -164,8 +164,8 @@ static signature_t signature(const vl_model *m, double t, const double *y, int r
          * limit), keep the one in force instead of switching back and forth every
          * event tolerance (docs/model.md section 6) */
         vl_env other;
-        vl_model_env(m, t, y, s.regime, &other);
-        if (vl_climate_classify(m->climate, water, &other) == regime)
+        vl_model_env(m, w, t, y, s.regime, &other);
+        if (vl_model_classify(m, w, y, &other) == regime)
             s.regime = regime;
     }
     for (int r = 0; r < VL_NRES; r++)
@@ -194,10 +194,11 @@ static int emit_row(runner_t *r, double t, const double *y, vl_status *st)
     double *cols = calloc(r->m->ncolumns ? r->m->ncolumns : 1, sizeof *cols);
     if (!cols)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
-    vl_model_rhs(r->m, t, y, r->c->regime, dydt, cols, &env);
+    vl_model_rhs(r->m, r->c->w, t, y, r->c->regime, dydt, cols, &env);
     for (int i = 0; i < VL_NRES; i++)
         if (y[i] < r->stats->min_mass_kg)
             r->stats->min_mass_kg = y[i];
+    r->stats->env_last = env;
     int rc = r->sink->row ? r->sink->row(r->sink->ctx, t, y, dydt, &env, cols, st) : VL_OK;
     free(cols);
     return rc;
@@ -276,7 +277,7 @@ static int locate(runner_t *r, stepper_t *sub, double t0, const double *y0, doub
         int rc = advance_to(sub, &t, tm, &h, ym, NULL, st);
         if (rc != VL_OK)
             return rc;
-        signature_t s = signature(r->m, tm, ym, r->c->regime, armed, NULL);
+        signature_t s = signature(r->m, r->c->w, tm, ym, r->c->regime, armed, NULL);
         if (same(s, r->c->regime)) {
             ta = tm;
             memcpy(ya, ym, sizeof ya);
@@ -290,10 +291,10 @@ static int locate(runner_t *r, stepper_t *sub, double t0, const double *y0, doub
 }
 
 /* Settle the regime at (t, y): classify until it no longer changes (at most 4 passes). */
-static int settle_regime(const vl_model *m, double t, const double *y, int regime)
+static int settle_regime(const vl_model *m, vl_work *w, double t, const double *y, int regime)
 {
     for (int pass = 0; pass < 4; pass++) {
-        signature_t s = signature(m, t, y, regime, 0, NULL);
+        signature_t s = signature(m, w, t, y, regime, 0, NULL);
         if (s.regime == regime)
             break;
         regime = s.regime;
@@ -332,7 +333,7 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
     double y[VL_NRES], y0[VL_NRES], t = rp->start_s;
     vl_model_initial_state(m, y);
     vl_ledger_totals(y, r->stats->totals0);
-    r->c->regime = settle_regime(m, t, y, VL_REGIME_TEMPERATE);
+    r->c->regime = settle_regime(m, r->c->w, t, y, VL_REGIME_TEMPERATE);
     unsigned long armed = rearm(y, 0);
     int rc = emit_event(r, t, "start", vl_regime_name(r->c->regime), st);
     if (rc == VL_OK)
@@ -340,7 +341,7 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
     double h = fmin(1e3 * VL_YR, 1e-3 * (rp->end_s - rp->start_s));
     /* flux columns at the last accepted point, for the channel budget */
     double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
-    signature(m, t, y, r->c->regime, 0, prev);
+    signature(m, r->c->w, t, y, r->c->regime, 0, prev);
     for (size_t k = 1; k < nout && rc == VL_OK; k++) {
         while (t < tout[k] && rc == VL_OK) {
             double t0 = t;
@@ -376,13 +377,13 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
                              t / VL_YR);
                 break;
             }
-            signature_t s = signature(m, t, y, r->c->regime, armed, now);
+            signature_t s = signature(m, r->c->w, t, y, r->c->regime, armed, now);
             if (!same(s, r->c->regime)) {
                 rc = locate(r, sub, t0, y0, &t, y, armed, &s, st);
                 if (rc != VL_OK)
                     break;
                 r->stats->time_in_regime_s[r->c->regime] += t - t0;
-                signature(m, t, y, r->c->regime, 0, now);
+                signature(m, r->c->w, t, y, r->c->regime, 0, now);
                 accumulate(r->stats, m->ncolumns, prev, now, t - t0);
                 for (int q = 0; q < VL_NRES && rc == VL_OK; q++)
                     if (s.exhausted >> q & 1UL)
@@ -390,12 +391,12 @@ static int run_loop(runner_t *r, stepper_t *main_s, stepper_t *sub, vl_status *s
                 armed &= ~s.exhausted;
                 if (s.regime != r->c->regime && rc == VL_OK) {
                     int old = r->c->regime;
-                    r->c->regime = settle_regime(m, t, y, s.regime);
+                    r->c->regime = settle_regime(m, r->c->w, t, y, s.regime);
                     rc = log_regime_change(r, t, old, r->c->regime, st);
                 }
                 if (rc == VL_OK)
                     rc = emit_row(r, t, y, st);
-                signature(m, t, y, r->c->regime, 0, prev); /* the new regime's fluxes */
+                signature(m, r->c->w, t, y, r->c->regime, 0, prev); /* the new regime's fluxes */
                 stepper_reset(main_s);
                 h = fmax(rp->event_tol_s, 1e-9 * t);
             } else {
@@ -434,10 +435,15 @@ int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats
     }
     if (!c || !stepper_init(&main_s, c, &m->sc->run) || !stepper_init(&sub, c, &m->sc->run)) {
         rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    } else if (!(c->w = vl_work_new(m, st))) {
+        rc = st->code;
     } else {
         c->m = m;
         runner_t r = {m, sink, stats, c};
         rc = run_loop(&r, &main_s, &sub, st);
+        vl_climate_work_stats(vl_work_climate(c->w), &stats->climate_nodes,
+                              &stats->climate_build_s);
+        vl_work_free(c->w);
     }
     stats->rhs_calls = c ? c->rhs_calls : 0;
     stepper_free(&main_s);

@@ -675,7 +675,7 @@ static int catch_row(void *ctx, double t, const double *y, const double *dydt, c
     }
     c->t[c->n] = t;
     c->w[c->n] = fmax(y[VL_R_WATER], 0.0) / VL_TO_KG;
-    c->o[c->n] = fmax(y[VL_R_O2], 0.0) * c->m->pa_per_kg / VL_BAR;
+    c->o[c->n] = fmax(y[VL_R_O2], 0.0) * c->m->planet.pa_per_kg / VL_BAR;
     c->n++;
     return VL_OK;
 }
@@ -779,12 +779,10 @@ void vl_sweep_run_member(const vl_sweep *sw, long i, vl_member *res)
         vl_run_stats s;
         if (vl_integrate(m, &sink, &s, &st) == VL_OK) {
             const double *y = s.y_final;
-            double pa = m->pa_per_kg / VL_BAR;
+            double pa = m->planet.pa_per_kg / VL_BAR;
             double h_per_water = 2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O);
-            vl_env env;
+            const vl_env env = s.env_last; /* the final row's stages */
             res->regime = c.end_regime;
-            vl_model_env(m, sc->run.end_s, y, res->regime >= 0 ? res->regime : VL_REGIME_TEMPERATE,
-                         &env);
             res->steps = s.steps;
             res->out[VL_OUT_WATER] = fmax(y[VL_R_WATER], 0.0) / VL_TO_KG;
             res->out[VL_OUT_WATER_LOST] = y[VL_R_SPACE_H] / h_per_water / VL_TO_KG;

@@ -15,12 +15,16 @@
     {k, VL_PT_INT, "", 1.0, d, lo, hi, NULL, NULL, OFF(f), doc, ref, NULL, 0}
 #define CHOICE(k, ch, d, f, doc, ref, needs) \
     {k, VL_PT_CHOICE, "", 1.0, d, 0, 0, ch, NULL, OFF(f), doc, ref, needs, 0}
+#define BOOL(k, d, f, doc, ref, needs) \
+    {k, VL_PT_BOOL, "", 1.0, d, 0, 1, NULL, NULL, OFF(f), doc, ref, needs, 0}
 #define PATH(k, f, doc, needs) \
     {k, VL_PT_PATH, "", 1.0, 0, 0, 0, NULL, "", OFF(f), doc, "", needs, 0}
 
 #define RATIO_ONLY "star.xuv.model=ratio"
 #define HZ_ONLY "climate.model=hz_fit"
 #define COLUMN_ONLY "climate.model=column"
+#define COOLING_ONLY "escape.radiative_cooling=true"
+#define DRAG_ONLY "escape.oxygen_drag=true"
 
 const vl_param vl_core_params[] = {
     /* ---- star ---- */
@@ -248,6 +252,41 @@ const vl_param vl_core_params[] = {
     REAL("climate.column.steam_full_temp_k", "K", 1.0, 330.0, 250.0, 650.0, climate.steam_full_k,
          "surface temperature where the albedo reaches the steam value", "common practice",
          COLUMN_ONLY),
+
+    /* ---- escape budget (escape.c, docs/escape.md) ---- */
+    BOOL("escape.thermal", 1, escape.thermal,
+         "thermal escape of hydrogen (and the oxygen it drags): the least of the diffusion, "
+         "Jeans and energy limits; false: no thermal escape, and non-thermal hydrogen is "
+         "not held to the diffusion room",
+         "Hunten 1973; Chamberlain & Hunten 1987; Watson, Donahue & Walker 1981", NULL),
+    REAL("escape.xuv_efficiency", "", 1.0, 0.15, 0.0, 1.0, escape.efficiency,
+         "fraction of absorbed XUV energy that drives escape",
+         "Lammer et al. 2009, A&A 506:399: 0.1-0.3", NULL),
+    REAL("escape.xuv_radius_ratio", "", 1.0, 1.0, 1.0, 10.0, escape.xuv_radius_ratio,
+         "radius where XUV is absorbed over planet radius",
+         "common practice (1 for rocky planets)", NULL),
+    REAL("escape.homopause_temp_k", "K", 1.0, 250.0, 100.0, 3000.0, escape.homopause_temp_k,
+         "temperature of the homopause region in the diffusion limit",
+         "from memory (gives ~2.5e13 f_T H2 cm^-2 s^-1 for Earth, Catling & Kasting 2017)", NULL),
+    BOOL("escape.roche_lobe", 1, escape.roche, "apply the Roche-lobe enhancement 1/K",
+         "Erkaev et al. 2007", NULL),
+    REAL("escape.critical_lambda", "", 1.0, 2.5, 0.5, 20.0, escape.lambda_crit,
+         "escape parameter below which the flow is hydrodynamic",
+         "~2-3, e.g. Volkov et al. 2011, from memory", NULL),
+    BOOL("escape.radiative_cooling", 0, escape.cooling,
+         "reduce the heating efficiency by CO2 and H2O cooling", "off: documented option", NULL),
+    REAL("escape.cooling_co2", "", 1.0, 3.7, 0.0, 1e3, escape.cool_co2,
+         "c_CO2 in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)",
+         "as planet.exobase.co2_cooling, from memory", COOLING_ONLY),
+    REAL("escape.cooling_h2o", "", 1.0, 1.0, 0.0, 1e3, escape.cool_h2o,
+         "c_H2O in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)", "from memory", COOLING_ONLY),
+    BOOL("escape.oxygen_drag", 1, escape.drag,
+         "escaping hydrogen drags oxygen above the crossover flux and shares the energy-"
+         "limited mass flux with it",
+         "Hunten, Pepin & Walker 1987, Icarus 69:532", NULL),
+    REAL("escape.drag_flow_temp_k", "K", 1.0, 400.0, 100.0, 10000.0, escape.drag_temp_k,
+         "temperature of the escaping flow in the crossover mass",
+         "Hunten, Pepin & Walker 1987; Luger & Barnes 2015 use 400 K, from memory", DRAG_ONLY),
 
     /* ---- run ---- */
     REAL("run.start_yr", "yr", VL_YR, 1e7, 1e3, 1e11, run.start_s,

@@ -189,8 +189,8 @@ static int row_cb(void *ctx, double t, const double *y, const double *dydt, cons
             env->star.l_bol_w / VL_L_SUN, env->f_strat, clamp0(dydt[VL_R_SPACE_H]),
             clamp0(dydt[VL_R_SPACE_O]));
     fprintf(f, ",%.10g,%.10g,%.10g,%.10g,%.10g,%.10g,%d,%.10g", clamp0(dydt[VL_R_SPACE_C]),
-            clamp0(dydt[VL_R_SPACE_N]), env->t_exo_k, (env->r_exo_m - o->m->sc->planet.radius_m) * 1e-3,
-            env->r_mp_rp, env->lambda_h, env->esc_h_limit, ocean_co2(y, env));
+            clamp0(dydt[VL_R_SPACE_N]), env->upper.t_exo_k, (env->upper.r_exo_m - o->m->planet.radius_m) * 1e-3,
+            env->upper.r_mp_rp, env->escape.lambda_h, env->escape.h_limit, ocean_co2(y, env));
     o->last_regime = env->regime;
     for (int r = 0; r < VL_NRES; r++)
         fprintf(f, ",%.10g", clamp0(y[r]));
@@ -227,10 +227,9 @@ static void summary(vl_output *o, const vl_run_stats *s)
     FILE *f = o->f[F_SUMMARY];
     const vl_model *m = o->m;
     const double *y = s->y_final;
-    double pa = m->pa_per_kg / VL_BAR;
+    double pa = m->planet.pa_per_kg / VL_BAR;
     double h_per_water = 2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O);
-    vl_env env;
-    vl_model_env(m, m->sc->run.end_s, y, o->last_regime, &env);
+    const vl_env env = s->env_last; /* the final row's stages */
     header(o, f);
     fprintf(f, "# scenario: %s\n", m->sc->path);
     fprintf(f, "name,value,unit\n");
@@ -269,11 +268,8 @@ static void summary(vl_output *o, const vl_run_stats *s)
     fprintf(f, "rhs_evaluations,%ld,count\n", s->rhs_calls);
     fprintf(f, "steps,%ld,count\n", s->steps);
     fprintf(f, "events,%ld,count\n", s->events);
-    long nodes;
-    double build_s;
-    vl_climate_table_stats(m->climate, &nodes, &build_s);
-    fprintf(f, "climate_table_nodes,%ld,count\n", nodes);
-    fprintf(f, "climate_table_build_s,%.6f,s\n", build_s);
+    fprintf(f, "climate_table_nodes,%ld,count\n", s->climate_nodes);
+    fprintf(f, "climate_table_build_s,%.6f,s\n", s->climate_build_s);
     fprintf(f, "wall_time_s,%.6f,s\n", s->wall_s);
 }
 

@@ -65,27 +65,58 @@ void vl_climate_free(vl_climate *c)
     free(c);
 }
 
-void vl_climate_eval(const vl_climate *c, double water_kg, vl_env *env)
+struct vl_climate_work {
+    const vl_climate_backend *backend;  /* borrowed: the backend that made it */
+    void *work;                         /* owned through backend->work_free (may be NULL) */
+};
+
+vl_climate_work *vl_climate_work_new(const vl_climate *c, vl_status *st)
 {
-    c->backend->eval(c->state, water_kg, env);
+    vl_climate_work *w = calloc(1, sizeof *w);
+    if (w) {
+        w->backend = c->backend;
+        if (c->backend->work_new && !(w->work = c->backend->work_new(c->state))) {
+            free(w);
+            w = NULL;
+        }
+    }
+    if (!w)
+        vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    return w;
 }
 
-int vl_climate_classify(const vl_climate *c, double water_kg, const vl_env *env)
+void vl_climate_work_free(vl_climate_work *w)
 {
-    return c->backend->classify(c->state, water_kg, env);
+    if (!w)
+        return;
+    if (w->backend->work_free)
+        w->backend->work_free(w->work);
+    free(w);
 }
 
-size_t vl_climate_curve(const vl_climate *c, const vl_env *env, int wet, vl_curve *out)
+void vl_climate_eval(const vl_climate *c, vl_climate_work *w, double water_kg, vl_env *env)
 {
-    return c->backend->curve ? c->backend->curve(c->state, env, wet, out) : 0;
+    c->backend->eval(c->state, w->work, water_kg, env);
 }
 
-void vl_climate_table_stats(const vl_climate *c, long *nodes, double *build_s)
+int vl_climate_classify(const vl_climate *c, vl_climate_work *w, double water_kg,
+                        const vl_env *env)
+{
+    return c->backend->classify(c->state, w->work, water_kg, env);
+}
+
+size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
+                        vl_curve *out)
+{
+    return c->backend->curve ? c->backend->curve(c->state, w->work, env, wet, out) : 0;
+}
+
+void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s)
 {
     *nodes = 0;
     *build_s = 0.0;
-    if (c->backend->stats)
-        c->backend->stats(c->state, nodes, build_s);
+    if (w->backend->stats)
+        w->backend->stats(w->work, nodes, build_s);
 }
 
 /* The regime's output name, or "invalid" for a number outside enum vl_regime. */

@@ -3,7 +3,8 @@
  * The column (column.c) gives, for a surface temperature and a dry atmosphere, the
  * outgoing longwave radiation and the stratospheric water. Per run, these are
  * tabulated against surface temperature on a grid of CO2 and background pressure
- * (nodes filled lazily, when the run first needs them); the right-hand side only
+ * (nodes filled lazily into the run's workspace, when the run first needs them; the
+ * backend's own state is fixed once created and shared); the right-hand side only
  * interpolates. The energy balance N(T) = S (1 - A(T)) / 4 - OLR(T) is then scanned
  * on the temperature grid for its stable roots (N falling through zero), refined on
  * the interpolant:
@@ -44,12 +45,17 @@ typedef struct {
     float log_f[NT];    /* ln of the stratospheric H2O mole fraction (wet only) */
 } node;
 
+/* The backend's state: fixed once created (shared by every run of the model). */
 typedef struct {
     vl_climate_params cp;
     vl_column_opts opts;
-    node *nodes[2][NP][NP];  /* [wet][co2][background], filled lazily, owned */
     double w_ice[NT];        /* ice weight of the albedo at each grid temperature */
     double w_steam[NT];      /* steam weight */
+} column;
+
+/* A run's workspace: the table, filled lazily, and the last balance. */
+typedef struct {
+    node *nodes[2][NP][NP];  /* [wet][co2][background], filled lazily, owned */
     /* one-entry cache of the last balance: the Jacobian's perturbations of reservoirs
      * that do not touch the atmosphere, and classify after eval, reuse it */
     int cache_valid, cache_wet;
@@ -57,7 +63,7 @@ typedef struct {
     struct balance_s *cache;
     long nodes_built;        /* statistics for the benchmark */
     double build_s;          /* wall time spent building nodes */
-} column;
+} column_work;
 
 static double grid_t(int j)
 {
@@ -106,7 +112,7 @@ static double grid_pos(double p_pa)
 
 /* Tabulate one node: OLR and stratospheric water against T for CO2 pressure p_c and
  * background (N2-like) pressure p_b, both thin-shell pressures of the gas alone. */
-static node *build_node(column *c, int wet, int ic, int ib)
+static node *build_node(const column *c, column_work *w, int wet, int ic, int ib)
 {
     node *n = malloc(sizeof *n);
     if (!n)
@@ -135,31 +141,30 @@ static node *build_node(column *c, int wet, int ic, int ib)
         n->olr[j] = (float)olr;
         n->log_f[j] = (float)log_f;
     }
-    c->nodes_built++;
+    w->nodes_built++;
     clock_gettime(CLOCK_MONOTONIC, &w1);
-    c->build_s += (double)(w1.tv_sec - w0.tv_sec) + 1e-9 * (double)(w1.tv_nsec - w0.tv_nsec);
+    w->build_s += (double)(w1.tv_sec - w0.tv_sec) + 1e-9 * (double)(w1.tv_nsec - w0.tv_nsec);
     return n;
 }
 
-/* The node (built on first use; the table is a per-run cache). */
-static const node *get_node(const column *cc, int wet, int ic, int ib)
+/* The node (built on first use into the run's workspace). */
+static const node *get_node(const column *c, column_work *w, int wet, int ic, int ib)
 {
-    column *c = (column *)cc; /* lazily filled cache: not shared between threads */
-    if (!c->nodes[wet][ic][ib])
-        c->nodes[wet][ic][ib] = build_node(c, wet, ic, ib);
-    return c->nodes[wet][ic][ib];
+    if (!w->nodes[wet][ic][ib])
+        w->nodes[wet][ic][ib] = build_node(c, w, wet, ic, ib);
+    return w->nodes[wet][ic][ib];
 }
 
 /* OLR and ln f_strat on the temperature grid for the given pressures (bilinear in
  * log pressure). Returns 0 on allocation failure. */
-static int interpolate(const column *c, int wet, double p_co2, double p_bg, double *olr,
-                       double *log_f)
+static int interpolate(const column *c, column_work *w, int wet, double p_co2, double p_bg,
+                       double *olr, double *log_f)
 {
     double xc = grid_pos(p_co2), xb = grid_pos(p_bg);
     int ic = (int)xc < NP - 1 ? (int)xc : NP - 2, ib = (int)xb < NP - 1 ? (int)xb : NP - 2;
     double fc = xc - ic, fb = xb - ib;
-    const node *n00 = get_node(c, wet, ic, ib), *n10 = get_node(c, wet, ic + 1, ib);
-    const node *n01 = get_node(c, wet, ic, ib + 1), *n11 = get_node(c, wet, ic + 1, ib + 1);
+    const node *n00 = get_node(c, w, wet, ic, ib), *n10 = get_node(c, w, wet, ic + 1, ib);
+    const node *n01 = get_node(c, w, wet, ic, ib + 1), *n11 = get_node(c, w, wet, ic + 1, ib + 1);
     if (!n00 || !n10 || !n01 || !n11)
         return 0;
     double w00 = (1 - fc) * (1 - fb), w10 = fc * (1 - fb), w01 = (1 - fc) * fb, w11 = fc * fb;
@@ -199,10 +204,10 @@ static void dry_pressures(const vl_env *env, double *p_co2, double *p_bg)
 }
 
 /* The balance at env (wet: over an ocean), into b. */
-static void fill_balance(const column *c, int wet, const vl_env *env, double p_co2, double p_bg,
-                         balance *b)
+static void fill_balance(const column *c, column_work *w, int wet, const vl_env *env,
+                         double p_co2, double p_bg, balance *b)
 {
-    if (!interpolate(c, wet, p_co2, p_bg, b->olr, b->log_f))
+    if (!interpolate(c, w, wet, p_co2, p_bg, b->olr, b->log_f))
         for (int j = 0; j < NT; j++) /* out of memory: no equilibrium, reported as NaN */
             b->olr[j] = b->log_f[j] = NAN;
     double scale = pow(env->star.teff_k / VL_TEFF_SUN, c->cp.steam_teff_exp);
@@ -225,22 +230,21 @@ static void fill_balance(const column *c, int wet, const vl_env *env, double p_c
 
 /* The balance at env, from the one-entry cache when the dry atmosphere, the flux and
  * the star are those of the previous call. NULL only when out of memory. */
-static const balance *get_balance(const column *cc, int wet, const vl_env *env)
+static const balance *get_balance(const column *c, column_work *w, int wet, const vl_env *env)
 {
-    column *c = (column *)cc; /* the cache, like the table, is per model */
     double key[4];
     dry_pressures(env, &key[0], &key[1]);
     key[2] = env->instellation;
     key[3] = env->star.teff_k;
-    if (c->cache && c->cache_valid && c->cache_wet == wet && memcmp(key, c->cache_key, sizeof key) == 0)
-        return c->cache;
-    if (!c->cache && !(c->cache = malloc(sizeof *c->cache)))
+    if (w->cache && w->cache_valid && w->cache_wet == wet && memcmp(key, w->cache_key, sizeof key) == 0)
+        return w->cache;
+    if (!w->cache && !(w->cache = malloc(sizeof *w->cache)))
         return NULL;
-    fill_balance(c, wet, env, key[0], key[1], c->cache);
-    memcpy(c->cache_key, key, sizeof key);
-    c->cache_wet = wet;
-    c->cache_valid = 1;
-    return c->cache;
+    fill_balance(c, w, wet, env, key[0], key[1], w->cache);
+    memcpy(w->cache_key, key, sizeof key);
+    w->cache_wet = wet;
+    w->cache_valid = 1;
+    return w->cache;
 }
 
 /* Runaway and moist-greenhouse thresholds in S_eff units: the largest flux with a warm
@@ -308,12 +312,12 @@ static double branch_temp(const column *c, const balance *b, int regime)
                                             : grid_t(best + 1) - grid_t(best));
 }
 
-static void column_eval(const void *state, double water_kg, vl_env *env)
+static void column_eval(const void *state, void *work, double water_kg, vl_env *env)
 {
     const column *c = state;
     const vl_climate_params *cp = &c->cp;
     int wet = env->regime != VL_REGIME_DRY;
-    const balance *b = get_balance(c, wet, env);
+    const balance *b = get_balance(c, work, wet, env);
     if (!b) { /* out of memory: a NaN state stops the integrator with a message */
         env->t_surf_k = env->t_balance_k = env->f_strat = NAN;
         return;
@@ -338,12 +342,12 @@ static void column_eval(const void *state, double water_kg, vl_env *env)
     }
 }
 
-static int column_classify(const void *state, double water_kg, const vl_env *env)
+static int column_classify(const void *state, void *work, double water_kg, const vl_env *env)
 {
     const column *c = state;
     if (water_kg < c->cp.dry_threshold_kg)
         return VL_REGIME_DRY;
-    const balance *b = get_balance(c, 1, env);
+    const balance *b = get_balance(c, work, 1, env);
     if (!b)
         return env->regime;
     int warm_ok = b->warm >= 0, cold_ok = b->cold >= 0;
@@ -356,9 +360,10 @@ static int column_classify(const void *state, double water_kg, const vl_env *env
     return exp(log_f) >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
 }
 
-static size_t column_curve(const void *state, const vl_env *env, int wet, vl_curve *out)
+static size_t column_curve(const void *state, void *work, const vl_env *env, int wet,
+                           vl_curve *out)
 {
-    const balance *b = get_balance(state, wet, env);
+    const balance *b = get_balance(state, work, wet, env);
     if (!b)
         return 0;
     for (int j = 0; j < NT; j++) {
@@ -371,11 +376,11 @@ static size_t column_curve(const void *state, const vl_env *env, int wet, vl_cur
     return NT;
 }
 
-static void column_stats(const void *state, long *nodes, double *build_s)
+static void column_stats(const void *work, long *nodes, double *build_s)
 {
-    const column *c = state;
-    *nodes = c->nodes_built;
-    *build_s = c->build_s;
+    const column_work *w = work;
+    *nodes = w->nodes_built;
+    *build_s = w->build_s;
 }
 
 static void *column_create(const vl_scenario *sc, vl_status *st)
@@ -411,23 +416,33 @@ static void *column_create(const vl_scenario *sc, vl_status *st)
     return c;
 }
 
-static void column_destroy(void *state)
+static void column_destroy(void *state) { free(state); }
+
+static void *column_work_new(const void *state)
 {
-    column *c = state;
-    if (!c)
+    (void)state;
+    return calloc(1, sizeof(column_work));
+}
+
+static void column_work_free(void *work)
+{
+    column_work *w = work;
+    if (!w)
         return;
-    for (int w = 0; w < 2; w++)
+    for (int wet = 0; wet < 2; wet++)
         for (int i = 0; i < NP; i++)
             for (int k = 0; k < NP; k++)
-                free(c->nodes[w][i][k]);
-    free(c->cache);
-    free(c);
+                free(w->nodes[wet][i][k]);
+    free(w->cache);
+    free(w);
 }
 
 const vl_climate_backend vl_column_backend = {
     .name = "column",
     .create = column_create,
     .destroy = column_destroy,
+    .work_new = column_work_new,
+    .work_free = column_work_free,
     .eval = column_eval,
     .classify = column_classify,
     .curve = column_curve,

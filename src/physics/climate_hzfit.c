@@ -103,8 +103,9 @@ static double strat_mixing(const vl_climate_params *cp, const vl_env *env,
 /* Fill the climate fields of env for the regime in force (climate.h contract).
  * Vapour: all surface water in a runaway or above T_c, else saturation at T_s over the
  * stable phase (ice below the triple point), capped by the water available. */
-static void hzfit_eval(const void *state, double water_kg, vl_env *env)
+static void hzfit_eval(const void *state, void *work, double water_kg, vl_env *env)
 {
+    (void)work; /* nothing to keep between calls */
     const hzfit *h = state;
     const vl_climate_params *cp = &h->cp;
     double teff = env->star.teff_k;
@@ -128,8 +129,9 @@ static void hzfit_eval(const void *state, double water_kg, vl_env *env)
 }
 
 /* First match of: dry, runaway, frozen, moist greenhouse, temperate. */
-static int hzfit_classify(const void *state, double water_kg, const vl_env *env)
+static int hzfit_classify(const void *state, void *work, double water_kg, const vl_env *env)
 {
+    (void)work;
     const vl_climate_params *cp = &((const hzfit *)state)->cp;
     if (water_kg < cp->dry_threshold_kg)
         return VL_REGIME_DRY;

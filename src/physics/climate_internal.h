@@ -8,17 +8,22 @@
 /* A backend: one constant table per enum vl_climate_model, listed in climate.c. */
 typedef struct vl_climate_backend {
     const char *name;   /* its choice name in climate.model */
-    /* Backend state for sc (copied what it needs), NULL with st filled on error. */
+    /* Backend state for sc (copied what it needs), NULL with st filled on error; fixed
+     * once created, so that runs on several threads can share it. */
     void *(*create)(const vl_scenario *sc, vl_status *st);
     void (*destroy)(void *state);   /* accepts NULL */
+    /* Optional: a run's workspace for what changes during the run (caches, tables built
+     * on demand), NULL when out of memory; without it the backend gets work = NULL. */
+    void *(*work_new)(const void *state);
+    void (*work_free)(void *work);  /* accepts NULL */
     /* The vl_climate_eval contract (climate.h). */
-    void (*eval)(const void *state, double water_kg, vl_env *env);
+    void (*eval)(const void *state, void *work, double water_kg, vl_env *env);
     /* The vl_climate_classify contract (climate.h). */
-    int (*classify)(const void *state, double water_kg, const vl_env *env);
+    int (*classify)(const void *state, void *work, double water_kg, const vl_env *env);
     /* Optional: the vl_climate_curve contract. */
-    size_t (*curve)(const void *state, const vl_env *env, int wet, vl_curve *out);
-    /* Optional: table statistics. */
-    void (*stats)(const void *state, long *nodes, double *build_s);
+    size_t (*curve)(const void *state, void *work, const vl_env *env, int wet, vl_curve *out);
+    /* Optional: table statistics of a workspace. */
+    void (*stats)(const void *work, long *nodes, double *build_s);
 } vl_climate_backend;
 
 extern const vl_climate_backend vl_hzfit_backend;   /* climate_hzfit.c */

@@ -37,17 +37,17 @@ double vl_upper_jeans_flux(double n_m3, double m_kg, double t_k, double r_m, dou
     return n_m3 * v0 / (2.0 * sqrt(VL_PI)) * (1.0 + lambda) * exp(-lambda);
 }
 
-void vl_upper_eval(const vl_scenario *sc, vl_env *env)
+void vl_upper_eval(const vl_planet_params *pl, vl_env *env)
 {
-    const vl_planet_params *pl = &sc->planet;
+    vl_upper *u = &env->upper;
     double rp = pl->radius_m;
-    env->f_xuv_rel = env->f_xuv / VL_F_XUV_EARTH;
+    u->f_xuv_rel = env->f_xuv / VL_F_XUV_EARTH;
 
     /* exobase temperature, never below the (grey) skin temperature */
     double t_skin = pow(fmax(env->instellation, 0.0) / (8.0 * VL_SIGMA_SB), 0.25);
-    double t_exo = pl->t_exo_ref_k * pow(fmax(env->f_xuv_rel, 0.0), pl->t_exo_xuv_exp) /
+    double t_exo = pl->t_exo_ref_k * pow(fmax(u->f_xuv_rel, 0.0), pl->t_exo_xuv_exp) /
                    (1.0 + pl->t_exo_co2_cooling * env->x[VL_GAS_CO2]);
-    env->t_exo_k = fmax(t_exo, t_skin);
+    u->t_exo_k = fmax(t_exo, t_skin);
 
     /* thermosphere base and exobase heights */
     double m = env->m_background_kg, g = env->g;
@@ -58,69 +58,22 @@ void vl_upper_eval(const vl_scenario *sc, vl_env *env)
                       : 0.0;
     double p_tb = fmin(p_s, pl->thermo_base_pa);
     double n_col_tb = p_tb / (m * g);
-    double h_exo = VL_K_BOLTZMANN * env->t_exo_k / (m * g);
+    double h_exo = VL_K_BOLTZMANN * u->t_exo_k / (m * g);
     double z_exo = z_tb + (n_col_tb * pl->cross_section_m2 > 1.0
                                ? h_exo * log(n_col_tb * pl->cross_section_m2)
                                : 0.0);
-    env->r_tb_m = rp + z_tb;
-    env->n_tb_m3 = p_tb / (VL_K_BOLTZMANN * t_low);
-    env->r_exo_m = rp + z_exo;
-    env->m_exo_kg = m;
-    env->g_exo = VL_G_NEWTON * pl->mass_kg / (env->r_exo_m * env->r_exo_m);
-    env->n_exo_m3 = env->g_exo * m / (VL_K_BOLTZMANN * env->t_exo_k * pl->cross_section_m2);
+    u->r_tb_m = rp + z_tb;
+    u->n_tb_m3 = p_tb / (VL_K_BOLTZMANN * t_low);
+    u->r_exo_m = rp + z_exo;
+    u->m_exo_kg = m;
+    u->g_exo = VL_G_NEWTON * pl->mass_kg / (u->r_exo_m * u->r_exo_m);
+    u->n_exo_m3 = u->g_exo * m / (VL_K_BOLTZMANN * u->t_exo_k * pl->cross_section_m2);
 
     /* magnetosphere */
-    env->b_eq_t = VL_MU0 * pl->dipole_am2 / (4.0 * VL_PI * rp * rp * rp);
-    double r_mp = vl_upper_magnetopause_rp(env->b_eq_t, env->wind_pressure_pa);
-    env->r_mp_rp = fmax(r_mp, pl->obstacle_rp);
-    env->cap_fraction = r_mp > pl->obstacle_rp ? (1.0 - sqrt(1.0 - 1.0 / r_mp)) *
+    u->b_eq_t = VL_MU0 * pl->dipole_am2 / (4.0 * VL_PI * rp * rp * rp);
+    double r_mp = vl_upper_magnetopause_rp(u->b_eq_t, env->wind_pressure_pa);
+    u->r_mp_rp = fmax(r_mp, pl->obstacle_rp);
+    u->cap_fraction = r_mp > pl->obstacle_rp ? (1.0 - sqrt(1.0 - 1.0 / r_mp)) *
                                                      (1.0 - pl->obstacle_rp / r_mp)
                                                : 0.0;
-}
-
-void vl_upper_h_escape(vl_env *env, double h_el)
-{
-    double jeans = fmin(env->esc_h_jeans, h_el);
-    double cap = (1.0 - env->esc_hydro) * jeans + env->esc_hydro * h_el;
-    if (env->esc_h_diffusion <= cap) {
-        env->esc_h_flux = env->esc_h_diffusion;
-        env->esc_h_limit = VL_HLIM_DIFFUSION;
-    } else {
-        env->esc_h_flux = cap;
-        env->esc_h_limit = env->esc_hydro < 0.5 && env->esc_h_jeans < h_el ? VL_HLIM_JEANS
-                                                                         : VL_HLIM_ENERGY;
-    }
-}
-
-double vl_upper_drag_fractionation(double m_c_kg)
-{
-    double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU;
-    if (!(m_c_kg > m_h))
-        return 1.0;
-    double f = (m_c_kg - m_d) / (m_c_kg - m_h);
-    return f < 0.0 ? 0.0 : f > 1.0 ? 1.0 : f;
-}
-
-/* Weight of a when the smaller of a and b binds: 1/(1 + (a/b)^8), smooth. */
-static double smaller_weight(double a, double b)
-{
-    if (!(a > 0.0))
-        return 1.0;
-    if (!(b > 0.0) || !isfinite(a))
-        return 0.0;
-    if (!isfinite(b))
-        return 1.0;
-    double x = 8.0 * (log(a) - log(b));
-    return x > 700.0 ? 0.0 : 1.0 / (1.0 + exp(x));
-}
-
-void vl_upper_d_fractionation(vl_env *env, double h_el, double f_el)
-{
-    double s_j = smaller_weight(env->esc_h_jeans, h_el);
-    double f_kin = s_j * env->esc_f_jeans + (1.0 - s_j) * f_el;
-    double f_cap = (1.0 - env->esc_hydro) * f_kin + env->esc_hydro * f_el;
-    double jeans = fmin(env->esc_h_jeans, h_el);
-    double cap = (1.0 - env->esc_hydro) * jeans + env->esc_hydro * h_el;
-    double s_d = smaller_weight(env->esc_h_diffusion, cap);
-    env->esc_d_frac = s_d * env->esc_f_dl + (1.0 - s_d) * f_cap;
 }

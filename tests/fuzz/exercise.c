@@ -125,8 +125,13 @@ static const char *model_once(const vl_scenario *sc)
         int regime = y[VL_R_WATER] >= sc->climate.dry_threshold_kg ? VL_REGIME_TEMPERATE
                                                                    : VL_REGIME_DRY;
         vl_env env;
-        vl_model_env(m, sc->run.start_s, y, regime, &env);
-        vl_model_rhs(m, sc->run.start_s, y, regime, dydt, NULL, NULL);
+        vl_work *w = vl_work_new(m, &st);
+        why = clean(w != NULL, &st, "vl_work_new");
+        if (w) {
+            vl_model_env(m, w, sc->run.start_s, y, regime, &env);
+            vl_model_rhs(m, w, sc->run.start_s, y, regime, dydt, NULL, NULL);
+        }
+        vl_work_free(w);
     }
     vl_model_free(m);
     return why;

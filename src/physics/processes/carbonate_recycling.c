@@ -10,7 +10,7 @@
  * sink (docs/cycles.md). */
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -37,16 +37,24 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"recycled_to_mantle_kg_s", "recycled_to_surface_kg_s"};
 
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+enum { CARBONATE_TO_MANTLE_C, CARBONATE_TO_CO2 };
+static const vl_transfer transfers[] = {
+    [CARBONATE_TO_MANTLE_C] = {VL_R_CARBONATE, VL_R_MANTLE_C},
+    [CARBONATE_TO_CO2] = {VL_R_CARBONATE, VL_R_CO2},
+};
+
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const double *y = v->y;
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
     double q = env->heat_flow_rel;
-    if (m->sc->interior.tectonics != VL_TECTONICS_MOBILE || q <= 0.0 || y[VL_R_CARBONATE] <= 0.0)
+    if (pl->tectonics != VL_TECTONICS_MOBILE || q <= 0.0 || y[VL_R_CARBONATE] <= 0.0)
         return;
     double s = q * y[VL_R_CARBONATE] / p->tau_s;
-    vl_flux_move(fx, VL_R_CARBONATE, VL_R_MANTLE_C, p->mantle_share * s, 0);
-    vl_flux_move(fx, VL_R_CARBONATE, VL_R_CO2, (1.0 - p->mantle_share) * s, 1);
+    vl_flux_transfer(fx, CARBONATE_TO_MANTLE_C, p->mantle_share * s, 0);
+    vl_flux_transfer(fx, CARBONATE_TO_CO2, (1.0 - p->mantle_share) * s, 1);
 }
 
 const vl_process vl_process_carbonate_recycling = {
@@ -54,6 +62,7 @@ const vl_process vl_process_carbonate_recycling = {
     .summary = "subduction of carbonate under a mobile lid: to the mantle or back to the surface",
     .refs = "Kelemen & Manning 2015",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -13,7 +13,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -80,10 +80,22 @@ static const char *const columns[] = {
     "impact_co2_kg_s", "impact_n2_kg_s", "impact_o2_kg_s", "impact_h2_kg_s",
     "impact_h2o_kg_s", "delivered_h2o_kg_s", "delivered_co2_kg_s", "delivered_n2_kg_s"};
 
-static const vl_reaction co2_out = {
-    "CO2 -> C(space) + 2 O(space)", 3, {VL_R_CO2, VL_R_SPACE_C, VL_R_SPACE_O}, {-1.0, 1.0, 2.0}};
-static const vl_reaction h2o_out = {
-    "H2O -> 2 H(space) + O(space)", 3, {VL_R_WATER, VL_R_SPACE_H, VL_R_SPACE_O}, {-1.0, 2.0, 1.0}};
+enum { N2_TO_SPACE_N, O2_TO_SPACE_O, H2_TO_SPACE_H, IMPACT_WATER_TO_WATER, IMPACT_CO2_TO_CO2,
+       IMPACT_N2_TO_N2 };
+static const vl_transfer transfers[] = {
+    [N2_TO_SPACE_N] = {VL_R_N2, VL_R_SPACE_N},
+    [O2_TO_SPACE_O] = {VL_R_O2, VL_R_SPACE_O},
+    [H2_TO_SPACE_H] = {VL_R_H2, VL_R_SPACE_H},
+    [IMPACT_WATER_TO_WATER] = {VL_R_IMPACT_WATER, VL_R_WATER},
+    [IMPACT_CO2_TO_CO2] = {VL_R_IMPACT_CO2, VL_R_CO2},
+    [IMPACT_N2_TO_N2] = {VL_R_IMPACT_N2, VL_R_N2},
+};
+
+enum { CO2_OUT, H2O_OUT };
+static const vl_reaction reactions[] = {
+    [CO2_OUT] = {"CO2 -> C(space) + 2 O(space)", 3, {VL_R_CO2, VL_R_SPACE_C, VL_R_SPACE_O}, {-1.0, 1.0, 2.0}},
+    [H2O_OUT] = {"H2O -> 2 H(space) + O(space)", 3, {VL_R_WATER, VL_R_SPACE_H, VL_R_SPACE_O}, {-1.0, 2.0, 1.0}},
+};
 
 /* Largest (t0 - t)/tau accepted at run start: beyond it N(t) is e^200 times N0. */
 #define MAX_BACK_EFOLDS 200.0
@@ -103,10 +115,10 @@ static double impacts_between(const params *p, double a_s, double b_s)
 }
 
 /* Tangent-plane fraction X = h/(2R), capped at 1 (Schlichting, Sari & Yalinewich 2015). */
-static double tangent_fraction(const vl_model *m, const vl_env *env)
+static double tangent_fraction(const vl_planet *pl, const vl_env *env)
 {
     double h = VL_K_BOLTZMANN * env->t_surf_k / (env->m_mean_kg * env->g);
-    double x = h / (2.0 * m->sc->planet.radius_m);
+    double x = h / (2.0 * pl->radius_m);
     return x < 1.0 ? x : 1.0;
 }
 
@@ -152,37 +164,37 @@ static int check(const void *pv, const vl_scenario *sc, vl_status *st)
 }
 
 /* Fill the impactor reservoirs with what the population delivers from run start to end. */
-static void initial(const void *pv, const vl_model *m, double *y)
+static void initial(const void *pv, const vl_planet *pl, double *y)
 {
     const params *p = pv;
     if (!p->delivery)
         return;
-    double n = impacts_between(p, m->sc->run.start_s, m->sc->run.end_s);
+    double n = impacts_between(p, pl->run_start_s, pl->run_end_s);
     y[VL_R_IMPACT_WATER] += n * p->water_kg;
     y[VL_R_IMPACT_CO2] += n * p->co2_kg;
     y[VL_R_IMPACT_N2] += n * p->n2_kg;
 }
 
 /* Erosion N X M_i of every gas to space; delivery N x mass from the impactor pools. */
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    (void)y;
     double n = impact_rate(p, env->t_s);
-    double loss = n * tangent_fraction(m, env); /* fraction of each gas per second */
-    vl_flux_react(fx, &co2_out,
+    double loss = n * tangent_fraction(pl, env); /* fraction of each gas per second */
+    vl_flux_react(fx, CO2_OUT,
                   loss * env->mass_kg[VL_GAS_CO2] / vl_species_molar_mass(VL_SP_CO2), COL_CO2);
-    vl_flux_move(fx, VL_R_N2, VL_R_SPACE_N, loss * env->mass_kg[VL_GAS_N2], COL_N2);
-    vl_flux_move(fx, VL_R_O2, VL_R_SPACE_O, loss * env->mass_kg[VL_GAS_O2], COL_O2);
-    vl_flux_move(fx, VL_R_H2, VL_R_SPACE_H, loss * env->mass_kg[VL_GAS_H2], COL_H2);
-    vl_flux_react(fx, &h2o_out, loss * env->vapour_kg / vl_species_molar_mass(VL_SP_H2O),
+    vl_flux_transfer(fx, N2_TO_SPACE_N, loss * env->mass_kg[VL_GAS_N2], COL_N2);
+    vl_flux_transfer(fx, O2_TO_SPACE_O, loss * env->mass_kg[VL_GAS_O2], COL_O2);
+    vl_flux_transfer(fx, H2_TO_SPACE_H, loss * env->mass_kg[VL_GAS_H2], COL_H2);
+    vl_flux_react(fx, H2O_OUT, loss * env->vapour_kg / vl_species_molar_mass(VL_SP_H2O),
                   COL_H2O);
     if (!p->delivery)
         return;
-    vl_flux_move(fx, VL_R_IMPACT_WATER, VL_R_WATER, n * p->water_kg, COL_DEL_H2O);
-    vl_flux_move(fx, VL_R_IMPACT_CO2, VL_R_CO2, n * p->co2_kg, COL_DEL_CO2);
-    vl_flux_move(fx, VL_R_IMPACT_N2, VL_R_N2, n * p->n2_kg, COL_DEL_N2);
+    vl_flux_transfer(fx, IMPACT_WATER_TO_WATER, n * p->water_kg, COL_DEL_H2O);
+    vl_flux_transfer(fx, IMPACT_CO2_TO_CO2, n * p->co2_kg, COL_DEL_CO2);
+    vl_flux_transfer(fx, IMPACT_N2_TO_N2, n * p->n2_kg, COL_DEL_N2);
 }
 
 const vl_process vl_process_impacts = {
@@ -191,6 +203,8 @@ const vl_process vl_process_impacts = {
     .refs = "Schlichting, Sari & Yalinewich 2015, Icarus 247:81; Neukum, Ivanov & Hartmann "
             "2001, Space Sci. Rev. 96:55 (rate history)",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
+    VL_PROCESS_REACTIONS(reactions),
     .default_enabled = 0,
     .initial = initial,
     .check = check,

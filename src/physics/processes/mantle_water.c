@@ -19,7 +19,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -102,11 +102,17 @@ static const vl_param table[] = {
 enum { COL_REGAS, COL_DEGAS };
 static const char *const columns[] = {"water_regassing_kg_s", "water_degassing_kg_s"};
 
+enum { WATER_TO_MANTLE_WATER, MANTLE_WATER_TO_WATER };
+static const vl_transfer transfers[] = {
+    [WATER_TO_MANTLE_WATER] = {VL_R_WATER, VL_R_MANTLE_WATER},
+    [MANTLE_WATER_TO_WATER] = {VL_R_MANTLE_WATER, VL_R_WATER},
+};
+
 /* Seafloor production rate, m^2/s: A_dot,ref (R_p/R_earth) (Q/Q_ref)^n. */
-static double production(const params *p, const vl_model *m, const vl_env *env)
+static double production(const params *p, const vl_planet *pl, const vl_env *env)
 {
     double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
-    return p->prod_m2_s * (m->sc->planet.radius_m / VL_R_EARTH) * pow(q, p->spread_exp);
+    return p->prod_m2_s * (pl->radius_m / VL_R_EARTH) * pow(q, p->spread_exp);
 }
 
 /* Hydrated-layer depth at seafloor pressure P, m (Cowan & Abbot 2014). */
@@ -126,22 +132,24 @@ static double degassed_share(const params *p, double p_pa)
 }
 
 /* Regassing (mobile lid, with liquid water) and degassing, Cowan & Abbot 2014 forms. */
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const double *y = v->y;
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    double a_dot = production(p, m, env);
+    double a_dot = production(p, pl, env);
     double p_sea = (env->ocean_kg > 0.0 ? env->ocean_kg : 0.0) * env->g / env->area_m2;
-    int mobile = m->sc->interior.tectonics == VL_TECTONICS_MOBILE;
+    int mobile = pl->tectonics == VL_TECTONICS_MOBILE;
     if (mobile && env->liquid > 0.0) {
         double regas = p->x_h * p->rho_c * p->chi * hydrated_depth(p, p_sea) * a_dot * env->liquid;
-        vl_flux_move(fx, VL_R_WATER, VL_R_MANTLE_WATER, regas, COL_REGAS);
+        vl_flux_transfer(fx, WATER_TO_MANTLE_WATER, regas, COL_REGAS);
     }
     double x_m = (y[VL_R_MANTLE_WATER] > 0.0 ? y[VL_R_MANTLE_WATER] : 0.0) /
-                 (p->mantle_share * m->sc->planet.mass_kg);
+                 (p->mantle_share * pl->mass_kg);
     double degas = x_m * p->rho_m * p->d_melt_m * degassed_share(p, p_sea) * a_dot *
                    (mobile ? 1.0 : p->stagnant_ratio);
-    vl_flux_move(fx, VL_R_MANTLE_WATER, VL_R_WATER, degas, COL_DEGAS);
+    vl_flux_transfer(fx, MANTLE_WATER_TO_WATER, degas, COL_DEGAS);
 }
 
 const vl_process vl_process_mantle_water = {
@@ -150,6 +158,7 @@ const vl_process vl_process_mantle_water = {
                "pressure and spreading rate",
     .refs = "Cowan & Abbot 2014, ApJ 781:27",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 0,
     .rates = rates,
 };

@@ -8,7 +8,7 @@
  * defaults are upper bounds (docs/cycles.md). */
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -36,17 +36,20 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"n2_burial_kg_s"};
 
+enum { N2_TO_CRUST_N };
+static const vl_transfer transfers[] = {[N2_TO_CRUST_N] = {VL_R_N2, VL_R_CRUST_N}};
+
 /* Fixed N2 buried in the crust, first order in atmospheric N2 (with an ocean). */
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const double *y = v->y;
+    const vl_env *env = v->env;
     const params *p = pv;
-    (void)m;
     if (env->liquid <= 0.0)
         return;
     double n2 = y[VL_R_N2] > 0.0 ? y[VL_R_N2] : 0.0;
     double b = p->eps * p->fix_kg_s * (n2 / p->ref_n2_kg) * env->liquid;
-    vl_flux_move(fx, VL_R_N2, VL_R_CRUST_N, b, 0);
+    vl_flux_transfer(fx, N2_TO_CRUST_N, b, 0);
 }
 
 const vl_process vl_process_nitrogen_burial = {
@@ -54,6 +57,7 @@ const vl_process vl_process_nitrogen_burial = {
     .summary = "abiotic fixation of N2 and burial of the fixed nitrogen in the crust",
     .refs = "Schumann & Huntrieser 2007 (present lightning fixation)",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 0,
     .rates = rates,
 };

@@ -11,7 +11,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -40,18 +40,23 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"n2_regassing_kg_s"};
 
+enum { N2_TO_MANTLE_N };
+static const vl_transfer transfers[] = {[N2_TO_MANTLE_N] = {VL_R_N2, VL_R_MANTLE_N}};
+
 /* N2 subducted into the mantle, first order in atmospheric N2 (mobile lid, with an ocean). */
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const double *y = v->y;
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    if (m->sc->interior.tectonics != VL_TECTONICS_MOBILE || env->liquid <= 0.0)
+    if (pl->tectonics != VL_TECTONICS_MOBILE || env->liquid <= 0.0)
         return;
     double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
     double n2 = y[VL_R_N2] > 0.0 ? y[VL_R_N2] : 0.0;
     double f = p->ref_mol_s * vl_species_molar_mass(VL_SP_N2) * pow(q, p->spread_exp) *
-               (VL_R_EARTH / m->sc->planet.radius_m) * (n2 / p->ref_n2_kg) * env->liquid;
-    vl_flux_move(fx, VL_R_N2, VL_R_MANTLE_N, f, 0);
+               (VL_R_EARTH / pl->radius_m) * (n2 / p->ref_n2_kg) * env->liquid;
+    vl_flux_transfer(fx, N2_TO_MANTLE_N, f, 0);
 }
 
 const vl_process vl_process_nitrogen_regassing = {
@@ -60,6 +65,7 @@ const vl_process vl_process_nitrogen_regassing = {
                "crust, first order in N2",
     .refs = "Johnson & Goldblatt 2015 (budget context)",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .rates = rates,
 };

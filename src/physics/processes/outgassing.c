@@ -14,7 +14,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -66,26 +66,33 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"outgas_co2_kg_s", "outgas_n2_kg_s", "outgas_h2o_kg_s"};
 
+enum { MANTLE_C_TO_CO2, MANTLE_N_TO_N2, MANTLE_WATER_TO_WATER };
+static const vl_transfer transfers[] = {
+    [MANTLE_C_TO_CO2] = {VL_R_MANTLE_C, VL_R_CO2},
+    [MANTLE_N_TO_N2] = {VL_R_MANTLE_N, VL_R_N2},
+    [MANTLE_WATER_TO_WATER] = {VL_R_MANTLE_WATER, VL_R_WATER},
+};
+
 /* V / V0 at the heat flow in env for the scenario's tectonic mode. */
-static double heat_scale(const params *p, const vl_model *m, const vl_env *env)
+static double heat_scale(const params *p, const vl_planet *pl, const vl_env *env)
 {
     double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
-    if (m->sc->interior.tectonics == VL_TECTONICS_STAGNANT)
+    if (pl->tectonics == VL_TECTONICS_STAGNANT)
         return p->stagnant_factor * pow(q, p->stagnant_exponent);
     return pow(q, p->exponent);
 }
 
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    (void)y;
-    double s = heat_scale(p, m, env);
+    double s = heat_scale(p, pl, env);
     if (p->per_mass)
-        s *= m->sc->planet.mass_kg / VL_M_EARTH;
-    vl_flux_move(fx, VL_R_MANTLE_C, VL_R_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);
-    vl_flux_move(fx, VL_R_MANTLE_N, VL_R_N2, s * p->n2_mol_s * vl_species_molar_mass(VL_SP_N2), 1);
-    vl_flux_move(fx, VL_R_MANTLE_WATER, VL_R_WATER,
+        s *= pl->mass_kg / VL_M_EARTH;
+    vl_flux_transfer(fx, MANTLE_C_TO_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);
+    vl_flux_transfer(fx, MANTLE_N_TO_N2, s * p->n2_mol_s * vl_species_molar_mass(VL_SP_N2), 1);
+    vl_flux_transfer(fx, MANTLE_WATER_TO_WATER,
                  s * p->h2o_mol_s * vl_species_molar_mass(VL_SP_H2O), 2);
 }
 
@@ -94,6 +101,7 @@ const vl_process vl_process_outgassing = {
     .summary = "volcanic outgassing of CO2, N2, H2O scaled by the interior heat flow",
     .refs = "Gerlach 2011; Lehmer et al. 2020; Foley & Smye 2018; Tosi et al. 2017",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -2,7 +2,7 @@
  * reduced volcanic gases), first order: dM_O2/dt = -M_O2 / tau. */
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -18,14 +18,15 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"o2_sink_kg_s"};
 
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+enum { O2_TO_OX_ROCK };
+static const vl_transfer transfers[] = {[O2_TO_OX_ROCK] = {VL_R_O2, VL_R_OX_ROCK}};
+
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const double *y = v->y;
     const params *p = pv;
-    (void)m;
-    (void)env;
     double o2 = y[VL_R_O2] > 0.0 ? y[VL_R_O2] : 0.0;
-    vl_flux_move(fx, VL_R_O2, VL_R_OX_ROCK, o2 / p->lifetime_s, 0);
+    vl_flux_transfer(fx, O2_TO_OX_ROCK, o2 / p->lifetime_s, 0);
 }
 
 const vl_process vl_process_oxygen_sink = {
@@ -33,6 +34,7 @@ const vl_process vl_process_oxygen_sink = {
     .summary = "first-order uptake of atmospheric O2 by surface oxidation",
     .refs = "Holland 2002, GCA 66:3811 (sink magnitude)",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -14,7 +14,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -62,13 +62,16 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"seafloor_co2_kg_s"};
 
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+enum { CO2_TO_CARBONATE };
+static const vl_transfer transfers[] = {[CO2_TO_CARBONATE] = {VL_R_CO2, VL_R_CARBONATE}};
+
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    (void)y;
     double q = env->heat_flow_rel;
-    if (m->sc->interior.tectonics != VL_TECTONICS_MOBILE || env->liquid <= 0.0 || q <= 0.0)
+    if (pl->tectonics != VL_TECTONICS_MOBILE || env->liquid <= 0.0 || q <= 0.0)
         return;
     double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
     double cap0 = p->supply * p->ref_mol_s;
@@ -77,8 +80,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
                exp(-p->ea_j_mol / VL_R_GAS * (1.0 / env->t_surf_k - 1.0 / p->t0_k));
     double f = q * cap0 * -expm1(-g / cap0);
     if (p->per_area)
-        f *= m->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
-    vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, f * vl_species_molar_mass(VL_SP_CO2), 0);
+        f *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
+    vl_flux_transfer(fx, CO2_TO_CARBONATE, f * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 
 const vl_process vl_process_seafloor_weathering = {
@@ -86,6 +89,7 @@ const vl_process vl_process_seafloor_weathering = {
     .summary = "CO2 -> carbonate in basalt altered at the seafloor (spreading, liquid ocean)",
     .refs = "Brady & Gislason 1997; Krissansen-Totton & Catling 2017",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .rates = rates,
 };

@@ -13,7 +13,7 @@
 #include <math.h>
 #include <stddef.h>
 
-#include "volev/model.h"
+#include "volev/process.h"
 #include "volev/units.h"
 
 typedef struct {
@@ -74,6 +74,9 @@ static const vl_param table[] = {
 
 static const char *const columns[] = {"weathering_co2_kg_s"};
 
+enum { CO2_TO_CARBONATE };
+static const vl_transfer transfers[] = {[CO2_TO_CARBONATE] = {VL_R_CO2, VL_R_CARBONATE}};
+
 /* The supply limit must exceed the reference rate. */
 static int check(const void *pv, const vl_scenario *sc, vl_status *st)
 {
@@ -94,11 +97,11 @@ static double runoff(const params *p, double t_k)
     return r > 0.0 ? pow(r, p->runoff_exp) : 0.0;
 }
 
-static void rates(const void *pv, const vl_model *m, const double *y, const vl_env *env,
-                  vl_flux *fx)
+static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
+    const vl_env *env = v->env;
+    const vl_planet *pl = v->planet;
     const params *p = pv;
-    (void)y;
     if (env->liquid <= 0.0)
         return;
     double pco2 = env->p_pa[VL_GAS_CO2] > 0.0 ? env->p_pa[VL_GAS_CO2] : 0.0;
@@ -107,8 +110,8 @@ static void rates(const void *pv, const vl_model *m, const double *y, const vl_e
                exp((env->t_surf_k - p->t0_k) / p->te_k) * runoff(p, env->t_surf_k);
     w = p->max_mol_s * -expm1(-w / p->max_mol_s);
     if (p->per_area)
-        w *= m->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
-    vl_flux_move(fx, VL_R_CO2, VL_R_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
+        w *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
+    vl_flux_transfer(fx, CO2_TO_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 
 const vl_process vl_process_weathering = {
@@ -116,6 +119,7 @@ const vl_process vl_process_weathering = {
     .summary = "continental silicate weathering, CO2 -> carbonate, while an ocean is liquid",
     .refs = "Walker, Hays & Kasting 1981",
     VL_PROCESS_TABLES(table, params, columns),
+    VL_PROCESS_TRANSFERS(transfers),
     .default_enabled = 1,
     .check = check,
     .rates = rates,
