@@ -161,7 +161,7 @@ static void idle_rates(const void *params, const vl_view *v, vl_flux *fx)
     vl_flux_transfer(fx, 0, 1.0, -1);
 }
 
-static const char *const no_columns[] = {"idle_kg_s"};
+static const vl_flux_column no_columns[] = {{"idle_kg_s", "nothing (a test process)"}};
 static const vl_transfer water_to_space_h[] = {{VL_R_WATER, VL_R_SPACE_H}};
 static const vl_transfer o2_to_rock[] = {{VL_R_O2, VL_R_OX_ROCK}};
 /* 2 H2O -> 2 H2 + 2 O2 has one O2 too many */

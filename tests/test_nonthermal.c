@@ -78,7 +78,7 @@ static double column(fixture *f, const char *name, const char *col)
     double cols[16], dydt[VL_NRES];
     const vl_process *p = run(f, name, cols, dydt);
     for (size_t c = 0; c < p->ncolumns; c++)
-        if (strcmp(p->columns[c], col) == 0)
+        if (strcmp(p->columns[c].name, col) == 0)
             return cols[c];
     ck_abort_msg("no column %s in %s", col, name);
     return 0.0;
@@ -369,7 +369,7 @@ START_TEST(columns_nonnegative_and_conserving)
                 const vl_process *p = run(&f, names[i], cols, dydt);
                 for (size_t c = 0; c < p->ncolumns; c++)
                     ck_assert_msg(cols[c] >= 0.0 && isfinite(cols[c]), "%s %s = %g", names[i],
-                                  p->columns[c], cols[c]);
+                                  p->columns[c].name, cols[c]);
                 check_balance(dydt);
                 /* what leaves the atmosphere lands in space: the escape columns sum to
                  * the growth of the space reservoirs */

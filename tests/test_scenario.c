@@ -722,7 +722,7 @@ START_TEST(reference_listing)
         snprintf(want, sizeof want, "process %s (", proc->name);
         ck_assert_msg(strstr(text, want), "reference lacks %s", proc->name);
         for (size_t c = 0; c < proc->ncolumns; c++)
-            ck_assert_ptr_nonnull(strstr(text, proc->columns[c]));
+            ck_assert_ptr_nonnull(strstr(text, proc->columns[c].name));
     }
     ck_assert_ptr_nonnull(strstr(text, "planet.orbit_au"));
     ck_assert_ptr_nonnull(strstr(text, "IAU 2012 B2"));

@@ -26,6 +26,12 @@ typedef struct vl_view {
     const vl_env *env;         /* every stage at this instant */
 } vl_view;
 
+/* An output column of a process: the mass flux of one of its channels, kg/s. */
+typedef struct vl_flux_column {
+    const char *name;          /* CSV header name, ending in _kg_s */
+    const char *meaning;       /* one line: what flows, from where to where */
+} vl_flux_column;
+
 typedef struct vl_process {
     const char *name;          /* key under `processes` in the scenario */
     const char *summary;       /* one line */
@@ -33,7 +39,7 @@ typedef struct vl_process {
     const vl_param *params;    /* its parameter table, keys relative to processes.<name>. */
     size_t nparams;
     size_t params_size;        /* bytes of its parameter block */
-    const char *const *columns;/* output column names of its fluxes (each kg/s) */
+    const vl_flux_column *columns; /* its output columns (each a flux in kg/s) */
     size_t ncolumns;
     /* What it may do to the state (flux.h): index k of vl_flux_transfer / vl_flux_react
      * is a row of these tables. Checked for element balance at model build. */

@@ -28,7 +28,7 @@ enum vl_species {
     VL_NSPECIES
 };
 
-/* Reservoirs: X(ID, name, species, floor_kg).
+/* Reservoirs: X(ID, name, species, floor_kg, meaning).
  * floor_kg is the depletion band: outflows from a reservoir are ramped linearly to
  * zero as its mass falls below floor_kg, so no mass goes negative and the RHS stays
  * continuous; a reservoir below its floor is "exhausted". Carbon held in rock
@@ -36,34 +36,34 @@ enum vl_species {
  * the volatiles the impactor population has yet to deliver (filled at the start by
  * the impacts process when its delivery is on, 0 otherwise). crust_nitrogen holds
  * nitrogen fixed from the atmosphere and buried (nitrogen_burial). */
-#define VL_RESERVOIRS(X)                                   \
-    X(WATER, "surface_water", VL_SP_H2O, 1.0e9)            \
-    X(MANTLE_WATER, "mantle_water", VL_SP_H2O, 1.0e9)      \
-    X(CO2, "surface_co2", VL_SP_CO2, 1.0e6)                \
-    X(CARBONATE, "carbonate_rock", VL_SP_CO2, 1.0e6)       \
-    X(MANTLE_C, "mantle_carbon", VL_SP_CO2, 1.0e6)         \
-    X(N2, "atm_n2", VL_SP_N2, 1.0e6)                       \
-    X(MANTLE_N, "mantle_nitrogen", VL_SP_N2, 1.0e6)        \
-    X(H2, "atm_h2", VL_SP_H2, 1.0e3)                       \
-    X(O2, "atm_o2", VL_SP_O2, 1.0e3)                       \
-    X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3)            \
+#define VL_RESERVOIRS(X)                                                                  \
+    X(WATER, "surface_water", VL_SP_H2O, 1.0e9, "surface water: ocean, ice and vapour")       \
+    X(MANTLE_WATER, "mantle_water", VL_SP_H2O, 1.0e9, "water held in the mantle")             \
+    X(CO2, "surface_co2", VL_SP_CO2, 1.0e6, "CO2 in the air and dissolved in the ocean")      \
+    X(CARBONATE, "carbonate_rock", VL_SP_CO2, 1.0e6, "carbonate rock, as CO2")                \
+    X(MANTLE_C, "mantle_carbon", VL_SP_CO2, 1.0e6, "carbon held in the mantle, as CO2")       \
+    X(N2, "atm_n2", VL_SP_N2, 1.0e6, "atmospheric N2")                                        \
+    X(MANTLE_N, "mantle_nitrogen", VL_SP_N2, 1.0e6, "nitrogen held in the mantle, as N2")     \
+    X(H2, "atm_h2", VL_SP_H2, 1.0e3, "atmospheric H2")                                        \
+    X(O2, "atm_o2", VL_SP_O2, 1.0e3, "atmospheric O2")                                        \
+    X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3, "oxygen bound in oxidised rock")              \
     /* space: contiguous (SPACE_H..SPACE_D), read by no process (the Jacobian skips them) */ \
-    X(SPACE_H, "space_h", VL_SP_H, 1.0e3)                  \
-    X(SPACE_C, "space_c", VL_SP_C, 1.0e3)                  \
-    X(SPACE_N, "space_n", VL_SP_N, 1.0e3)                  \
-    X(SPACE_O, "space_o", VL_SP_O, 1.0e3)                  \
-    X(SPACE_D, "space_d", VL_SP_D, 1.0)                    \
-    X(IMPACT_WATER, "impactor_water", VL_SP_H2O, 1.0e9)    \
-    X(IMPACT_CO2, "impactor_co2", VL_SP_CO2, 1.0e6)        \
-    X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6)           \
-    X(CRUST_N, "crust_nitrogen", VL_SP_N2, 1.0e6)          \
-    X(D_WATER, "surface_water_d", VL_SP_D, 1.0)            \
-    X(D_MANTLE_WATER, "mantle_water_d", VL_SP_D, 1.0)      \
-    X(D_H2, "atm_h2_d", VL_SP_D, 1.0)                      \
-    X(D_IMPACT_WATER, "impactor_water_d", VL_SP_D, 1.0)
+    X(SPACE_H, "space_h", VL_SP_H, 1.0e3, "hydrogen lost to space")                           \
+    X(SPACE_C, "space_c", VL_SP_C, 1.0e3, "carbon lost to space")                             \
+    X(SPACE_N, "space_n", VL_SP_N, 1.0e3, "nitrogen lost to space")                           \
+    X(SPACE_O, "space_o", VL_SP_O, 1.0e3, "oxygen lost to space")                             \
+    X(SPACE_D, "space_d", VL_SP_D, 1.0, "deuterium lost to space")                            \
+    X(IMPACT_WATER, "impactor_water", VL_SP_H2O, 1.0e9, "water impactors have yet to deliver") \
+    X(IMPACT_CO2, "impactor_co2", VL_SP_CO2, 1.0e6, "CO2 impactors have yet to deliver")      \
+    X(IMPACT_N2, "impactor_n2", VL_SP_N2, 1.0e6, "N2 impactors have yet to deliver")          \
+    X(CRUST_N, "crust_nitrogen", VL_SP_N2, 1.0e6, "nitrogen fixed and buried in the crust")   \
+    X(D_WATER, "surface_water_d", VL_SP_D, 1.0, "deuterium of the surface water")             \
+    X(D_MANTLE_WATER, "mantle_water_d", VL_SP_D, 1.0, "deuterium of the mantle water")        \
+    X(D_H2, "atm_h2_d", VL_SP_D, 1.0, "deuterium of atmospheric H2")                          \
+    X(D_IMPACT_WATER, "impactor_water_d", VL_SP_D, 1.0, "deuterium of the impactor water")
 
 enum vl_reservoir {
-#define VL_X(id, name, sp, fl) VL_R_##id,
+#define VL_X(id, name, sp, fl, meaning) VL_R_##id,
     VL_RESERVOIRS(VL_X)
 #undef VL_X
     VL_NRES
@@ -76,6 +76,7 @@ int vl_species_atoms(int species, int el);
 const char *vl_species_name(int species);
 
 const char *vl_reservoir_name(int r);
+const char *vl_reservoir_meaning(int r); /* one line, for the column reference */
 int vl_reservoir_species(int r);
 double vl_reservoir_floor(int r);       /* kg */
 /* Mass fraction of element el in reservoir r (kg element per kg reservoir). */

@@ -8,6 +8,7 @@
 int vl_cli_run(int argc, char **argv);
 int vl_cli_validate(int argc, char **argv);
 int vl_cli_processes(int argc, char **argv);
+int vl_cli_columns(int argc, char **argv);
 int vl_cli_plot(int argc, char **argv);
 int vl_cli_balance(int argc, char **argv);
 int vl_cli_sweep(int argc, char **argv);

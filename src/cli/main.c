@@ -17,6 +17,7 @@ static const struct {
     {"validate", vl_cli_validate, "validate SCENARIO [--set KEY=VALUE]...  check a scenario, list every parameter"},
     {"balance", vl_cli_balance, "balance SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...  energy-balance curves at one age"},
     {"processes", vl_cli_processes, "processes  list processes and parameters with units, defaults, bounds, references"},
+    {"columns", vl_cli_columns, "columns  list every output column and summary row with its unit and meaning"},
     {"sweep", vl_cli_sweep, "sweep SCENARIO [-o DIR] [-j THREADS] [--quiet]  run the ensemble of the scenario's sweep group"},
     {"plot", vl_cli_plot, "plot DIR [--format png|pdf|svg]  render the history figure of a run"},
     {"compare", vl_cli_compare, "compare DIR_A DIR_B [-o DIR] [--format png|pdf|svg] [--labels A,B]  side-by-side table and figure of two runs"},

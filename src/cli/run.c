@@ -8,6 +8,7 @@
 #include "cli.h"
 #include "volev/integrate.h"
 #include "volev/output.h"
+#include "volev/schema.h"
 #include "volev/units.h"
 
 /* Default output folder: the scenario's name, or NAME.1, NAME.2, ... if taken. */
@@ -22,12 +23,11 @@ static int default_dir(const vl_scenario *sc, char *buf, size_t n)
 
 static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
 {
-    const double *y = s->y_final;
-    printf("final surface water: %.6g TO\n", (y[VL_R_WATER] > 0 ? y[VL_R_WATER] : 0) / VL_TO_KG);
-    printf("water lost to space: %.6g TO\n",
-           y[VL_R_SPACE_H] / (2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O)) / VL_TO_KG);
-    printf("O2 left in the atmosphere: %.6g bar\n",
-           (y[VL_R_O2] > 0 ? y[VL_R_O2] : 0) * m->planet.pa_per_kg / VL_BAR);
+    vl_summary d;
+    vl_summary_derive(m, s, &d);
+    printf("final surface water: %.6g TO\n", d.surface_water_to);
+    printf("water lost to space: %.6g TO\n", d.water_lost_to);
+    printf("O2 left in the atmosphere: %.6g bar\n", d.o2_bar);
     printf("steps %ld, RHS evaluations %ld, events %ld, stepper restarts %ld, %.3f s\n",
            s->steps, s->rhs_calls, s->events, s->restarts, s->wall_s);
     printf("output: %s\n", dir);

@@ -68,7 +68,7 @@ static int lay_out_columns(vl_model *m)
     for (size_t i = 0; i < m->nproc; i++) {
         m->col_base[i] = n;
         for (size_t c = 0; c < m->proc[i]->ncolumns; c++, n++) {
-            m->col_name[n] = m->proc[i]->columns[c];
+            m->col_name[n] = m->proc[i]->columns[c].name;
             m->col_proc[n] = i;
         }
     }

@@ -16,8 +16,9 @@ static const struct {
     const char *name;
     int species;
     double floor_kg;
+    const char *meaning;
 } reservoirs[VL_NRES] = {
-#define VL_X(id, name, sp, fl) {name, sp, fl},
+#define VL_X(id, name, sp, fl, meaning) {name, sp, fl, meaning},
     VL_RESERVOIRS(VL_X)
 #undef VL_X
 };
@@ -39,6 +40,7 @@ double vl_species_molar_mass(int s) { return molar_mass[s]; }
 int vl_species_atoms(int s, int el) { return species[s].atoms[el]; }
 const char *vl_species_name(int s) { return species[s].name; }
 const char *vl_reservoir_name(int r) { return reservoirs[r].name; }
+const char *vl_reservoir_meaning(int r) { return reservoirs[r].meaning; }
 int vl_reservoir_species(int r) { return reservoirs[r].species; }
 double vl_reservoir_floor(int r) { return reservoirs[r].floor_kg; }
 const char *vl_element_name(int el) { return element_name[el]; }

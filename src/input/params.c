@@ -193,7 +193,7 @@ static void print_process(FILE *out, size_t k, size_t first_index)
         fprintf(out, "  references: %s\n", proc->refs);
     fprintf(out, "  output columns (kg/s):");
     for (size_t c = 0; c < proc->ncolumns; c++)
-        fprintf(out, "%s%s", c ? ", " : " ", proc->columns[c]);
+        fprintf(out, "%s%s", c ? ", " : " ", proc->columns[c].name);
     fprintf(out, "%s\n", proc->ncolumns ? "" : " none");
     for (size_t j = 0; j <= proc->nparams; j++) {
         const vl_param *p;

@@ -35,7 +35,10 @@ static const vl_param table[] = {
       "surface; the deep flux is uncertain (0 to about half of the input)", MOBILE),
 };
 
-static const char *const columns[] = {"recycled_to_mantle_kg_s", "recycled_to_surface_kg_s"};
+static const vl_flux_column columns[] = {
+    {"recycled_to_mantle_kg_s", "carbonate carried into the mantle by subduction, as CO2"},
+    {"recycled_to_surface_kg_s", "carbonate returned to the atmosphere as CO2 by metamorphism and arc volcanism"},
+};
 
 enum { CARBONATE_TO_MANTLE_C, CARBONATE_TO_CO2 };
 static const vl_transfer transfers[] = {

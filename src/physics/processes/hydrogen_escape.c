@@ -7,7 +7,9 @@
 #include "volev/process.h"
 #include "volev/units.h"
 
-static const char *const columns[] = {"h_escape_h2_kg_s"};
+static const vl_flux_column columns[] = {
+    {"h_escape_h2_kg_s", "hydrogen escaping thermally from atmospheric H2"},
+};
 
 enum { H2_TO_SPACE };
 static const vl_transfer transfers[] = {[H2_TO_SPACE] = {VL_R_H2, VL_R_SPACE_H}};

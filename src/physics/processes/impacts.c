@@ -76,9 +76,16 @@ enum {
     COL_DEL_H2O, COL_DEL_CO2, COL_DEL_N2
 };
 
-static const char *const columns[] = {
-    "impact_co2_kg_s", "impact_n2_kg_s", "impact_o2_kg_s", "impact_h2_kg_s",
-    "impact_h2o_kg_s", "delivered_h2o_kg_s", "delivered_co2_kg_s", "delivered_n2_kg_s"};
+static const vl_flux_column columns[] = {
+    {"impact_co2_kg_s", "CO2 blown off by impacts"},
+    {"impact_n2_kg_s", "N2 blown off by impacts"},
+    {"impact_o2_kg_s", "O2 blown off by impacts"},
+    {"impact_h2_kg_s", "H2 blown off by impacts"},
+    {"impact_h2o_kg_s", "water vapour blown off by impacts"},
+    {"delivered_h2o_kg_s", "water delivered by impactors"},
+    {"delivered_co2_kg_s", "CO2 delivered by impactors"},
+    {"delivered_n2_kg_s", "N2 delivered by impactors"},
+};
 
 enum { N2_TO_SPACE_N, O2_TO_SPACE_O, H2_TO_SPACE_H, IMPACT_WATER_TO_WATER, IMPACT_CO2_TO_CO2,
        IMPACT_N2_TO_N2 };

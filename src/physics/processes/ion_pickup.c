@@ -43,8 +43,12 @@ static const vl_param table[] = {
     DFRAC_ROW,
 };
 
-static const char *const columns[] = {"pickup_o_kg_s", "pickup_h_kg_s", "pickup_c_kg_s",
-                                      "pickup_n_kg_s"};
+static const vl_flux_column columns[] = {
+    {"pickup_o_kg_s", "oxygen lost as ions picked up by the stellar wind (with the O of CO2+ ions)"},
+    {"pickup_h_kg_s", "hydrogen lost as ions picked up by the stellar wind (from water)"},
+    {"pickup_c_kg_s", "carbon lost as CO2+ ions picked up by the stellar wind"},
+    {"pickup_n_kg_s", "nitrogen lost as ions picked up by the stellar wind"},
+};
 /* Column of each element (EL_O, EL_H, EL_C, EL_N). */
 static const int column_of[NEL] = {0, 1, 2, 3};
 

@@ -25,7 +25,9 @@ static const vl_param table[] = {
      NULL, 0},
 };
 
-static const char *const columns[] = {"jeans_o_kg_s"};
+static const vl_flux_column columns[] = {
+    {"jeans_o_kg_s", "atomic oxygen lost by Jeans escape from the exobase"},
+};
 
 enum { O2_TO_SPACE_O };
 static const vl_transfer transfers[] = {[O2_TO_SPACE_O] = {VL_R_O2, VL_R_SPACE_O}};

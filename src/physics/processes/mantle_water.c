@@ -100,7 +100,10 @@ static const vl_param table[] = {
 };
 
 enum { COL_REGAS, COL_DEGAS };
-static const char *const columns[] = {"water_regassing_kg_s", "water_degassing_kg_s"};
+static const vl_flux_column columns[] = {
+    {"water_regassing_kg_s", "water carried into the mantle by hydrated subducting crust"},
+    {"water_degassing_kg_s", "mantle water degassed at ridges"},
+};
 
 enum { WATER_TO_MANTLE_WATER, MANTLE_WATER_TO_WATER };
 static const vl_transfer transfers[] = {

@@ -34,7 +34,9 @@ static const vl_param table[] = {
       "present Earth 3.887e18 kg (NSSDC composition x atmospheric mass) [C]"),
 };
 
-static const char *const columns[] = {"n2_burial_kg_s"};
+static const vl_flux_column columns[] = {
+    {"n2_burial_kg_s", "nitrogen buried in the crust (abiotic fixation and sedimentation)"},
+};
 
 enum { N2_TO_CRUST_N };
 static const vl_transfer transfers[] = {[N2_TO_CRUST_N] = {VL_R_N2, VL_R_CRUST_N}};

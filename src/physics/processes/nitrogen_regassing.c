@@ -38,7 +38,9 @@ static const vl_param table[] = {
       "~ Q^m with m = 1-2"),
 };
 
-static const char *const columns[] = {"n2_regassing_kg_s"};
+static const vl_flux_column columns[] = {
+    {"n2_regassing_kg_s", "nitrogen carried into the mantle by subduction"},
+};
 
 enum { N2_TO_MANTLE_N };
 static const vl_transfer transfers[] = {[N2_TO_MANTLE_N] = {VL_R_N2, VL_R_MANTLE_N}};

@@ -64,7 +64,11 @@ static const vl_param table[] = {
      "ApJ 700:1732, from memory)", NULL, 0},
 };
 
-static const char *const columns[] = {"outgas_co2_kg_s", "outgas_n2_kg_s", "outgas_h2o_kg_s"};
+static const vl_flux_column columns[] = {
+    {"outgas_co2_kg_s", "CO2 outgassed from the mantle"},
+    {"outgas_n2_kg_s", "N2 outgassed from the mantle"},
+    {"outgas_h2o_kg_s", "juvenile water outgassed from the mantle"},
+};
 
 enum { MANTLE_C_TO_CO2, MANTLE_N_TO_N2, MANTLE_WATER_TO_WATER };
 static const vl_transfer transfers[] = {

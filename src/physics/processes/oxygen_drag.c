@@ -6,7 +6,9 @@
 #include "volev/process.h"
 #include "volev/units.h"
 
-static const char *const columns[] = {"o_drag_kg_s"};
+static const vl_flux_column columns[] = {
+    {"o_drag_kg_s", "oxygen dragged to space from atmospheric O2 by escaping hydrogen"},
+};
 
 enum { O2_TO_SPACE };
 static const vl_transfer transfers[] = {[O2_TO_SPACE] = {VL_R_O2, VL_R_SPACE_O}};

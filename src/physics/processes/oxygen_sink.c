@@ -16,7 +16,9 @@ static const vl_param table[] = {
      NULL, 0},
 };
 
-static const char *const columns[] = {"o2_sink_kg_s"};
+static const vl_flux_column columns[] = {
+    {"o2_sink_kg_s", "atmospheric O2 taken up by surface oxidation (first-order sink)"},
+};
 
 enum { O2_TO_OX_ROCK };
 static const vl_transfer transfers[] = {[O2_TO_OX_ROCK] = {VL_R_O2, VL_R_OX_ROCK}};

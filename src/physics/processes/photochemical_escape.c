@@ -31,8 +31,11 @@ static const vl_param table[] = {
     PHOTON_ROW,
 };
 
-static const char *const columns[] = {"photochem_o_kg_s", "photochem_c_kg_s",
-                                      "photochem_n_kg_s"};
+static const vl_flux_column columns[] = {
+    {"photochem_o_kg_s", "hot oxygen atoms from dissociative recombination escaping"},
+    {"photochem_c_kg_s", "hot carbon atoms escaping (their oxygen stays as O2)"},
+    {"photochem_n_kg_s", "hot nitrogen atoms escaping"},
+};
 /* Column of each element (EL_O, EL_H, EL_C, EL_N; -1: none). */
 static const int column_of[NEL] = {0, -1, 1, 2};
 

@@ -27,7 +27,10 @@ static const vl_param table[] = {
      "upper bound (every photon dissociates), common practice", "processes.photolysis.photon_limited=true", 0},
 };
 
-static const char *const columns[] = {"photolysis_h2o_kg_s", "photolysis_o_dragged_kg_s"};
+static const vl_flux_column columns[] = {
+    {"photolysis_h2o_kg_s", "water photolysed whose hydrogen escapes (net photolysis)"},
+    {"photolysis_o_dragged_kg_s", "oxygen of photolysed water dragged to space with its hydrogen"},
+};
 
 enum { KEEP_O2, LOSE_O };
 static const vl_reaction reactions[] = {

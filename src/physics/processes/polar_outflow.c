@@ -35,7 +35,10 @@ static const vl_param table[] = {
     DFRAC_ROW,
 };
 
-static const char *const columns[] = {"polar_o_kg_s", "polar_h_kg_s"};
+static const vl_flux_column columns[] = {
+    {"polar_o_kg_s", "oxygen ions lost along open polar field lines"},
+    {"polar_h_kg_s", "hydrogen ions lost along open polar field lines (from water)"},
+};
 /* Column of each element (EL_O, EL_H, EL_C, EL_N; -1: none). */
 static const int column_of[NEL] = {0, 1, -1, -1};
 

@@ -60,7 +60,9 @@ static const vl_param table[] = {
      "(false: absolute rate)", "common practice: crust production per unit area", NULL, 0},
 };
 
-static const char *const columns[] = {"seafloor_co2_kg_s"};
+static const vl_flux_column columns[] = {
+    {"seafloor_co2_kg_s", "CO2 taken into carbonate by seafloor weathering"},
+};
 
 enum { CO2_TO_CARBONATE };
 static const vl_transfer transfers[] = {[CO2_TO_CARBONATE] = {VL_R_CO2, VL_R_CARBONATE}};

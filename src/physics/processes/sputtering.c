@@ -33,7 +33,11 @@ static const vl_param table[] = {
     PHOTON_ROW,
 };
 
-static const char *const columns[] = {"sputter_o_kg_s", "sputter_c_kg_s", "sputter_n_kg_s"};
+static const vl_flux_column columns[] = {
+    {"sputter_o_kg_s", "oxygen sputtered off by re-impacting pickup ions (with the O of CO2)"},
+    {"sputter_c_kg_s", "carbon sputtered off as CO2 by re-impacting pickup ions"},
+    {"sputter_n_kg_s", "nitrogen sputtered off by re-impacting pickup ions"},
+};
 /* Column of each element (EL_O, EL_H, EL_C, EL_N; -1: none). */
 static const int column_of[NEL] = {0, -1, 1, 2};
 

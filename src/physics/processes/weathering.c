@@ -72,7 +72,9 @@ static const vl_param table[] = {
      "absolute rates)", "common practice: weathering per unit land area", NULL, 0},
 };
 
-static const char *const columns[] = {"weathering_co2_kg_s"};
+static const vl_flux_column columns[] = {
+    {"weathering_co2_kg_s", "CO2 taken into carbonate by continental silicate weathering"},
+};
 
 enum { CO2_TO_CARBONATE };
 static const vl_transfer transfers[] = {[CO2_TO_CARBONATE] = {VL_R_CO2, VL_R_CARBONATE}};

@@ -1,0 +1,105 @@
+/* series.c: the columns of series.csv (schema.h, series.def): how each is computed, the
+ * header comments and header line, and the rows. Masses and fluxes are written clamped
+ * at 0: an integrator overshoot below zero (restored by the depletion ramp, at the
+ * level of the tolerances) is not a mass, and fluxes are one-way by name. */
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "volev/schema.h"
+#include "volev/units.h"
+
+static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
+
+#define BAR (1.0 / VL_BAR)
+
+static double get_TIME(const vl_row *r) { return r->t_s / VL_YR; }
+static double get_REGIME(const vl_row *r) { return r->env->regime; }
+static double get_SURFACE_TEMP(const vl_row *r) { return r->env->t_surf_k; }
+static double get_SURFACE_WATER(const vl_row *r) { return clamp0(r->y[VL_R_WATER]) / VL_TO_KG; }
+static double get_OCEAN(const vl_row *r) { return r->env->ocean_kg / VL_TO_KG; }
+static double get_P_SURF(const vl_row *r) { return r->env->p_surf_pa * BAR; }
+static double get_P_H2O(const vl_row *r) { return r->env->p_pa[VL_GAS_H2O] * BAR; }
+static double get_P_CO2(const vl_row *r) { return r->env->p_pa[VL_GAS_CO2] * BAR; }
+static double get_P_N2(const vl_row *r) { return r->env->p_pa[VL_GAS_N2] * BAR; }
+static double get_P_O2(const vl_row *r) { return r->env->p_pa[VL_GAS_O2] * BAR; }
+static double get_P_H2(const vl_row *r) { return r->env->p_pa[VL_GAS_H2] * BAR; }
+static double get_INSTELLATION(const vl_row *r) { return r->env->instellation; }
+static double get_S_EFF(const vl_row *r) { return r->env->s_eff; }
+static double get_F_XUV(const vl_row *r) { return r->env->f_xuv; }
+static double get_LUMINOSITY(const vl_row *r) { return r->env->star.l_bol_w / VL_L_SUN; }
+static double get_STRAT_H2O(const vl_row *r) { return r->env->f_strat; }
+static double get_H_ESCAPE(const vl_row *r) { return clamp0(r->dydt[VL_R_SPACE_H]); }
+static double get_O_ESCAPE(const vl_row *r) { return clamp0(r->dydt[VL_R_SPACE_O]); }
+static double get_C_ESCAPE(const vl_row *r) { return clamp0(r->dydt[VL_R_SPACE_C]); }
+static double get_N_ESCAPE(const vl_row *r) { return clamp0(r->dydt[VL_R_SPACE_N]); }
+static double get_EXOBASE_TEMP(const vl_row *r) { return r->env->upper.t_exo_k; }
+static double get_EXOBASE_ALT(const vl_row *r)
+{
+    return (r->env->upper.r_exo_m - r->m->planet.radius_m) * 1e-3;
+}
+static double get_MAGNETOPAUSE(const vl_row *r) { return r->env->upper.r_mp_rp; }
+static double get_LAMBDA_H(const vl_row *r) { return r->env->escape.lambda_h; }
+static double get_H_LIMIT(const vl_row *r) { return r->env->escape.h_limit; }
+/* the surface CO2 less the atmospheric part the ocean partition left in env */
+static double get_OCEAN_CO2(const vl_row *r)
+{
+    return clamp0(clamp0(r->y[VL_R_CO2]) - r->env->mass_kg[VL_GAS_CO2]);
+}
+
+const vl_series_column vl_series_columns[VL_NSERIES] = {
+#define VL_SERIES(id, name, unit, kind, meaning) {name, unit, VL_COL_##kind, meaning, get_##id},
+#include "volev/series.def"
+#undef VL_SERIES
+};
+
+void vl_series_codes(int id, char *buf, size_t n)
+{
+    static const char *const limits[] = {"diffusion", "jeans", "energy"};
+    size_t k = 0;
+    buf[0] = '\0';
+    if (id == VL_SER_REGIME)
+        for (int r = 0; r < VL_NREGIMES && k < n; r++)
+            k += (size_t)snprintf(buf + k, n - k, "%s%d=%s", r ? " " : "", r, vl_regime_name(r));
+    if (id == VL_SER_H_LIMIT)
+        for (int r = 0; r < 3 && k < n; r++)
+            k += (size_t)snprintf(buf + k, n - k, "%s%d=%s", r ? " " : "", r, limits[r]);
+}
+
+int vl_series_write_header(FILE *f, const vl_model *m)
+{
+    char codes[256];
+    for (int id = 0; id < VL_NSERIES; id++)
+        if (vl_series_columns[id].kind == VL_COL_CODE) {
+            vl_series_codes(id, codes, sizeof codes);
+            fprintf(f, "# %s: %s\n", vl_series_columns[id].name, codes);
+        }
+    fprintf(f, "# p_*_bar: partial pressures (mole fraction x surface pressure); *_to: "
+               "terrestrial oceans of %.4g kg; *_kg_s: process fluxes; every column's unit "
+               "and meaning: volev columns (docs/columns.md)\n",
+            VL_TO_KG);
+    for (int id = 0; id < VL_NSERIES; id++)
+        fprintf(f, "%s%s", id ? "," : "", vl_series_columns[id].name);
+    for (int r = 0; r < VL_NRES; r++)
+        fprintf(f, ",%s_kg", vl_reservoir_name(r));
+    for (size_t c = 0; c < m->ncolumns; c++)
+        fprintf(f, ",%s", m->col_name[c]);
+    return fputc('\n', f) == EOF ? -1 : 0;
+}
+
+int vl_series_write_row(FILE *f, const vl_row *r)
+{
+    for (int id = 0; id < VL_NSERIES; id++) {
+        const vl_series_column *c = &vl_series_columns[id];
+        double v = c->value(r);
+        if (c->kind == VL_COL_CODE)
+            fprintf(f, "%s%d", id ? "," : "", (int)v);
+        else
+            fprintf(f, "%s%.10g", id ? "," : "", v);
+    }
+    for (int q = 0; q < VL_NRES; q++)
+        fprintf(f, ",%.10g", clamp0(r->y[q]));
+    for (size_t c = 0; c < r->m->ncolumns; c++)
+        fprintf(f, ",%.10g", clamp0(r->columns[c]));
+    return fputc('\n', f) == EOF ? -1 : 0;
+}

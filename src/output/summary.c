@@ -1,0 +1,215 @@
+/* summary.c: the quantities derived from a finished run (schema.h), computed once, and
+ * the rows of summary.csv, declared as one table: fixed quantities and generated groups
+ * (one row per reservoir, event kind, regime, flux column, element). */
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "output_internal.h"
+#include "volev/output.h"
+#include "volev/schema.h"
+#include "volev/units.h"
+
+static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
+
+double vl_summary_water_of_h(double h_kg)
+{
+    double h_per_water = 2.0 * VL_AW_H * 1e-3 / vl_species_molar_mass(VL_SP_H2O);
+    return h_kg / h_per_water;
+}
+
+void vl_summary_derive(const vl_model *m, const vl_run_stats *stats, vl_summary *out)
+{
+    const double *y = stats->y_final;
+    const vl_env *env = &stats->env_last;
+    double pa = m->planet.pa_per_kg / VL_BAR, dh0 = m->sc->inventory.initial_dh;
+    out->regime = env->regime;
+    out->surface_water_to = clamp0(y[VL_R_WATER]) / VL_TO_KG;
+    out->water_lost_to = vl_summary_water_of_h(y[VL_R_SPACE_H]) / VL_TO_KG;
+    out->o2_bar = clamp0(y[VL_R_O2]) * pa;
+    out->co2_bar = env->mass_kg[VL_GAS_CO2] * pa;
+    out->ocean_co2_kg = clamp0(clamp0(y[VL_R_CO2]) - env->mass_kg[VL_GAS_CO2]);
+    out->co2_ppmv = env->x[VL_GAS_CO2] * 1e6;
+    out->surface_temp_k = env->t_surf_k;
+    out->surface_pressure_bar = env->p_surf_pa / VL_BAR;
+    out->dh_water = vl_output_dh(y, VL_R_WATER);
+    out->dh_enrichment = dh0 > 0.0 ? out->dh_water / dh0 : NAN;
+}
+
+void vl_event_firsts_note(vl_event_firsts *e, const char *name, double t_s)
+{
+    for (int k = 0; k < e->n; k++)
+        if (strcmp(e->name[k], name) == 0)
+            return;
+    if (e->n == VL_MAX_EVENT_KINDS)
+        return;
+    snprintf(e->name[e->n], sizeof e->name[0], "%s", name);
+    e->t_s[e->n++] = t_s;
+}
+
+/* What a summary row is computed from. */
+typedef struct {
+    const vl_model *m;
+    const vl_run_stats *s;
+    const vl_summary *d;
+    const vl_event_firsts *ev;
+} ctx;
+
+enum { REAL10, SCI3, COUNT, SECONDS };
+
+/* One row (fixed: value) or a group of rows (group) of summary.csv; for a group, name
+ * is the pattern shown in the column reference. */
+typedef struct {
+    const char *name, *unit;
+    int format;
+    const char *meaning;
+    double (*value)(const ctx *c);
+    int (*group)(FILE *f, const ctx *c);
+} item;
+
+static int row(FILE *f, const char *name, const char *unit, int format, double v)
+{
+    switch (format) {
+    case SCI3: return fprintf(f, "%s,%.3e,%s\n", name, v, unit);
+    case COUNT: return fprintf(f, "%s,%ld,%s\n", name, (long)v, unit);
+    case SECONDS: return fprintf(f, "%s,%.6f,%s\n", name, v, unit);
+    default: return fprintf(f, "%s,%.10g,%s\n", name, v, unit);
+    }
+}
+
+static int final_reservoirs(FILE *f, const ctx *c)
+{
+    char name[64];
+    int rc = 0;
+    for (int r = 0; r < VL_NRES && rc >= 0; r++) {
+        snprintf(name, sizeof name, "final_%s", vl_reservoir_name(r));
+        rc = row(f, name, "kg", REAL10, clamp0(c->s->y_final[r]));
+    }
+    return rc;
+}
+
+static int first_events(FILE *f, const ctx *c)
+{
+    char name[64];
+    int rc = 0;
+    for (int k = 0; k < c->ev->n && rc >= 0; k++) {
+        snprintf(name, sizeof name, "first_%s", c->ev->name[k]);
+        rc = row(f, name, "yr", REAL10, c->ev->t_s[k] / VL_YR);
+    }
+    return rc;
+}
+
+static int regime_times(FILE *f, const ctx *c)
+{
+    char name[64];
+    int rc = 0;
+    for (int r = 0; r < VL_NREGIMES && rc >= 0; r++) {
+        snprintf(name, sizeof name, "time_%s", vl_regime_name(r));
+        rc = row(f, name, "yr", REAL10, c->s->time_in_regime_s[r] / VL_YR);
+    }
+    return rc;
+}
+
+/* a flux column "x_kg_s" integrates to "total_x" (kg) */
+static int channel_totals(FILE *f, const ctx *c)
+{
+    char name[128];
+    int rc = 0;
+    for (size_t k = 0; k < c->m->ncolumns && rc >= 0; k++) {
+        const char *col = c->m->col_name[k];
+        size_t len = strlen(col);
+        int tail = len > 5 && strcmp(col + len - 5, "_kg_s") == 0;
+        snprintf(name, sizeof name, "total_%.*s", (int)(tail ? len - 5 : len), col);
+        rc = row(f, name, "kg", REAL10, clamp0(c->s->channel_kg[k]));
+    }
+    return rc;
+}
+
+static int residuals(FILE *f, const ctx *c)
+{
+    char name[64];
+    int rc = 0;
+    for (int el = 0; el < VL_NELEMENTS && rc >= 0; el++) {
+        double t0 = c->s->totals0[el], d = fabs(c->s->totals1[el] - t0);
+        snprintf(name, sizeof name, "residual_%s", vl_element_name(el));
+        rc = row(f, name, "relative", SCI3, t0 > 0.0 ? d / t0 : d);
+    }
+    return rc;
+}
+
+static double water(const ctx *c) { return c->d->surface_water_to; }
+static double water_lost(const ctx *c) { return c->d->water_lost_to; }
+static double o2(const ctx *c) { return c->d->o2_bar; }
+static double dh(const ctx *c) { return c->d->dh_water; }
+static double dh_enrichment(const ctx *c) { return c->d->dh_enrichment; }
+static double co2(const ctx *c) { return c->d->co2_bar; }
+static double ocean_co2(const ctx *c) { return c->d->ocean_co2_kg; }
+static double co2_ppmv(const ctx *c) { return c->d->co2_ppmv; }
+/* rows and finals print overshoots below zero as 0; their largest depth is here */
+static double overshoot(const ctx *c)
+{
+    return c->s->min_mass_kg < 0.0 ? -c->s->min_mass_kg : 0.0;
+}
+static double rhs_calls(const ctx *c) { return (double)c->s->rhs_calls; }
+static double steps(const ctx *c) { return (double)c->s->steps; }
+static double events(const ctx *c) { return (double)c->s->events; }
+static double nodes(const ctx *c) { return (double)c->s->climate_nodes; }
+static double build_s(const ctx *c) { return c->s->climate_build_s; }
+static double wall_s(const ctx *c) { return c->s->wall_s; }
+
+static const item items[] = {
+    {"final_<reservoir>", "kg", REAL10, "final mass of every reservoir (overshoots below 0 as 0)",
+     NULL, final_reservoirs},
+    {"final_surface_water_to", "TO", REAL10, "surface water left", water, NULL},
+    {"water_lost_to_space", "TO", REAL10, "water whose hydrogen reached space, all channels",
+     water_lost, NULL},
+    {"o2_accumulated", "bar", REAL10, "atmospheric O2 at the end (pressure of the gas alone)",
+     o2, NULL},
+    {"final_dh_water", "ratio", REAL10,
+     "D/H atom ratio of the surface water at the end (nan: exhausted)", dh, NULL},
+    {"dh_enrichment", "ratio", REAL10,
+     "final_dh_water over inventory.initial_dh (nan: undefined)", dh_enrichment, NULL},
+    {"final_co2", "bar", REAL10, "CO2 in the air at the end (pressure of the gas alone)", co2,
+     NULL},
+    {"final_ocean_co2", "kg", REAL10, "CO2 dissolved in the ocean at the end", ocean_co2, NULL},
+    {"final_co2_mole_fraction", "ppmv", REAL10, "CO2 mole fraction of the whole atmosphere",
+     co2_ppmv, NULL},
+    {"first_<event>", "yr", REAL10, "stellar age of the first event of each kind that happened",
+     NULL, first_events},
+    {"time_<regime>", "yr", REAL10, "time spent in each regime", NULL, regime_times},
+    {"total_<flux>", "kg", REAL10,
+     "time integral of each process flux column <flux>_kg_s (trapezoid over accepted steps)",
+     NULL, channel_totals},
+    {"residual_<element>", "relative", SCI3,
+     "|final - initial| / initial inventory of the element over every reservoir, space included",
+     NULL, residuals},
+    {"reservoir_overshoot", "kg", REAL10,
+     "deepest integrator overshoot of a reservoir below zero seen in a row", overshoot, NULL},
+    {"rhs_evaluations", "count", COUNT, "right-hand-side evaluations, Jacobians included",
+     rhs_calls, NULL},
+    {"steps", "count", COUNT, "accepted integrator steps", steps, NULL},
+    {"events", "count", COUNT, "events logged", events, NULL},
+    {"climate_table_nodes", "count", COUNT, "climate table nodes built for the run", nodes, NULL},
+    {"climate_table_build_s", "s", SECONDS, "wall time spent building them", build_s, NULL},
+    {"wall_time_s", "s", SECONDS, "wall time of the run", wall_s, NULL},
+};
+
+int vl_summary_write(FILE *f, const vl_model *m, const vl_run_stats *stats,
+                     const vl_event_firsts *events_seen)
+{
+    vl_summary d;
+    vl_summary_derive(m, stats, &d);
+    ctx c = {m, stats, &d, events_seen};
+    int rc = fprintf(f, "name,value,unit\n");
+    for (size_t i = 0; i < sizeof items / sizeof items[0] && rc >= 0; i++)
+        rc = items[i].group ? items[i].group(f, &c)
+                            : row(f, items[i].name, items[i].unit, items[i].format,
+                                  items[i].value(&c));
+    return rc < 0 ? -1 : 0;
+}
+
+void vl_summary_print_reference(FILE *out)
+{
+    for (size_t i = 0; i < sizeof items / sizeof items[0]; i++)
+        fprintf(out, "| `%s` | %s | %s |\n", items[i].name, items[i].unit, items[i].meaning);
+}
