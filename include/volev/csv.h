@@ -36,8 +36,8 @@
 
 #include "volev/status.h"
 
-/* Default largest input, bytes: 256 MiB, a million catalogue rows of 250 bytes or the
- * largest series.csv run.log_points and run.linear_points allow. */
+/* Default largest input, bytes: 256 MiB, room for a million catalogue candidates
+ * (VL_CATALOGUE_ROWS_MAX) of about 250 bytes each. */
 #define VL_CSV_SIZE_MAX ((size_t)256 << 20)
 /* Default longest line, bytes, its line end excluded: 1 MiB. */
 #define VL_CSV_LINE_MAX ((size_t)1 << 20)
