@@ -442,7 +442,9 @@ START_TEST(errors_leave_nothing)
     int n = line_starting("bad/summary.csv", "final_co2,");
     replace_line("bad/summary.csv", n, "final_co2;7.6e-05;bar");
     ck_assert_int_eq(volev("compare wet bad -o cmp"), 3);
-    snprintf(want, sizeof want, "bad/summary.csv:%d: malformed row", n);
+    snprintf(want, sizeof want,
+             "bad/summary.csv:%d: 1 fields, but the header on line %d has 3 (name,value,unit)",
+             n, line_starting("bad/summary.csv", "name,value,unit"));
     vl_test_file_contains(tmpdir, "err.txt", want);
     ck_assert(!vl_test_exists(tmpdir, "cmp"));
     ck_assert(!vl_test_exists(tmpdir, "cmp/compare.csv"));

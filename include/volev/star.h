@@ -7,6 +7,7 @@
 
 #include "volev/scenario.h"
 #include "volev/status.h"
+#include "volev/track.h"
 
 typedef struct vl_star vl_star;   /* opaque; immutable after vl_star_new */
 
@@ -19,8 +20,6 @@ typedef struct vl_star_state {
     double wind_speed_m_s;   /* wind speed, m/s */
 } vl_star_state;
 
-typedef struct vl_star_track vl_star_track;   /* opaque; a checked luminosity table */
-
 /* Build the star for ages [t_start_s, t_end_s]; a table star reads its track file with
  * vl_star_track_read and checks that it covers the run. NULL on error. */
 vl_star *vl_star_new(const vl_star_params *p, double t_start_s, double t_end_s, vl_status *st);
@@ -30,22 +29,6 @@ vl_star *vl_star_new(const vl_star_params *p, double t_start_s, double t_end_s, 
 vl_star *vl_star_new_track(const vl_star_params *p, vl_star_track *track, double t_start_s,
                            double t_end_s, vl_status *st);
 void vl_star_free(vl_star *s);   /* accepts NULL */
-
-/* A stellar track CSV held in memory (len bytes; format in docs/model.md, "Star"):
- * '#' comments and blank lines, a header naming age_yr and luminosity_lsun (optional
- * teff_k, xuv_lsun, any order), then rows of finite positive numbers with ages strictly
- * increasing, at least two. A NUL byte is an input error. label (NULL: "(text)") is the
- * file name in messages. The interpolants are set up. NULL on error, st filled
- * (VL_ERR_INPUT with the line, VL_ERR_INTERNAL when out of memory). */
-vl_star_track *vl_star_track_parse(const char *text, size_t len, const char *label,
-                                   vl_status *st);
-/* The same from a file (VL_ERR_IO when it cannot be read); path names it in messages. */
-vl_star_track *vl_star_track_read(const char *path, vl_status *st);
-void vl_star_track_free(vl_star_track *t);   /* accepts NULL */
-/* Data rows, and the first and last ages (s) of a parsed track: a run over exactly
- * [first_s, last_s] is covered. */
-size_t vl_star_track_rows(const vl_star_track *t);
-void vl_star_track_span(const vl_star_track *t, double *first_s, double *last_s);
 
 /* State of the star at age t_s (s). Requires t_s > 0 and, for a table, inside the table. */
 void vl_star_eval(const vl_star *s, double t_s, vl_star_state *out);

@@ -1,5 +1,5 @@
-/* text.h: whether bytes read from a user's file are text, for the readers of CSV files
- * (catalogue.c, star.c), so that binary data is refused with a clear message. */
+/* text.h: whether bytes read from a user's file are text, for the CSV reader (csv.c), so
+ * that binary data is refused with a clear message. */
 #ifndef VOLEV_TEXT_H
 #define VOLEV_TEXT_H
 

@@ -9,10 +9,12 @@
  *               outcome class; water_map: final water
  *
  * Before gnuplot runs, every input file is checked for the columns its figure needs, so
- * a missing or misnamed column is an error naming it (never an empty plot). Figures are
+ * a missing or misnamed column is an error naming it (never an empty plot); the CSV
+ * reader (csv.h) reads the head of each file: comments, header, first row. Figures are
  * written by gnuplot straight to their final names; a failed render removes its file. */
 #include <errno.h>
 #include <math.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -21,6 +23,7 @@
 #include "cli.h"
 #include "gnuplot.h"
 #include "volev/climate.h"
+#include "volev/csv.h"
 #include "volev/scenario.h"
 #include "volev/star.h"
 #include "volev/units.h"
@@ -71,65 +74,35 @@ static int readable(const char *dir, const char *name)
     return access(p, R_OK) == 0;
 }
 
-/* The header line of a CSV (first line not starting with '#') into buf. */
-static int header_of(const char *path, char *buf, size_t n, int *line, vl_status *st)
+/* The head of a CSV output file: its comments, header and first data row, through the
+ * CSV reader. Only that much is read, so the file's size does not matter. */
+static vl_csv_table *head_of(const char *path, vl_status *st)
 {
-    FILE *f = fopen(path, "r");
-    if (!f)
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
-    int k = 0, rc = VL_ERR_INPUT;
-    while (fgets(buf, (int)n, f)) {
-        k++;
-        if (buf[0] == '#')
-            continue;
-        buf[strcspn(buf, "\r\n")] = '\0';
-        rc = VL_OK;
-        break;
-    }
-    /* at least one data row after the header */
-    char row[64];
-    int data = rc == VL_OK && fgets(row, sizeof row, f) != NULL;
-    fclose(f);
-    *line = k;
-    if (rc != VL_OK)
-        return vl_fail(st, VL_ERR_INPUT, path, 0, "no header line (not a volev output file?)");
-    if (!data)
-        return vl_fail(st, VL_ERR_INPUT, path, k + 1, "no data rows");
-    return VL_OK;
+    static const vl_csv_options head = {0, SIZE_MAX, 0, 1, NULL, NULL};
+    return vl_csv_read(path, &head, st);
 }
 
-static int has_column(const char *header, const char *name)
-{
-    size_t n = strlen(name);
-    for (const char *p = header; *p;) {
-        size_t len = strcspn(p, ",");
-        if (len == n && strncmp(p, name, n) == 0)
-            return 1;
-        p += len;
-        if (*p == ',')
-            p++;
-    }
-    return 0;
-}
-
-/* path must hold every column of need (and extra, if not NULL), for figure `kind`. */
+/* path must hold every column of need (and extra, if not NULL), for figure `kind`, and at
+ * least one data row. */
 static int check_columns(const char *path, const char *const *need, const char *const *extra,
                          int kind, vl_status *st)
 {
-    static char header[1 << 16];
-    int line = 0;
-    int rc = header_of(path, header, sizeof header, &line, st);
-    if (rc)
-        return rc;
-    for (int pass = 0; pass < 2; pass++) {
+    vl_csv_table *t = head_of(path, st);
+    if (!t)
+        return st->code;
+    if (!t->header_line)
+        vl_fail(st, VL_ERR_INPUT, path, 0, "no header line (not a volev output file?)");
+    for (int pass = 0; pass < 2 && st->code == VL_OK; pass++) {
         const char *const *list = pass ? extra : need;
-        for (size_t i = 0; list && list[i]; i++)
-            if (!has_column(header, list[i]))
-                return vl_fail(st, VL_ERR_INPUT, path, line,
-                               "no column '%s' (the %s figure needs it)", list[i],
-                               kinds[kind].name);
+        for (size_t i = 0; list && list[i] && st->code == VL_OK; i++)
+            if (vl_csv_column(t, list[i]) == VL_CSV_NONE)
+                vl_fail(st, VL_ERR_INPUT, path, t->header_line,
+                        "no column '%s' (the %s figure needs it)", list[i], kinds[kind].name);
     }
-    return VL_OK;
+    if (st->code == VL_OK && t->nrows == 0)
+        vl_fail(st, VL_ERR_INPUT, path, t->header_line, "no data rows below the header");
+    vl_csv_free(t);
+    return st->code;
 }
 
 /* ------------------------------------------------------------------ grid sweeps */
@@ -141,18 +114,19 @@ typedef struct {
     int grid;        /* all of them grid axes */
 } axes_t;
 
-/* The "# axis KEY grid SPACING FROM TO POINTS" lines of members.csv. */
+/* The "# axis KEY grid SPACING FROM TO POINTS" comments above members.csv's header. */
 static int read_axes(const char *path, axes_t *ax, vl_status *st)
 {
     memset(ax, 0, sizeof *ax);
     ax->grid = 1;
-    FILE *f = fopen(path, "r");
-    if (!f)
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
-    char line[1024];
-    while (fgets(line, sizeof line, f) && line[0] == '#') {
-        char key[128], kind[32], spacing[32];
-        if (sscanf(line, "# axis %127s %31s %31s", key, kind, spacing) < 2)
+    vl_csv_table *t = head_of(path, st);
+    if (!t)
+        return st->code;
+    for (size_t c = 0; c < t->ncomments; c++) {
+        char key[128], kind[32], spacing[32] = "";
+        if (t->header_line && t->comments[c].line > t->header_line)
+            break;
+        if (sscanf(t->comments[c].text, "# axis %127s %31s %31s", key, kind, spacing) < 2)
             continue;
         if (ax->n < 2) {
             snprintf(ax->key[ax->n], sizeof ax->key[0], "%s", key);
@@ -163,7 +137,7 @@ static int read_axes(const char *path, axes_t *ax, vl_status *st)
             ax->grid = 0;
         ax->n++;
     }
-    fclose(f);
+    vl_csv_free(t);
     return VL_OK;
 }
 
@@ -309,119 +283,166 @@ static void list_kinds(void)
     printf("formats: png (screens), pdf and svg (vector, for papers); docs/figures.md\n");
 }
 
-int vl_cli_plot(int argc, char **argv)
-{
-    const char *fmt = NULL, *out = NULL, *want = NULL, *title = "";
+/* The command line. */
+typedef struct plot_args {
+    const char *fmt, *out, *want, *title;
     char *dirs[4];
-    int ndirs = 0;
+    int ndirs;
+    int list;        /* --list */
+    int kind;        /* the kind --kind names, -1 without */
+} plot_args;
+
+/* Reads argv into a (stopping at --list); VL_OK or a usage error (printed). */
+static int parse_args(int argc, char **argv, plot_args *a)
+{
+    *a = (plot_args){NULL, NULL, NULL, "", {NULL}, 0, 0, -1};
     for (int i = 1; i < argc; i++) {
-        const char *a = argv[i];
-        if (strcmp(a, "--list") == 0) {
-            list_kinds();
+        const char *s = argv[i];
+        if (strcmp(s, "--list") == 0) {
+            a->list = 1;
             return VL_OK;
         }
-        if (!strcmp(a, "--format") || !strcmp(a, "-f") || !strcmp(a, "-o") ||
-            !strcmp(a, "--kind") || !strcmp(a, "--title")) {
-            if (i + 1 >= argc)
-                return vl_cli_usage_error(argv[0], "%s needs a value", a);
-            const char *v = argv[++i];
-            if (a[1] == 'o')
-                out = v;
-            else if (!strcmp(a, "--kind"))
-                want = v;
-            else if (!strcmp(a, "--title"))
-                title = v;
-            else
-                fmt = v;
-        } else if (a[0] == '-') {
-            return vl_cli_usage_error(argv[0], "unknown option '%s'", a);
-        } else if (ndirs < 4) {
-            dirs[ndirs++] = argv[i];
-        } else {
+        const char **value = !strcmp(s, "--format") || !strcmp(s, "-f") ? &a->fmt
+                             : !strcmp(s, "-o")                         ? &a->out
+                             : !strcmp(s, "--kind")                     ? &a->want
+                             : !strcmp(s, "--title")                    ? &a->title
+                                                                        : NULL;
+        if (value && i + 1 >= argc)
+            return vl_cli_usage_error(argv[0], "%s needs a value", s);
+        if (value)
+            *value = argv[++i];
+        else if (s[0] == '-')
+            return vl_cli_usage_error(argv[0], "unknown option '%s'", s);
+        else if (a->ndirs < 4)
+            a->dirs[a->ndirs++] = argv[i];
+        else
             return vl_cli_usage_error(argv[0], "at most three folders (a comparison)");
-        }
     }
-    if (ndirs == 0)
-        return vl_cli_usage_error(argv[0], "missing DIR (a run, balance or sweep folder); "
-                                           "'volev plot --list' names the figures");
-    if (ndirs > 3)
-        return vl_cli_usage_error(argv[0], "at most three folders (a comparison)");
-    /* the format: --format, or the extension of -o, which must agree */
-    const char *ext = out ? strrchr(out, '.') : NULL;
-    if (out && (!ext || (strcmp(ext, ".png") && strcmp(ext, ".pdf") && strcmp(ext, ".svg"))))
-        return vl_cli_usage_error(argv[0], "-o %s: the file must end in .png, .pdf or .svg", out);
-    if (fmt && strcmp(fmt, "png") && strcmp(fmt, "pdf") && strcmp(fmt, "svg"))
-        return vl_cli_usage_error(argv[0], "unknown format '%s' (png, pdf or svg)", fmt);
-    if (fmt && ext && strcmp(fmt, ext + 1) != 0)
-        return vl_cli_usage_error(argv[0], "--format %s disagrees with -o %s", fmt, out);
-    if (!fmt)
-        fmt = ext ? ext + 1 : "png";
-    int kind_wanted = -1;
-    if (want) {
-        for (int k = 0; k < NKIND; k++)
-            if (strcmp(want, kinds[k].name) == 0)
-                kind_wanted = k;
-        if (kind_wanted < 0)
-            return vl_cli_usage_error(argv[0], "unknown figure kind '%s' (volev plot --list)", want);
-    }
-    for (int d = 0; d < ndirs; d++)
-        if (strchr(dirs[d], '\n'))
-            return vl_cli_usage_error(argv[0], "folder names with line breaks are not supported");
+    return VL_OK;
+}
 
-    vl_status st;
-    vl_status_clear(&st);
-    job_t j = {fmt, out, title, 0};
-    if (ndirs > 1) {
-        if (kind_wanted >= 0 && kind_wanted != K_COMPARISON)
-            return vl_cli_usage_error(argv[0], "several folders make a comparison, not '%s'", want);
-        plot_comparison(&j, dirs, ndirs, &st);
-        return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
-    }
-    const char *dir = dirs[0];
-    /* what the folder holds */
-    int avail[NKIND] = {0};
-    axes_t ax;
-    memset(&ax, 0, sizeof ax);
+/* The format: --format, or the extension of -o, which must agree; png by default. */
+static int pick_format(const char *cmd, plot_args *a)
+{
+    const char *ext = a->out ? strrchr(a->out, '.') : NULL;
+    if (a->out && (!ext || (strcmp(ext, ".png") && strcmp(ext, ".pdf") && strcmp(ext, ".svg"))))
+        return vl_cli_usage_error(cmd, "-o %s: the file must end in .png, .pdf or .svg", a->out);
+    if (a->fmt && strcmp(a->fmt, "png") && strcmp(a->fmt, "pdf") && strcmp(a->fmt, "svg"))
+        return vl_cli_usage_error(cmd, "unknown format '%s' (png, pdf or svg)", a->fmt);
+    if (a->fmt && ext && strcmp(a->fmt, ext + 1) != 0)
+        return vl_cli_usage_error(cmd, "--format %s disagrees with -o %s", a->fmt, a->out);
+    if (!a->fmt)
+        a->fmt = ext ? ext + 1 : "png";
+    return VL_OK;
+}
+
+/* Folders given (one to three, no line breaks), the format, the kind asked for. */
+static int check_args(const char *cmd, plot_args *a)
+{
+    if (a->ndirs == 0)
+        return vl_cli_usage_error(cmd, "missing DIR (a run, balance or sweep folder); "
+                                       "'volev plot --list' names the figures");
+    if (a->ndirs > 3)
+        return vl_cli_usage_error(cmd, "at most three folders (a comparison)");
+    int rc = pick_format(cmd, a);
+    if (rc)
+        return rc;
+    for (int k = 0; a->want && k < NKIND; k++)
+        if (strcmp(a->want, kinds[k].name) == 0)
+            a->kind = k;
+    if (a->want && a->kind < 0)
+        return vl_cli_usage_error(cmd, "unknown figure kind '%s' (volev plot --list)", a->want);
+    for (int d = 0; d < a->ndirs; d++)
+        if (strchr(a->dirs[d], '\n'))
+            return vl_cli_usage_error(cmd, "folder names with line breaks are not supported");
+    return VL_OK;
+}
+
+/* Which figures the folder's files make (avail), with the sweep axes of members.csv;
+ * returns how many, or -1 with st filled. */
+static int find_figures(const char *dir, int avail[NKIND], axes_t *ax, vl_status *st)
+{
+    memset(ax, 0, sizeof *ax);
     avail[K_HISTORY] = readable(dir, "series.csv");
     avail[K_BALANCE] = readable(dir, "balance.csv");
+    avail[K_COMPARISON] = 0;
     avail[K_ENSEMBLE] = readable(dir, "ensemble_series.csv") && readable(dir, "ensemble_summary.csv");
+    avail[K_REGIME] = avail[K_WATER] = 0;
     if (readable(dir, "members.csv")) {
         char mem[4200];
         snprintf(mem, sizeof mem, "%s/members.csv", dir);
-        if (read_axes(mem, &ax, &st) != VL_OK)
-            return vl_cli_report(&st);
-        avail[K_REGIME] = avail[K_WATER] = ax.grid && ax.n == 2;
+        if (read_axes(mem, ax, st) != VL_OK)
+            return -1;
+        avail[K_REGIME] = avail[K_WATER] = ax->grid && ax->n == 2;
     }
-    int navail = 0;
+    int n = 0;
     for (int k = 0; k < NKIND; k++)
-        navail += avail[k];
-    if (kind_wanted >= 0 && !avail[kind_wanted]) {
-        const char *why = kind_wanted == K_COMPARISON ? "give two or three run folders"
-                          : (kind_wanted == K_REGIME || kind_wanted == K_WATER) && readable(dir, "members.csv")
-                              ? "the map needs a grid sweep over exactly two axes"
-                              : "the folder lacks its input files (volev plot --list)";
-        vl_fail(&st, VL_ERR_INPUT, dir, 0, "no %s figure here: %s", want, why);
-        return vl_cli_report(&st);
-    }
-    if (navail == 0) {
-        vl_fail(&st, VL_ERR_IO, dir, 0,
-                "nothing to plot: no series.csv (volev run), balance.csv (volev balance) or "
-                "sweep files (volev sweep) here; volev plot --list");
-        return vl_cli_report(&st);
-    }
-    if (out && kind_wanted < 0 && navail > 1)
-        return vl_cli_usage_error(argv[0],
-                                  "%s holds several figures: choose one with --kind (volev plot --list)",
-                                  dir);
-    for (int k = 0; k < NKIND && st.code == VL_OK; k++) {
-        if (!avail[k] || (kind_wanted >= 0 && k != kind_wanted))
+        n += avail[k];
+    return n;
+}
+
+/* The error for a figure kind the folder cannot make. */
+static int unavailable(const char *dir, const plot_args *a, vl_status *st)
+{
+    int map = a->kind == K_REGIME || a->kind == K_WATER;
+    const char *why = a->kind == K_COMPARISON ? "give two or three run folders"
+                      : map && readable(dir, "members.csv")
+                          ? "the map needs a grid sweep over exactly two axes"
+                          : "the folder lacks its input files (volev plot --list)";
+    return vl_fail(st, VL_ERR_INPUT, dir, 0, "no %s figure here: %s", a->want, why);
+}
+
+/* One folder: every figure it makes, or the one asked for. */
+static int plot_folder(const char *cmd, job_t *j, const plot_args *a, vl_status *st)
+{
+    const char *dir = a->dirs[0];
+    int avail[NKIND];
+    axes_t ax;
+    int navail = find_figures(dir, avail, &ax, st);
+    if (navail < 0)
+        return st->code;
+    if (a->kind >= 0 && !avail[a->kind])
+        return unavailable(dir, a, st);
+    if (navail == 0)
+        return vl_fail(st, VL_ERR_IO, dir, 0,
+                       "nothing to plot: no series.csv (volev run), balance.csv (volev balance) "
+                       "or sweep files (volev sweep) here; volev plot --list");
+    if (a->out && a->kind < 0 && navail > 1)
+        return vl_cli_usage_error(cmd, "%s holds several figures: choose one with --kind (volev "
+                                       "plot --list)", dir);
+    for (int k = 0; k < NKIND && st->code == VL_OK; k++) {
+        if (!avail[k] || (a->kind >= 0 && k != a->kind))
             continue;
         if (k == K_HISTORY || k == K_BALANCE)
-            plot_run(&j, k, dir, &st);
+            plot_run(j, k, dir, st);
         else if (k == K_ENSEMBLE)
-            plot_ensemble(&j, dir, &st);
+            plot_ensemble(j, dir, st);
         else
-            plot_map(&j, k, dir, &ax, &st);
+            plot_map(j, k, dir, &ax, st);
     }
-    return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
+    return st->code;
+}
+
+int vl_cli_plot(int argc, char **argv)
+{
+    plot_args a;
+    int rc = parse_args(argc, argv, &a);
+    if (rc == VL_OK && a.list) {
+        list_kinds();
+        return VL_OK;
+    }
+    if (rc == VL_OK)
+        rc = check_args(argv[0], &a);
+    if (rc != VL_OK)
+        return rc;
+    vl_status st;
+    vl_status_clear(&st);
+    job_t j = {a.fmt, a.out, a.title, 0};
+    if (a.ndirs > 1 && a.kind >= 0 && a.kind != K_COMPARISON)
+        return vl_cli_usage_error(argv[0], "several folders make a comparison, not '%s'", a.want);
+    if (a.ndirs > 1)
+        rc = plot_comparison(&j, a.dirs, a.ndirs, &st);
+    else
+        rc = plot_folder(argv[0], &j, &a, &st); /* a usage error is printed already */
+    return st.code == VL_OK ? rc : vl_cli_report(&st);
 }

@@ -1,11 +1,12 @@
 /* catalogue.c: the planet-catalogue reader (catalogue.h; format in docs/catalogue.md).
- * One candidate per CSV row; each value column maps to a scenario key. Everything about
- * the file is checked here; whether a full key exists and whether a value is within its
- * bounds is left to the scenario loader, which receives the cells as overrides. */
+ * One candidate per CSV row; each value column maps to a scenario key. The CSV reader
+ * (csv.h, with double quotes) checks the lines, the quoting and the field counts; the
+ * header and the cells are checked here; whether a full key exists and whether a value
+ * is within its bounds is left to the scenario loader, which receives the cells as
+ * overrides. */
 #include "volev/catalogue.h"
 
 #include <errno.h>
-#include <limits.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdint.h>
@@ -13,9 +14,9 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "volev/csv.h"
 #include "volev/params.h"
 #include "volev/scenario.h"
-#include "volev/text.h"
 
 /* Short column names and the scenario keys they stand for; their values are numbers. */
 static const struct {
@@ -39,23 +40,22 @@ static const struct {
 
 #define NAME_COLUMN "name"
 #define SHOWN_MAX 48      /* bytes of an offending value quoted in a message */
-#define LABEL_MAX 320     /* "column '<header>'" and the like */
+
+/* The CSV reader's settings for catalogues: double quotes, the catalogue's line limit. */
+static const vl_csv_options catalogue_csv = {VL_CSV_QUOTES, 0, VL_CATALOGUE_LINE_MAX, 0,
+                                             "catalogue", "CSV text"};
 
 /* Reader state: the header once read, the catalogue being filled, the name index. */
 typedef struct parser {
     const char *path;         /* file name in messages (may be NULL) */
-    int line;                 /* current 1-based line */
+    int line;                 /* line of the record being read */
     int header_line;          /* line of the header, 0 before it */
-    size_t nfields;           /* fields per line, from the header */
     size_t name_field;        /* field index of the name column */
     unsigned char *numeric;   /* per value column: 1 if its cells must be numbers */
     vl_catalogue *cat;        /* being filled; owned until handed back */
     size_t cap;               /* rows allocated in cat */
     size_t *slot;             /* open-addressing index of names: row + 1, 0 = free */
     size_t nslot;             /* size of slot, a power of two (0 before the first row) */
-    char *scratch;            /* decoded fields of the current line */
-    size_t nfield_line;       /* fields counted on the current line */
-    char *field[VL_CATALOGUE_COLS_MAX + 1]; /* the first fields of the current line */
 } parser;
 
 /* ---------------------------------------------------------------- messages */
@@ -93,50 +93,7 @@ static const char *shown(const char *s, char *buf, size_t n)
     return buf;
 }
 
-/* Header text of field k (the name column included). */
-static const char *field_header(const parser *p, size_t k)
-{
-    if (k == p->name_field)
-        return NAME_COLUMN;
-    return p->cat->headers[k < p->name_field ? k : k - 1];
-}
-
-/* How messages call field k of the current line: by its header once there is one. */
-static const char *field_label(const parser *p, size_t k, char *buf, size_t n)
-{
-    if (!p->header_line)
-        snprintf(buf, n, "header field %zu", k + 1);
-    else if (k < p->nfields)
-        snprintf(buf, n, "column '%s'", field_header(p, k));
-    else
-        snprintf(buf, n, "field %zu (the header has %zu)", k + 1, p->nfields);
-    return buf;
-}
-
-/* ---------------------------------------------------------------- text checks */
-
-/* The line (end stripped) is UTF-8 text: no NUL, no control character but TAB. */
-static int check_text(const parser *p, const char *s, size_t len, vl_status *st)
-{
-    int fault;
-    size_t i = vl_text_scan(s, len, &fault);
-    unsigned char c = i < len ? (unsigned char)s[i] : 0;
-    switch (fault) {
-    case VL_TEXT_OK: return VL_OK;
-    case VL_TEXT_NUL:
-        return fail(p, st, "NUL byte at byte %zu of the line: binary data, not CSV text",
-                    i + 1);
-    case VL_TEXT_CONTROL:
-        if (c == '\r')
-            return fail(p, st, "carriage return at byte %zu of the line (only CRLF line ends "
-                        "are accepted)", i + 1);
-        return fail(p, st, "control character 0x%02X at byte %zu of the line: binary data, "
-                    "not CSV text", c, i + 1);
-    default:
-        return fail(p, st, "byte 0x%02X at byte %zu of the line is not UTF-8 text "
-                    "(binary data?)", c, i + 1);
-    }
-}
+/* ---------------------------------------------------------------- value checks */
 
 /* A whole-field finite decimal number: digits, sign, point, exponent and nothing else
  * (so no "nan", "inf", hex floats, spaces or trailing text), within double range. */
@@ -244,15 +201,15 @@ static int unknown_column(const parser *p, const char *f, vl_status *st)
     else
         snprintf(hint, sizeof hint, " (closest short name: '%s')", best);
     return fail(p, st, "unknown column '%s'%s; columns are %s, or a full scenario key with "
-                "dots such as processes.hydrogen_escape.xuv_efficiency",
+                "dots such as escape.xuv_efficiency",
                 shown(f, fs, sizeof fs), hint, list);
 }
 
 /* Reads the header: at most VL_CATALOGUE_COLS_MAX columns, one 'name', every other a
  * short name or a plausible full key, no scenario key twice. */
-static int read_header(parser *p, vl_status *st)
+static int read_header(parser *p, const vl_csv_record *rec, vl_status *st)
 {
-    size_t n = p->nfield_line;
+    size_t n = rec->n;
     char fs[SHOWN_MAX + 4];
     if (n > VL_CATALOGUE_COLS_MAX)
         return fail(p, st, "the header has %zu columns; at most %d are allowed (name included)",
@@ -266,7 +223,7 @@ static int read_header(parser *p, vl_status *st)
         return out_of_memory(st);
     int have_name = 0;
     for (size_t k = 0, col = 0; k < n; k++) {
-        const char *f = p->field[k], *key = f;
+        const char *f = rec->field[k], *key = f;
         if (!*f)
             return fail(p, st, "header field %zu is empty: every column needs a name", k + 1);
         if (strlen(f) > VL_CATALOGUE_FIELD_MAX)
@@ -302,7 +259,6 @@ static int read_header(parser *p, vl_status *st)
         return fail(p, st, "the header has no '" NAME_COLUMN "' column (each candidate needs "
                     "a name)");
     c->ncols = n - 1;
-    p->nfields = n;
     p->header_line = p->line;
     return VL_OK;
 }
@@ -388,22 +344,19 @@ static int check_cell(const parser *p, size_t col, const char *f, vl_status *st)
                 "and '_', not starting with a digit), got '%s'", h, shown(f, fs, sizeof fs));
 }
 
-/* Reads one candidate: as many fields as the header, a new non-empty name, valid cells;
- * stores the name and the non-empty cells in one allocation. */
-static int read_row(parser *p, vl_status *st)
+/* Reads one candidate (the CSV reader has checked that it has as many fields as the
+ * header): a new non-empty name, valid cells; stores the name and the non-empty cells in
+ * one allocation. */
+static int read_row(parser *p, const vl_csv_record *rec, vl_status *st)
 {
     vl_catalogue *c = p->cat;
     char fs[SHOWN_MAX + 4];
-    size_t n = p->nfield_line;
-    if (n != p->nfields)
-        return fail(p, st, "%zu fields, but the header on line %d has %zu%s", n, p->header_line,
-                    p->nfields,
-                    n > p->nfields ? " (a name or value containing a comma needs double quotes)"
-                                   : "");
+    size_t n = rec->n;
+    char *const *field = rec->field;
     if (c->nrows >= VL_CATALOGUE_ROWS_MAX)
         return fail(p, st, "more than %d candidates; split the catalogue",
                     VL_CATALOGUE_ROWS_MAX);
-    const char *name = p->field[p->name_field];
+    const char *name = field[p->name_field];
     if (!*name)
         return fail(p, st, "column '" NAME_COLUMN "': empty candidate name");
     if (strlen(name) > VL_CATALOGUE_FIELD_MAX)
@@ -420,10 +373,10 @@ static int read_row(parser *p, vl_status *st)
     for (size_t k = 0, col = 0; k < n; k++) {
         if (k == p->name_field)
             continue;
-        if ((rc = check_cell(p, col++, p->field[k], st)))
+        if ((rc = check_cell(p, col++, field[k], st)))
             return rc;
-        if (*p->field[k])
-            size += strlen(p->field[k]) + 1;
+        if (*field[k])
+            size += strlen(field[k]) + 1;
     }
     if ((rc = rows_grow(p, st)))
         return rc;
@@ -434,7 +387,7 @@ static int read_row(parser *p, vl_status *st)
     for (size_t k = 0, col = 0; k < n; k++) {
         if (k == p->name_field)
             continue;
-        const char *f = p->field[k];
+        const char *f = field[k];
         block[col++] = *f ? text : NULL;
         if (*f)
             text = stpcpy(text, f) + 1;
@@ -448,147 +401,18 @@ static int read_row(parser *p, vl_status *st)
     return VL_OK;
 }
 
-/* ---------------------------------------------------------------- lines */
+/* ---------------------------------------------------------------- records */
 
-static int is_blank(char ch) { return ch == ' ' || ch == '\t'; }
-
-/* Splits the line into fields (p->field, p->nfield_line) decoded into p->scratch:
- * surrounding blanks trimmed, double quotes removed ("" inside quotes is a quote). The
- * decoded text with one NUL per field never needs more than len + 1 bytes. */
-static int split_line(parser *p, const char *s, size_t len, vl_status *st)
+/* The CSV reader's callback: the header, then one candidate per row; comments skipped. */
+static int take_record(void *ctx, const vl_csv_record *rec, vl_status *st)
 {
-    char *o = p->scratch, lab[LABEL_MAX];
-    size_t i = 0, k = 0;
-    for (;; k++) {
-        while (i < len && is_blank(s[i]))
-            i++;
-        char *start = o;
-        if (i < len && s[i] == '"') {
-            for (i++;; i++) {
-                if (i >= len)
-                    return fail(p, st, "%s: unterminated quote (a quoted field must end with "
-                                "'\"' on the same line)", field_label(p, k, lab, sizeof lab));
-                if (s[i] == '"') {
-                    if (i + 1 < len && s[i + 1] == '"') {
-                        *o++ = '"';
-                        i++;
-                        continue;
-                    }
-                    i++;
-                    break;
-                }
-                *o++ = s[i];
-            }
-            while (i < len && is_blank(s[i]))
-                i++;
-            if (i < len && s[i] != ',')
-                return fail(p, st, "%s: text after the closing quote",
-                            field_label(p, k, lab, sizeof lab));
-        } else {
-            for (; i < len && s[i] != ','; i++) {
-                if (s[i] == '"')
-                    return fail(p, st, "%s: '\"' inside an unquoted field (quote the whole "
-                                "field and double the quotes inside)",
-                                field_label(p, k, lab, sizeof lab));
-                *o++ = s[i];
-            }
-        }
-        while (start < o && is_blank(*start))
-            start++;
-        while (o > start && is_blank(o[-1]))
-            o--;
-        *o++ = '\0';
-        if (k <= VL_CATALOGUE_COLS_MAX)
-            p->field[k] = start;
-        if (i >= len)
-            break;
-        i++; /* the comma */
-    }
-    p->nfield_line = k + 1;
+    parser *p = ctx;
+    p->line = rec->line;
+    if (rec->kind == VL_CSV_HEADER)
+        return read_header(p, rec, st);
+    if (rec->kind == VL_CSV_ROW)
+        return read_row(p, rec, st);
     return VL_OK;
-}
-
-static int fail_long(const parser *p, vl_status *st)
-{
-    return fail(p, st, "line longer than %d bytes", VL_CATALOGUE_LINE_MAX);
-}
-
-/* Takes one line (without its '\n', with a CR before it if there was one): checks its
- * length and bytes, skips blank and comment lines, reads the header or a row. */
-static int take_line(parser *p, const char *s, size_t n, vl_status *st)
-{
-    if (p->line == INT_MAX)
-        return fail(p, st, "more than %d lines", INT_MAX);
-    p->line++;
-    if (n > 0 && s[n - 1] == '\r')
-        n--;
-    if (n > VL_CATALOGUE_LINE_MAX)
-        return fail_long(p, st);
-    if (p->line == 1 && n >= 3 && memcmp(s, "\xEF\xBB\xBF", 3) == 0) {
-        s += 3; /* UTF-8 byte-order mark */
-        n -= 3;
-    }
-    int rc = check_text(p, s, n, st);
-    if (rc)
-        return rc;
-    size_t i = 0;
-    while (i < n && is_blank(s[i]))
-        i++;
-    if (i == n || s[i] == '#')
-        return VL_OK;
-    if ((rc = split_line(p, s, n, st)))
-        return rc;
-    return p->header_line ? read_row(p, st) : read_header(p, st);
-}
-
-/* Reads f line by line through a bounded buffer (an over-long line fails as soon as it
- * is seen, without being held in memory). */
-static int read_stream(parser *p, FILE *f, vl_status *st)
-{
-    enum { CHUNK = 1 << 16 };
-    char *chunk = malloc(CHUNK), *line = malloc(VL_CATALOGUE_LINE_MAX + 1);
-    int rc = chunk && line ? VL_OK : out_of_memory(st);
-    size_t n = 0, got;
-    while (rc == VL_OK && (got = fread(chunk, 1, CHUNK, f)) > 0) {
-        for (size_t i = 0; rc == VL_OK && i < got;) {
-            const char *nl = memchr(chunk + i, '\n', got - i);
-            size_t seg = nl ? (size_t)(nl - (chunk + i)) : got - i;
-            if (n + seg > VL_CATALOGUE_LINE_MAX + 1) { /* room for a CR before the LF */
-                if (p->line < INT_MAX)
-                    p->line++;
-                rc = fail_long(p, st);
-                break;
-            }
-            memcpy(line + n, chunk + i, seg);
-            n += seg;
-            i += seg;
-            if (nl) {
-                rc = take_line(p, line, n, st);
-                n = 0;
-                i++;
-            }
-        }
-    }
-    if (rc == VL_OK && ferror(f))
-        rc = vl_fail(st, VL_ERR_IO, p->path, 0, "read error: %s", strerror(errno));
-    if (rc == VL_OK && n > 0)
-        rc = take_line(p, line, n, st);
-    free(chunk);
-    free(line);
-    return rc;
-}
-
-/* Splits a memory buffer into lines. */
-static int read_buffer(parser *p, const char *text, size_t len, vl_status *st)
-{
-    int rc = VL_OK;
-    for (size_t i = 0; rc == VL_OK && i < len;) {
-        const char *nl = memchr(text + i, '\n', len - i);
-        size_t seg = nl ? (size_t)(nl - (text + i)) : len - i;
-        rc = take_line(p, text + i, seg, st);
-        i += seg + 1;
-    }
-    return rc;
 }
 
 /* After the last line: a header and at least one candidate. */
@@ -626,20 +450,21 @@ void vl_catalogue_free(vl_catalogue *c)
     free(c);
 }
 
-/* Runs the reader over a FILE or a buffer; hands back the catalogue or NULL. */
-static vl_catalogue *run(const char *path, FILE *f, const char *text, size_t len,
+/* Runs the reader over a file (from_file: path) or a buffer (text, len, labelled path);
+ * hands back the catalogue or NULL. */
+static vl_catalogue *run(const char *path, int from_file, const char *text, size_t len,
                          vl_status *st)
 {
     vl_status_clear(st);
     parser p = {.path = path};
     p.cat = calloc(1, sizeof *p.cat);
-    p.scratch = malloc(VL_CATALOGUE_LINE_MAX + 1);
-    int rc = p.cat && p.scratch ? VL_OK : out_of_memory(st);
-    if (rc == VL_OK)
-        rc = f ? read_stream(&p, f, st) : read_buffer(&p, text, len, st);
+    int rc = p.cat ? VL_OK : out_of_memory(st);
+    if (rc == VL_OK && from_file)
+        rc = vl_csv_scan(path, &catalogue_csv, take_record, &p, st);
+    else if (rc == VL_OK)
+        rc = vl_csv_scan_buffer(text, len, path, &catalogue_csv, take_record, &p, st);
     if (rc == VL_OK)
         rc = finish(&p, st);
-    free(p.scratch);
     free(p.slot);
     free(p.numeric);
     if (rc) {
@@ -655,19 +480,12 @@ vl_catalogue *vl_catalogue_parse(const char *text, size_t len, const char *label
         vl_fail(st, VL_ERR_INTERNAL, label, 0, "vl_catalogue_parse: no text");
         return NULL;
     }
-    return run(label, NULL, text, len, st);
+    return run(label, 0, text, len, st);
 }
 
 vl_catalogue *vl_catalogue_read(const char *path, vl_status *st)
 {
-    FILE *f = fopen(path, "rb");
-    if (!f) {
-        vl_fail(st, VL_ERR_IO, path, 0, "cannot open catalogue: %s", strerror(errno));
-        return NULL;
-    }
-    vl_catalogue *c = run(path, f, NULL, 0, st);
-    fclose(f);
-    return c;
+    return run(path, 1, NULL, 0, st);
 }
 
 size_t vl_catalogue_overrides(const vl_catalogue *c, size_t r, char **out)

@@ -1,4 +1,4 @@
-/* text.c: the text check shared by the CSV readers (text.h). */
+/* text.c: the text check of the CSV reader (text.h). */
 #include "volev/text.h"
 
 /* Length of the well-formed UTF-8 sequence at s (n >= 1 bytes left), 0 if there is none
