@@ -43,6 +43,16 @@ typedef struct vl_series_column {
 
 extern const vl_series_column vl_series_columns[VL_NSERIES];
 
+/* Name of fixed series column id. */
+const char *vl_series_name(int id);
+
+/* The columns of events.csv: name, unit and meaning. */
+#define VL_NEVENT_COLUMNS 3
+typedef struct vl_event_column {
+    const char *name, *unit, *meaning;
+} vl_event_column;
+extern const vl_event_column vl_event_columns[VL_NEVENT_COLUMNS];
+
 /* The codes of a CODE column (e.g. "0=dry 1=frozen ..."), into buf; "" for others. */
 void vl_series_codes(int id, char *buf, size_t n);
 

@@ -11,14 +11,11 @@
 #include <string.h>
 
 #include "compare.h"
+#include "gnuplot.h"
 #include "volev/csv.h"
+#include "volev/schema.h"
 
 static const char *const summary_header[] = {"name", "value", "unit"};
-static const char *const events_header[] = {"time_yr", "event", "detail"};
-/* series.csv columns drawn by plots/comparison.gp (it finds them by name) */
-static const char *const figure_columns[] = {"time_yr", "surface_water_to", "p_co2_bar",
-                                             "p_o2_bar", "surface_temp_k"};
-#define NFIGCOLS (sizeof figure_columns / sizeof figure_columns[0])
 
 /* How each file is read: its name in messages; events.csv's last column takes the rest of
  * the line; series.csv is only checked, row by row, so its size is not limited. */
@@ -189,8 +186,11 @@ static int events_record(void *ctx, const vl_csv_record *rec, vl_status *st)
 {
     reading *g = ctx;
     if (rec->kind == VL_CSV_HEADER) {
+        const char *events_header[VL_NEVENT_COLUMNS];
+        for (int i = 0; i < VL_NEVENT_COLUMNS; i++)
+            events_header[i] = vl_event_columns[i].name;
         g->header_line = rec->line;
-        return expect_header(rec, events_header, 3, "event list", st);
+        return expect_header(rec, events_header, VL_NEVENT_COLUMNS, "event list", st);
     }
     return rec->kind == VL_CSV_ROW ? events_row(g->r, rec, st) : VL_OK;
 }
@@ -198,18 +198,20 @@ static int events_record(void *ctx, const vl_csv_record *rec, vl_status *st)
 /* series.csv's header: a run's (first column time_yr) with every column the figure draws. */
 static int series_header(const vl_csv_record *rec, vl_status *st)
 {
-    if (strcmp(rec->field[0], "time_yr") != 0)
+    const char *need[VL_NSERIES + 1];
+    size_t nneed = vl_gnuplot_column_names(vl_gnuplot_comparison_columns, need, VL_NSERIES + 1);
+    if (strcmp(rec->field[0], vl_series_name(VL_SER_TIME)) != 0)
         return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
                        "not a volev run series: the header starts with '%.40s', expected "
                        "'time_yr'", rec->field[0]);
-    for (size_t c = 0; c < NFIGCOLS; c++) {
+    for (size_t c = 0; c < nneed; c++) {
         size_t j = 0;
-        while (j < rec->n && strcmp(rec->field[j], figure_columns[c]) != 0)
+        while (j < rec->n && strcmp(rec->field[j], need[c]) != 0)
             j++;
         if (j == rec->n)
             return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
                            "column '%s' (needed for the figure) is missing from the header",
-                           figure_columns[c]);
+                           need[c]);
     }
     return VL_OK;
 }

@@ -1,5 +1,6 @@
 /* gnuplot.c: finding plots/ scripts and running gnuplot (gnuplot.h). */
 #include "gnuplot.h"
+#include "volev/schema.h"
 
 #include <errno.h>
 #include <libgen.h>
@@ -66,4 +67,22 @@ int vl_gnuplot_call(const char *script, const char *const args[], size_t n, vl_s
         return vl_fail(st, VL_ERR_TOOL, script, 0, "gnuplot failed (exit status %d)",
                        WIFEXITED(status) ? WEXITSTATUS(status) : -1);
     return VL_OK;
+}
+
+const int vl_gnuplot_history_columns[] = {
+    VL_SER_TIME,  VL_SER_REGIME, VL_SER_SURFACE_TEMP, VL_SER_SURFACE_WATER, VL_SER_P_H2O,
+    VL_SER_P_CO2, VL_SER_P_N2,   VL_SER_P_O2,         VL_SER_P_H2,          VL_SER_H_ESCAPE,
+    VL_SER_O_ESCAPE, VL_SER_F_XUV, VL_SER_LUMINOSITY, -1};
+const int vl_gnuplot_comparison_columns[] = {VL_SER_TIME, VL_SER_SURFACE_WATER, VL_SER_P_CO2,
+                                             VL_SER_P_O2, VL_SER_SURFACE_TEMP, -1};
+
+size_t vl_gnuplot_column_names(const int *ids, const char **names, size_t cap)
+{
+    size_t n = 0;
+    while (ids[n] >= 0 && n + 1 < cap) {
+        names[n] = vl_series_name(ids[n]);
+        n++;
+    }
+    names[n] = NULL;
+    return n;
 }

@@ -19,4 +19,12 @@ int vl_gnuplot_find_script(const char *name, char *out, size_t n);
  * whatever partial figure it no longer wants. */
 int vl_gnuplot_call(const char *script, const char *const args[], size_t n, vl_status *st);
 
+/* The series.csv columns (schema.h IDs, -1 terminated) each figure of a run draws:
+ * plots/history.gp and plots/comparison.gp look them up by name. */
+extern const int vl_gnuplot_history_columns[];
+extern const int vl_gnuplot_comparison_columns[];
+
+/* Their names into names[cap] (NULL-terminated); returns the count. */
+size_t vl_gnuplot_column_names(const int *ids, const char **names, size_t cap);
+
 #endif

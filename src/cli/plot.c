@@ -22,6 +22,7 @@
 
 #include "cli.h"
 #include "gnuplot.h"
+#include "volev/schema.h"
 #include "volev/climate.h"
 #include "volev/csv.h"
 #include "volev/scenario.h"
@@ -52,12 +53,7 @@ static const struct {
 };
 
 /* Columns each input needs (NULL-terminated). */
-static const char *const need_series[] = {
-    "time_yr", "regime", "surface_temp_k", "surface_water_to", "p_h2o_bar", "p_co2_bar",
-    "p_n2_bar", "p_o2_bar", "p_h2_bar", "h_escape_kg_s", "o_escape_kg_s", "f_xuv_w_m2",
-    "luminosity_lsun", NULL};
-static const char *const need_compare[] = {"time_yr", "surface_water_to", "p_co2_bar",
-                                           "p_o2_bar", "surface_temp_k", NULL};
+/* (a run's series.csv: gnuplot.h's lists, from the output schema) */
 static const char *const need_balance[] = {"surface_temp_k", "olr_w_m2", "absorbed_w_m2", NULL};
 static const char *const need_ens_series[] = {
     "time_yr", "water_to_p05", "water_to_p25", "water_to_p50", "water_to_p75", "water_to_p95",
@@ -208,6 +204,8 @@ static int plot_run(job_t *j, int kind, const char *dir, vl_status *st)
     char data[4200], events[4200];
     snprintf(data, sizeof data, "%s/%s", dir, kind == K_HISTORY ? "series.csv" : "balance.csv");
     snprintf(events, sizeof events, "%s/events.csv", dir);
+    const char *need_series[VL_NSERIES + 1];
+    vl_gnuplot_column_names(vl_gnuplot_history_columns, need_series, VL_NSERIES + 1);
     int rc = check_columns(data, kind == K_HISTORY ? need_series : need_balance, NULL, kind, st);
     if (rc)
         return rc;
@@ -251,7 +249,8 @@ static int plot_map(job_t *j, int kind, const char *dir, const axes_t *ax, vl_st
 static int plot_comparison(job_t *j, char **dirs, int n, vl_status *st)
 {
     static char series[3][4200], label[3][1024];
-    const char *args[8];
+    const char *args[8], *need_compare[VL_NSERIES + 1];
+    vl_gnuplot_column_names(vl_gnuplot_comparison_columns, need_compare, VL_NSERIES + 1);
     args[0] = "";
     args[1] = j->title;
     for (int r = 0; r < n; r++) {

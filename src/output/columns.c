@@ -29,14 +29,21 @@ static void series_reference(FILE *out)
                     vl_processes[k]->name, vl_processes[k]->columns[c].meaning);
 }
 
+const vl_event_column vl_event_columns[VL_NEVENT_COLUMNS] = {
+    {"time_yr", "yr", "stellar age of the event"},
+    {"event", "", "kind: start, end, a regime's onset or end (e.g. runaway_onset, thaw), "
+                  "reservoir_exhausted"},
+    {"detail", "", "the regimes before and after, or the reservoir (free text, may hold "
+                   "commas: it runs to the end of the line)"},
+};
+
 void vl_schema_print_reference(FILE *out)
 {
     series_reference(out);
-    fprintf(out, "\n## events.csv\n\n| column | unit | meaning |\n|---|---|---|\n"
-                 "| `time_yr` | yr | stellar age of the event |\n"
-                 "| `event` | | kind: start, end, a regime's onset or end "
-                 "(e.g. runaway_onset, thaw), reservoir_exhausted |\n"
-                 "| `detail` | | the regimes before and after, or the reservoir |\n");
+    fprintf(out, "\n## events.csv\n\n| column | unit | meaning |\n|---|---|---|\n");
+    for (int i = 0; i < VL_NEVENT_COLUMNS; i++)
+        fprintf(out, "| `%s` | %s | %s |\n", vl_event_columns[i].name, vl_event_columns[i].unit,
+                vl_event_columns[i].meaning);
     fprintf(out, "\n## summary.csv\n\nRows `name,value,unit`, in this order (`<...>`: one "
                  "row per reservoir, event kind seen, regime, flux column or element).\n\n"
                  "| name | unit | meaning |\n|---|---|---|\n");

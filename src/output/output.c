@@ -126,7 +126,9 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
     header(o, o->f[F_SERIES]);
     vl_series_write_header(o->f[F_SERIES], m);
     header(o, o->f[F_EVENTS]);
-    fprintf(o->f[F_EVENTS], "time_yr,event,detail\n");
+    for (int i = 0; i < VL_NEVENT_COLUMNS; i++)
+        fprintf(o->f[F_EVENTS], "%s%s", i ? "," : "", vl_event_columns[i].name);
+    fputc('\n', o->f[F_EVENTS]);
     return o;
 }
 

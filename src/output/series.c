@@ -53,6 +53,8 @@ const vl_series_column vl_series_columns[VL_NSERIES] = {
 #undef VL_SERIES
 };
 
+const char *vl_series_name(int id) { return vl_series_columns[id].name; }
+
 void vl_series_codes(int id, char *buf, size_t n)
 {
     static const char *const limits[] = {"diffusion", "jeans", "energy"};
