@@ -97,6 +97,7 @@ static double production(const params *p, const vl_planet *pl, const vl_env *env
     return f;
 }
 
+/* Moves F (mol O2/s, as kg/s) from atmospheric O2 into oxidised rock. */
 static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
     const vl_env *env = v->env;
