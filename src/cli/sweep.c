@@ -32,6 +32,7 @@
 #include "cli.h"
 #include "volev/integrate.h"
 #include "volev/output.h"
+#include "volev/params.h"
 #include "volev/sweep.h"
 
 #define JOURNAL "sweep.journal"
@@ -291,19 +292,23 @@ static int out_close(outfile *o, vl_status *st)
 
 static void header_lines(const sweep_ctx *c, FILE *f)
 {
+    char design[64];
+    vl_choice_name(VL_DESIGN_CHOICES, c->sw->design, design, sizeof design);
     fprintf(f, "# volev %s\n", vl_version());
     fprintf(f, "# sweep hash %s of %s: %s, %ld members\n", c->sw->hash, c->sw->path,
-            c->sw->catalogue_mode ? "catalogue" : vl_sweep_design_name[c->sw->design], c->sw->members);
+            c->sw->catalogue_mode ? "catalogue" : design, c->sw->members);
 }
 
 /* "# axis KEY grid SPACING FROM TO POINTS" or "# axis KEY DISTRIBUTION P1 P2": how each
  * axis varied (the figures read it: docs/figures.md). */
 static void axis_lines(const vl_sweep *sw, FILE *f)
 {
+    char name[64];
     for (size_t a = 0; a < sw->k; a++) {
         const vl_axis *x = &sw->axes[a];
         if (sw->design == VL_DESIGN_GRID)
-            fprintf(f, "# axis %s grid %s %.17g %.17g %ld\n", x->key, vl_sweep_spacing_name[x->spacing], x->from,
+            fprintf(f, "# axis %s grid %s %.17g %.17g %ld\n", x->key,
+                    vl_choice_name(VL_SPACING_CHOICES, x->spacing, name, sizeof name), x->from,
                     x->to, x->points);
         else if (x->dist == VL_DIST_NORMAL)
             fprintf(f, "# axis %s normal %.17g %.17g\n", x->key, x->mean, x->sd);
@@ -311,7 +316,8 @@ static void axis_lines(const vl_sweep *sw, FILE *f)
             fprintf(f, "# axis %s truncated_normal %.17g %.17g %.17g %.17g\n", x->key, x->mean,
                     x->sd, x->low, x->high);
         else
-            fprintf(f, "# axis %s %s %.17g %.17g\n", x->key, vl_sweep_dist_name[x->dist], x->low, x->high);
+            fprintf(f, "# axis %s %s %.17g %.17g\n", x->key,
+                    vl_choice_name(VL_DIST_CHOICES, x->dist, name, sizeof name), x->low, x->high);
     }
 }
 

@@ -57,6 +57,7 @@ void vl_scenario_free(vl_scenario *sc)
     free(sc->origin);
     free(sc->line);
     free(sc->file_value);
+    free(sc->sweep);
     free(sc);
 }
 

@@ -203,14 +203,17 @@ void vl_scenario_suggest(const char *name, int group, char *out, size_t n)
     did_you_mean(name, best, out, n);
 }
 
+/* The names share the prefix: they are compared without it (and the limit is that of
+ * the name without it), so a long prefix does not widen the search. */
 void vl_scenario_suggest_among(const char *name, const char *prefix, const char *const *names,
                                size_t count, char *out, size_t n)
 {
-    size_t limit = edit_limit(name), best_d = SIZE_MAX;
+    size_t plen = strlen(prefix), best_d = SIZE_MAX;
+    const char *leaf = strncmp(name, prefix, plen) == 0 ? name + plen : name;
+    size_t limit = edit_limit(leaf);
     char best[VL_SCENARIO_KEY_MAX] = "", key[VL_SCENARIO_KEY_MAX];
-    for (size_t k = 0; k < count; k++) {
-        snprintf(key, sizeof key, "%s%s", prefix, names[k]);
-        consider(name, key, limit, &best_d, best, sizeof best);
-    }
-    did_you_mean(name, best, out, n);
+    for (size_t k = 0; k < count; k++)
+        consider(leaf, names[k], limit, &best_d, best, sizeof best);
+    snprintf(key, sizeof key, "%s%s", best[0] ? prefix : "", best);
+    did_you_mean(name, key, out, n);
 }

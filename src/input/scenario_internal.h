@@ -74,7 +74,8 @@ int vl_scenario_is_group(const char *path);
 /* " (did you mean 'X'?)" for the closest known key (group != 0: group) within
  * max(2, len/4) edits; "" if there is none. */
 void vl_scenario_suggest(const char *name, int group, char *out, size_t n);
-/* The same among the n names "PREFIX.NAME" of a small table (the sweep group's). */
+/* The same among the count settings of one group (the sweep group's): name is
+ * "PREFIXNAME", the names are compared without the prefix. */
 void vl_scenario_suggest_among(const char *name, const char *prefix, const char *const *names,
                                size_t count, char *out, size_t n);
 /* Records where row i's value came from. */

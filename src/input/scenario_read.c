@@ -39,12 +39,16 @@ static int unknown_process(vl_loader *ld, const char *full, int line)
                                names);
 }
 
-/* A setting that is neither a known key nor a known group. */
+/* A setting that is neither a known key nor a known group (at the top level the sweep
+ * group is a candidate too). */
 static int unknown_setting(vl_loader *ld, const char *full, int group, int line)
 {
+    static const char *const sweep[] = {"sweep"};
     char hint[VL_SCENARIO_KEY_MAX + 32];
     vl_where w = {ld->path, line, NULL};
     vl_scenario_suggest(full, group, hint, sizeof hint);
+    if (!hint[0] && !strchr(full, '.'))
+        vl_scenario_suggest_among(full, "", sweep, 1, hint, sizeof hint);
     return vl_scenario_fail_at(ld->st, &w, "unknown %s '%s'%s", group ? "group" : "key", full,
                                hint);
 }
@@ -70,13 +74,8 @@ static int visit(vl_loader *ld, const config_setting_t *s, const char *full, con
 {
     int line = (int)config_setting_source_line(s);
     int grp = config_setting_is_group(s);
-    if (prefix[0] == '\0' && strcmp(full, "sweep") == 0) {
-        if (!grp)
-            return vl_scenario_fail_at(ld->st, &(vl_where){ld->path, line, NULL},
-                                       "'sweep' must be a group: sweep = { ... };");
-        ld->sc->sweep_line = line; /* the ensemble settings: src/ensembles/sweep.c reads them */
-        return VL_OK;
-    }
+    if (prefix[0] == '\0' && strcmp(full, "sweep") == 0)
+        return vl_sweep_spec_read(ld, s, line); /* the ensemble settings: sweep_spec.c */
     if (vl_scenario_is_group(full))
         return grp ? walk_group(ld, s, full) : value_for_group(ld, full, line);
     if (strcmp(prefix, "processes") == 0)
