@@ -7,7 +7,7 @@
  * can be rerun alone with `volev run SCENARIO --set KEY=VALUE ...`. Running a member
  * gives its outcomes, its outcome class and its water and O2 histories sampled on a
  * common age grid. Files, threads, ranks and resuming belong to the command line
- * (src/cli/sweep.c). */
+ * (src/cli/sweep*.c). */
 #ifndef VOLEV_SWEEP_H
 #define VOLEV_SWEEP_H
 
