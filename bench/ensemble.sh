@@ -11,7 +11,7 @@
 # Then least-squares lines through the medians, wall = a + b x members,
 # CPU = a' + b' x members and peak RSS = c + d x members: b, b' are the marginal cost of
 # a member, d its marginal memory, which the driver's own record of a finished member
-# (sizeof(record) in src/cli/sweep.c, read from the binary's debug information with gdb
+# (sizeof(vl_cli_record) in src/cli/sweep_internal.h, read from the binary's debug information with gdb
 # when available) can be set against.
 # Informational: exits 0 whatever the timings (2 for bad arguments, 1 if a sweep fails).
 set -u
@@ -42,7 +42,7 @@ trap 'exit 130' INT TERM
 
 record=-
 if command -v gdb >/dev/null 2>&1; then
-    record=$(gdb -batch -ex 'print sizeof(record)' "$bin" 2>/dev/null | awk '/^\$1 = / { print $3 }')
+    record=$(gdb -batch -ex 'print sizeof(vl_cli_record)' "$bin" 2>/dev/null | awk '/^\$1 = / { print $3 }')
     [ -n "$record" ] || record=-
 fi
 
@@ -117,6 +117,6 @@ awk -v rec="$record" '
         printf "CPU      = %.3f s + %.3f ms x members (largest residual %.2f s)\n", ac, 1000 * bc, dc
         printf "wall per member: %.2f-%.2f ms over the sizes (%.1f %% apart)\n", 1000 * qlo, 1000 * qhi, 100 * (qhi / qlo - 1)
         printf "peak RSS = %.2f MB + %.0f bytes x members\n", cc / 1024, 1024 * d
-        printf "driver record of a finished member (sizeof(record), src/cli/sweep.c): %s bytes\n", rec
+        printf "driver record of a finished member (sizeof(vl_cli_record), src/cli/sweep_internal.h): %s bytes\n", rec
     }' "$work/points"
 exit $status

@@ -13,6 +13,7 @@
 #include "fuzz/exercise.h"
 #include "suites.h"
 #include "volev/scenario.h"
+#include "volev/sweep_spec.h"
 #include "volev/star.h"
 #include "volev/units.h"
 
@@ -110,7 +111,7 @@ static void assert_same(const vl_scenario *a, const vl_scenario *b)
 START_TEST(scenario_parse_like_load)
 {
     static const char *const files[] = {"scenarios/earth.cfg", "scenarios/demo.cfg",
-                                        "tests/data/mars_today.cfg"};
+                                        "tests/data/mars_today.cfg", "tests/data/sweep/grid.cfg"};
     for (size_t k = 0; k < sizeof files / sizeof files[0]; k++) {
         char path[4096];
         long size;
@@ -126,6 +127,11 @@ START_TEST(scenario_parse_like_load)
         ck_assert_str_eq(parsed->path, loaded->path);
         ck_assert_str_eq(parsed->name, loaded->name);
         ck_assert_int_eq(parsed->sweep_line, loaded->sweep_line);
+        /* the sweep group read the same way (both zero-filled; no catalogue path here,
+         * which would resolve against different folders) */
+        ck_assert_int_eq(parsed->sweep == NULL, loaded->sweep == NULL);
+        if (parsed->sweep)
+            ck_assert(memcmp(parsed->sweep, loaded->sweep, sizeof *parsed->sweep) == 0);
         vl_scenario_free(parsed);
         vl_scenario_free(loaded);
         free(text);

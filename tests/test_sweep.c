@@ -451,7 +451,7 @@ START_TEST(bad_settings)
         {"", "no sweep group"},
         {"sweep = 3;", "must be a group"},
         {"sweep: { design = \"grid\"; };", "needs axes"},
-        {"sweep: { design = \"cube\"; };", "expected one of grid|random"},
+        {"sweep: { design = \"cube\"; };", "sweep.design = \"cube\" is not one of: grid, random"},
         {"sweep: { design = \"random\"; axes = ( { key = \"planet.orbit_au\"; distribution = "
          "\"uniform\"; low = 1.0; high = 2.0; } ); };",
          "needs members"},
@@ -474,7 +474,7 @@ START_TEST(bad_settings)
          "= \"planet.orbit_au\"; distribution = \"uniform\"; low = 1.0; high = 2.0; } ); };",
          "unknown outcome 'water'"},
         {"sweep: { catalogue = \"missing.csv\"; };", "missing.csv"},
-        {"sweep: { colour = 1; };", "unknown setting 'sweep.colour'"},
+        {"sweep: { colour = 1; };", "unknown key 'sweep.colour'"},
     };
     for (size_t k = 0; k < sizeof bad / sizeof bad[0]; k++) {
         int rc = sweep_text(bad[k].group);

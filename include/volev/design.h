@@ -12,8 +12,11 @@
 enum vl_spacing { VL_SPACING_LINEAR, VL_SPACING_LOG };
 enum vl_dist { VL_DIST_UNIFORM, VL_DIST_LOG_UNIFORM, VL_DIST_NORMAL, VL_DIST_TRUNC_NORMAL };
 enum vl_design_kind { VL_DESIGN_GRID, VL_DESIGN_RANDOM, VL_DESIGN_LHS, VL_DESIGN_SOBOL, VL_DESIGN_SALTELLI };
-/* Names of the design kinds, in enum order (for vl_choice_index). */
+/* Names of the design kinds, grid spacings and distributions as a scenario's sweep
+ * group writes them, in enum order ('|'-separated: vl_choice_index, vl_choice_name). */
 #define VL_DESIGN_CHOICES "grid|random|latin_hypercube|sobol|saltelli"
+#define VL_SPACING_CHOICES "linear|log"
+#define VL_DIST_CHOICES "uniform|log_uniform|normal|truncated_normal"
 
 /* Largest dimension of GSL's Sobol generator (gsl_qrng_sobol): a sobol design takes
  * at most this many axes, a saltelli design half as many. */

@@ -140,11 +140,13 @@ typedef struct vl_process_cfg {
     void *params;              /* owned; size = process->params_size */
 } vl_process_cfg;
 
+struct vl_sweep_spec;
+
 typedef struct vl_scenario {
     char path[1024];           /* scenario file as given */
     char name[256];            /* file name without folder and extension */
-    int sweep_line;            /* line of a top-level `sweep` group (read by sweep.c, not
-                                  by the loader; 0 if none) */
+    int sweep_line;            /* line of a top-level `sweep` group (0 if none) */
+    struct vl_sweep_spec *sweep; /* owned; that group as read (sweep_spec.h), NULL if none */
     vl_star_params star;
     vl_planet_params planet;
     vl_interior_params interior;
@@ -185,10 +187,9 @@ vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, si
 /* The same checks on scenario text held in memory (len bytes; a NUL or control byte
  * among them is an input error: binary data), without overrides: defaults, the text,
  * the cross-checks. label (NULL: "(text)") stands for the file name in messages and in
- * sc->path / sc->name; relative paths in the text (star.track_file) resolve against the
- * current folder. On error returns NULL and fills st. A top-level `sweep` group is
- * accepted and its line kept, but src/ensembles/sweep.c reads it from sc->path, which here names
- * no file. */
+ * sc->path / sc->name; relative paths in the text (star.track_file, sweep.catalogue)
+ * resolve against the current folder. On error returns NULL and fills st. A top-level
+ * `sweep` group is read into sc->sweep as from a file. */
 vl_scenario *vl_scenario_parse(const char *text, size_t len, const char *label, vl_status *st);
 
 /* Apply one "PATH=VALUE" override to sc. */

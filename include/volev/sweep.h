@@ -1,13 +1,13 @@
 /* sweep.h: ensembles of one base scenario (docs/ensembles.md).
  *
- * The scenario's top-level `sweep` group (ignored by the scenario loader, read here)
- * describes the members: a design over axes (grid, random, Latin hypercube, Sobol,
+ * The scenario's top-level `sweep` group (read by the scenario loader into a
+ * vl_sweep_spec, sweep_spec.h; its meaning checked here) describes the members: a design over axes (grid, random, Latin hypercube, Sobol,
  * Saltelli) or a catalogue of candidate planets, each optionally at several initial
  * water amounts. Member i is the base scenario plus "KEY=VALUE" overrides, so any member
  * can be rerun alone with `volev run SCENARIO --set KEY=VALUE ...`. Running a member
  * gives its outcomes, its outcome class and its water and O2 histories sampled on a
  * common age grid. Files, threads, ranks and resuming belong to the command line
- * (src/cli/sweep.c). */
+ * (src/cli/sweep*.c). */
 #ifndef VOLEV_SWEEP_H
 #define VOLEV_SWEEP_H
 
@@ -52,12 +52,6 @@ enum vl_outcome_class {
 };
 extern const char *const vl_class_name[VL_NCLASS];
 
-/* Names of the designs (enum vl_design_kind), grid spacings (enum vl_spacing) and
- * distributions (enum vl_dist), as written in the sweep group. */
-extern const char *const vl_sweep_design_name[];
-extern const char *const vl_sweep_spacing_name[];
-extern const char *const vl_sweep_dist_name[];
-
 typedef struct vl_sweep {
     char path[1024];         /* base scenario, as given */
     char sweep_path[1024];   /* file holding the sweep group (the base scenario) */
@@ -84,8 +78,11 @@ typedef struct vl_sweep {
     char hash[17];           /* FNV-1a of version, resolved base, sweep settings, catalogue */
 } vl_sweep;
 
-/* Reads the sweep group of the scenario at path (which must load on its own), checks
- * every setting (messages with file and line), generates the design. NULL on error. */
+/* Loads the scenario at path with its sweep group (vl_scenario_load reads the group),
+ * checks what the settings mean (messages with file and line), generates the design or
+ * reads the catalogue, and tries every axis key and candidate on the base scenario.
+ * The names of designs, spacings and distributions are VL_DESIGN_CHOICES,
+ * VL_SPACING_CHOICES and VL_DIST_CHOICES (design.h). NULL on error. */
 vl_sweep *vl_sweep_load(const char *path, vl_status *st);
 void vl_sweep_free(vl_sweep *sw); /* accepts NULL */
 

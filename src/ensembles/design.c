@@ -103,58 +103,71 @@ static int sampled(int design)
            || design == VL_DESIGN_SALTELLI;
 }
 
+/* A grid axis: linear or log spacing, finite ends, at least one point, ends > 0 for log. */
+static int check_grid(const vl_axis *a, const char *f, vl_status *st)
+{
+    if (a->spacing != VL_SPACING_LINEAR && a->spacing != VL_SPACING_LOG)
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: expected a spacing of linear or log", a->key);
+    if (!isfinite(a->from) || !isfinite(a->to))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: expected finite from and to (got %g, %g)", a->key, a->from,
+                       a->to);
+    if (a->points < 1)
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: expected at least 1 grid point (got %ld)", a->key, a->points);
+    if (a->spacing == VL_SPACING_LOG && !(a->from > 0.0 && a->to > 0.0))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: log spacing needs from > 0 and to > 0 (got %g, %g)", a->key,
+                       a->from, a->to);
+    return VL_OK;
+}
+
+/* A uniform or log-uniform axis: finite low < high, and low > 0 for log-uniform. */
+static int check_uniform(const vl_axis *a, const char *f, vl_status *st)
+{
+    const char *name = a->dist == VL_DIST_UNIFORM ? "uniform" : "log-uniform";
+    if (!isfinite(a->low) || !isfinite(a->high) || !(a->low < a->high))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: %s distribution needs finite low < high (got %g, %g)", a->key,
+                       name, a->low, a->high);
+    if (a->dist == VL_DIST_LOG_UNIFORM && !(a->low > 0.0))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: log-uniform distribution needs low > 0 (got %g)", a->key,
+                       a->low);
+    return VL_OK;
+}
+
+/* A normal or truncated-normal axis: finite mean, sd > 0; truncated: finite low < high. */
+static int check_normal(const vl_axis *a, const char *f, vl_status *st)
+{
+    const char *name = a->dist == VL_DIST_NORMAL ? "normal" : "truncated normal";
+    if (!isfinite(a->mean) || !isfinite(a->sd) || !(a->sd > 0.0))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: %s distribution needs a finite mean and sd > 0 (got %g, %g)",
+                       a->key, name, a->mean, a->sd);
+    if (a->dist == VL_DIST_TRUNC_NORMAL
+        && (!isfinite(a->low) || !isfinite(a->high) || !(a->low < a->high)))
+        return vl_fail(st, VL_ERR_INPUT, f, a->line,
+                       "%s: truncated normal distribution needs finite low < high "
+                       "(got %g, %g)",
+                       a->key, a->low, a->high);
+    return VL_OK;
+}
+
 int vl_axis_check(const vl_axis *a, int design, const char *file, vl_status *st)
 {
     const char *f = file ? file : "";
-    if (design == VL_DESIGN_GRID) {
-        if (a->spacing != VL_SPACING_LINEAR && a->spacing != VL_SPACING_LOG)
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: expected a spacing of linear or log", a->key);
-        if (!isfinite(a->from) || !isfinite(a->to))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: expected finite from and to (got %g, %g)", a->key, a->from,
-                           a->to);
-        if (a->points < 1)
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: expected at least 1 grid point (got %ld)", a->key, a->points);
-        if (a->spacing == VL_SPACING_LOG && !(a->from > 0.0 && a->to > 0.0))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: log spacing needs from > 0 and to > 0 (got %g, %g)", a->key,
-                           a->from, a->to);
-        return VL_OK;
-    }
+    if (design == VL_DESIGN_GRID)
+        return check_grid(a, f, st);
     if (!sampled(design))
         return vl_fail(st, VL_ERR_INTERNAL, f, a->line, "%s: unknown design kind %d", a->key,
                        design);
     switch (a->dist) {
     case VL_DIST_UNIFORM:
-    case VL_DIST_LOG_UNIFORM: {
-        const char *name = a->dist == VL_DIST_UNIFORM ? "uniform" : "log-uniform";
-        if (!isfinite(a->low) || !isfinite(a->high) || !(a->low < a->high))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: %s distribution needs finite low < high (got %g, %g)", a->key,
-                           name, a->low, a->high);
-        if (a->dist == VL_DIST_LOG_UNIFORM && !(a->low > 0.0))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: log-uniform distribution needs low > 0 (got %g)", a->key,
-                           a->low);
-        return VL_OK;
-    }
+    case VL_DIST_LOG_UNIFORM: return check_uniform(a, f, st);
     case VL_DIST_NORMAL:
-    case VL_DIST_TRUNC_NORMAL: {
-        const char *name = a->dist == VL_DIST_NORMAL ? "normal" : "truncated normal";
-        if (!isfinite(a->mean) || !isfinite(a->sd) || !(a->sd > 0.0))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: %s distribution needs a finite mean and sd > 0 (got %g, %g)",
-                           a->key, name, a->mean, a->sd);
-        if (a->dist == VL_DIST_TRUNC_NORMAL
-            && (!isfinite(a->low) || !isfinite(a->high) || !(a->low < a->high)))
-            return vl_fail(st, VL_ERR_INPUT, f, a->line,
-                           "%s: truncated normal distribution needs finite low < high "
-                           "(got %g, %g)",
-                           a->key, a->low, a->high);
-        return VL_OK;
-    }
+    case VL_DIST_TRUNC_NORMAL: return check_normal(a, f, st);
     default:
         return vl_fail(st, VL_ERR_INPUT, f, a->line,
                        "%s: expected a distribution of uniform, log-uniform, normal or "

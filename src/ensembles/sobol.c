@@ -89,11 +89,10 @@ static void percentile_interval(double *col, long nb, double conf, double est, d
     *hi = vl_quantile_sorted(col, nf, 0.5 * (1.0 + conf));
 }
 
-int vl_sobol_indices(const double *y, long n, size_t k, long bootstrap, double confidence,
-                     unsigned long seed, vl_sobol_index *out, long *n_used, vl_status *st)
+/* The arguments' checks: an axis and a sample at least, sizes that fit in memory
+ * arithmetic, bootstrap >= 0, 0 < confidence < 1. */
+static int check_args(long n, size_t k, long bootstrap, double confidence, vl_status *st)
 {
-    if (n_used)
-        *n_used = 0;
     if (k == 0 || n < 1)
         return vl_fail(st, VL_ERR_INPUT, "", 0,
                        "Sobol indices need at least one axis and one sample (k = %zu, n = %ld)",
@@ -109,21 +108,45 @@ int vl_sobol_indices(const double *y, long n, size_t k, long bootstrap, double c
     if ((size_t)bootstrap > SIZE_MAX / sizeof(double) / (2 * k))
         return vl_fail(st, VL_ERR_INPUT, "", 0,
                        "Sobol indices: %ld bootstrap resamples is too many", bootstrap);
+    return VL_OK;
+}
 
-    size_t w = k + 2;
-    long *keep = malloc((size_t)n * sizeof *keep);
-    long *pick = malloc((size_t)n * sizeof *pick);
-    double *s1 = malloc(k * sizeof *s1), *stt = malloc(k * sizeof *stt);
-    double *bs = bootstrap > 0 ? malloc((size_t)bootstrap * 2 * k * sizeof *bs) : NULL;
-    gsl_rng *r = bootstrap > 0 ? gsl_rng_alloc(gsl_rng_mt19937) : NULL;
-    int rc = VL_OK;
-    if (!keep || !pick || !s1 || !stt || (bootstrap > 0 && (!bs || !r))) {
-        rc = vl_fail(st, VL_ERR_INTERNAL, "", 0, "out of memory (Sobol indices)");
-        goto done;
-    }
+/* Working memory of one computation. */
+typedef struct {
+    long *keep, *pick;   /* kept blocks; a resample of them */
+    double *s1, *st;     /* k indices of one estimate */
+    double *bs;          /* bootstrap estimates: 2k columns of `bootstrap` values */
+    gsl_rng *r;
+} workspace;
 
-    /* Blocks with any non-finite output are dropped whole: the estimators pair the
-     * values of a block. */
+/* Allocates ws for n blocks, k axes and `bootstrap` resamples; 0 on success. */
+static int ws_alloc(workspace *ws, long n, size_t k, long bootstrap)
+{
+    ws->keep = malloc((size_t)n * sizeof *ws->keep);
+    ws->pick = malloc((size_t)n * sizeof *ws->pick);
+    ws->s1 = malloc(k * sizeof *ws->s1);
+    ws->st = malloc(k * sizeof *ws->st);
+    ws->bs = bootstrap > 0 ? malloc((size_t)bootstrap * 2 * k * sizeof *ws->bs) : NULL;
+    ws->r = bootstrap > 0 ? gsl_rng_alloc(gsl_rng_mt19937) : NULL;
+    return !ws->keep || !ws->pick || !ws->s1 || !ws->st ||
+           (bootstrap > 0 && (!ws->bs || !ws->r));
+}
+
+/* Frees what ws_alloc allocated (also after a partial failure). */
+static void ws_free(workspace *ws)
+{
+    free(ws->keep);
+    free(ws->pick);
+    free(ws->s1);
+    free(ws->st);
+    free(ws->bs);
+    gsl_rng_free(ws->r);
+}
+
+/* The blocks (width w) of y whose outputs are all finite, into keep; their count. Blocks
+ * with any non-finite output are dropped whole: the estimators pair a block's values. */
+static long finite_blocks(const double *y, long n, size_t w, long *keep)
+{
     long m = 0;
     for (long j = 0; j < n; j++) {
         const double *blk = y + (size_t)j * w;
@@ -133,55 +156,75 @@ int vl_sobol_indices(const double *y, long n, size_t k, long bootstrap, double c
         if (c == w)
             keep[m++] = j;
     }
-    if (n_used)
-        *n_used = m;
-    if (m < 2) {
-        rc = vl_fail(st, VL_ERR_NUMERIC, "", 0,
-                     "Sobol indices: %ld of %ld samples have finite outputs, need at least 2",
-                     m, n);
-        goto done;
-    }
-    double v = estimate(y, k, keep, m, s1, stt);
-    if (!(v > 0.0) || !isfinite(v)) {
-        rc = vl_fail(st, VL_ERR_NUMERIC, "", 0,
-                     v > 0.0 ? "Sobol indices: the output variance is not finite"
-                             : "Sobol indices: the output does not vary (variance 0)");
-        goto done;
-    }
-    for (size_t i = 0; i < k; i++) {
-        out[i].s1 = out[i].s1_lo = out[i].s1_hi = s1[i];
-        out[i].st = out[i].st_lo = out[i].st_hi = stt[i];
-    }
-    if (bootstrap == 0)
-        goto done;
+    return m;
+}
 
-    /* Bootstrap: resample the kept blocks with replacement and re-estimate. bs holds
-     * 2k columns of `bootstrap` values each (S1 of axis i in column i, ST in column
-     * k + i; resample b of column c at c * bootstrap + b), sorted per column. */
-    gsl_rng_set(r, seed);
+/* Bootstrap: resample the m kept blocks with replacement and re-estimate. ws->bs holds
+ * 2k columns of `bootstrap` values each (S1 of axis i in column i, ST in column k + i;
+ * resample b of column c at c * bootstrap + b), sorted per column; the percentile
+ * intervals go into out. */
+static void bootstrap_intervals(const double *y, size_t k, long m, long bootstrap,
+                                double confidence, unsigned long seed, workspace *ws,
+                                vl_sobol_index *out)
+{
+    gsl_rng_set(ws->r, seed);
     for (long b = 0; b < bootstrap; b++) {
         for (long j = 0; j < m; j++)
-            pick[j] = keep[gsl_rng_uniform_int(r, (unsigned long)m)];
-        double vb = estimate(y, k, pick, m, s1, stt);
+            ws->pick[j] = ws->keep[gsl_rng_uniform_int(ws->r, (unsigned long)m)];
+        double vb = estimate(y, k, ws->pick, m, ws->s1, ws->st);
         for (size_t i = 0; i < k; i++) {
             /* a resample whose f(A), f(B) are all equal has no defined index */
-            bs[i * (size_t)bootstrap + (size_t)b] = vb > 0.0 ? s1[i] : NAN;
-            bs[(k + i) * (size_t)bootstrap + (size_t)b] = vb > 0.0 ? stt[i] : NAN;
+            ws->bs[i * (size_t)bootstrap + (size_t)b] = vb > 0.0 ? ws->s1[i] : NAN;
+            ws->bs[(k + i) * (size_t)bootstrap + (size_t)b] = vb > 0.0 ? ws->st[i] : NAN;
         }
     }
     for (size_t i = 0; i < k; i++) {
-        percentile_interval(bs + i * (size_t)bootstrap, bootstrap, confidence, out[i].s1,
+        percentile_interval(ws->bs + i * (size_t)bootstrap, bootstrap, confidence, out[i].s1,
                             &out[i].s1_lo, &out[i].s1_hi);
-        percentile_interval(bs + (k + i) * (size_t)bootstrap, bootstrap, confidence,
+        percentile_interval(ws->bs + (k + i) * (size_t)bootstrap, bootstrap, confidence,
                             out[i].st, &out[i].st_lo, &out[i].st_hi);
     }
+}
 
-done:
-    free(keep);
-    free(pick);
-    free(s1);
-    free(stt);
-    free(bs);
-    gsl_rng_free(r);
+/* The estimates over the finite blocks, then their bootstrap intervals. */
+static int indices(const double *y, long n, size_t k, long bootstrap, double confidence,
+                   unsigned long seed, workspace *ws, vl_sobol_index *out, long *n_used,
+                   vl_status *st)
+{
+    long m = finite_blocks(y, n, k + 2, ws->keep);
+    if (n_used)
+        *n_used = m;
+    if (m < 2)
+        return vl_fail(st, VL_ERR_NUMERIC, "", 0,
+                       "Sobol indices: %ld of %ld samples have finite outputs, need at least 2",
+                       m, n);
+    double v = estimate(y, k, ws->keep, m, ws->s1, ws->st);
+    if (!(v > 0.0) || !isfinite(v))
+        return vl_fail(st, VL_ERR_NUMERIC, "", 0,
+                       v > 0.0 ? "Sobol indices: the output variance is not finite"
+                               : "Sobol indices: the output does not vary (variance 0)");
+    for (size_t i = 0; i < k; i++) {
+        out[i].s1 = out[i].s1_lo = out[i].s1_hi = ws->s1[i];
+        out[i].st = out[i].st_lo = out[i].st_hi = ws->st[i];
+    }
+    if (bootstrap > 0)
+        bootstrap_intervals(y, k, m, bootstrap, confidence, seed, ws, out);
+    return VL_OK;
+}
+
+int vl_sobol_indices(const double *y, long n, size_t k, long bootstrap, double confidence,
+                     unsigned long seed, vl_sobol_index *out, long *n_used, vl_status *st)
+{
+    if (n_used)
+        *n_used = 0;
+    int rc = check_args(n, k, bootstrap, confidence, st);
+    if (rc)
+        return rc;
+    workspace ws;
+    if (ws_alloc(&ws, n, k, bootstrap))
+        rc = vl_fail(st, VL_ERR_INTERNAL, "", 0, "out of memory (Sobol indices)");
+    else
+        rc = indices(y, n, k, bootstrap, confidence, seed, &ws, out, n_used, st);
+    ws_free(&ws);
     return rc;
 }

@@ -1,0 +1,150 @@
+/* scenario_internal.h: what the files of the scenario loader share (not installed;
+ * src/input/ only). The loader is one module in several files:
+ *   scenario.c           life cycle: defaults, load, parse, free
+ *   scenario_index.c     the global parameter index by full key, suggestions, messages
+ *   scenario_value.c     typed values: one libconfig setting read and stored with its
+ *                        type, bounds and choices (every input of a scenario file)
+ *   scenario_prescan.c   the lexical pre-scan of the text before libconfig parses it
+ *   scenario_read.c      the file walk: text -> libconfig -> settings -> rows
+ *   sweep_spec.c         the top-level `sweep` group -> vl_sweep_spec
+ *   scenario_override.c  --set KEY=VALUE
+ *   scenario_check.c     table sanity and the cross-checks (required, needs, consistency)
+ *   scenario_write.c     the resolved-scenario writer and the `validate` listing */
+#ifndef VOLEV_SCENARIO_INTERNAL_H
+#define VOLEV_SCENARIO_INTERNAL_H
+
+#include <libconfig.h>
+#include <stddef.h>
+
+#include "volev/params.h"
+#include "volev/scenario.h"
+#include "volev/status.h"
+
+#define VL_SCENARIO_KEY_MAX 512
+
+/* Where a value came from, for messages: a line of the scenario file, or a --set. */
+typedef struct vl_where {
+    const char *file;    /* scenario file; NULL for an override */
+    int line;            /* 0 if unknown */
+    const char *set_key; /* override: the key as typed (messages begin "--set KEY: ") */
+} vl_where;
+
+/* Where one typed value goes: its table row, its storage (double, long, int or
+ * char[VL_PATH_MAX] after the row's type), its full key for messages and, for a REAL
+ * row of the scenario, where the value in file units is kept (NULL otherwise). */
+typedef struct vl_slot {
+    const vl_param *p;
+    void *at;
+    const char *key;
+    double *file_value;
+} vl_slot;
+
+/* What the file walk needs besides the scenario. */
+typedef struct vl_loader {
+    vl_scenario *sc;
+    vl_status *st;
+    const char *path;       /* the scenario file, as given (or the label of a text) */
+    char dir[VL_PATH_MAX];  /* its folder, absolute: relative paths resolve against it */
+} vl_loader;
+
+/* ---- scenario_index.c */
+
+/* Fills st with an input error located at w; returns VL_ERR_INPUT. */
+int vl_scenario_fail_at(vl_status *st, const vl_where *w, const char *fmt, ...)
+    __attribute__((format(printf, 3, 4)));
+/* " " before a row's unit, or "" for a dimensionless row; the unit or "". */
+const char *vl_scenario_unit_sep(const vl_param *p);
+const char *vl_scenario_unit(const vl_param *p);
+/* The '|' list as "a, b or c" (joiner "or") or "a, b, c" (joiner ","). */
+void vl_scenario_list_text(const char *list, const char *joiner, char *buf, size_t n);
+/* The full key of parameter i ("" out of range); the table's largest parameter count. */
+const char *vl_scenario_key(size_t i);
+#define VL_SCENARIO_CACHE_MAX 2048
+#define VL_SCENARIO_CACHE_KEY 128
+/* Row i, its full key copied into key. */
+const vl_param *vl_scenario_param_key(size_t i, char *key, size_t n);
+/* Address of row i's stored value in sc; *pp receives the row. */
+void *vl_scenario_slot(const vl_scenario *sc, size_t i, const vl_param **pp);
+/* The slot of row i of sc (for the typed readers of scenario_value.c). */
+vl_slot vl_scenario_row_slot(vl_scenario *sc, size_t i);
+/* Global index of the row whose full key is key, or -1. */
+long vl_scenario_find_key(const char *key);
+/* 1 if path is a group: the full key of some row continues it with a dot. */
+int vl_scenario_is_group(const char *path);
+/* " (did you mean 'X'?)" for the closest known key (group != 0: group) within
+ * max(2, len/4) edits; "" if there is none. */
+void vl_scenario_suggest(const char *name, int group, char *out, size_t n);
+/* The same among the count settings of one group (the sweep group's): name is
+ * "PREFIXNAME", the names are compared without the prefix. */
+void vl_scenario_suggest_among(const char *name, const char *prefix, const char *const *names,
+                               size_t count, char *out, size_t n);
+/* Records where row i's value came from. */
+void vl_scenario_mark(vl_scenario *sc, size_t i, int origin, int line);
+
+/* ---- scenario_value.c */
+
+/* Stores a value (given in file units for a real) after its checks: finite and within
+ * bounds, a whole number within bounds, one of the choices, a non-empty path made
+ * absolute against dir. Messages name t->key and the place w. */
+int vl_scenario_assign_real(const vl_slot *t, double v, const vl_where *w, vl_status *st);
+int vl_scenario_assign_int(const vl_slot *t, long v, const vl_where *w, vl_status *st);
+int vl_scenario_assign_choice(const vl_slot *t, const char *name, const vl_where *w,
+                              vl_status *st);
+int vl_scenario_assign_path(const vl_slot *t, const char *text, const char *dir,
+                            const vl_where *w, vl_status *st);
+/* Stores the row's default. */
+void vl_scenario_store_default(const vl_slot *t);
+/* Reads one libconfig setting (a single value of the row's type) into t. */
+int vl_scenario_read_value(const config_setting_t *s, const vl_slot *t, const char *dir,
+                           const vl_where *w, vl_status *st);
+/* Reads a quoted text of 1 to n - 1 bytes into buf; what names what it must be
+ * ("a scenario key"). */
+int vl_scenario_read_text(const config_setting_t *s, const char *key, const char *what,
+                          char *buf, size_t n, const vl_where *w, vl_status *st);
+/* How a libconfig setting type reads in a message ("an integer", "a group" ...). */
+const char *vl_scenario_type_word(int type);
+/* Joins dir and a relative path (dropping leading "./"); absolute paths are kept.
+ * Returns nonzero if the result does not fit in n bytes. */
+int vl_scenario_join_path(const char *dir, const char *rel, char *out, size_t n);
+/* The current working directory into buf, or an I/O error. */
+int vl_scenario_current_dir(char *buf, size_t n, vl_status *st);
+
+/* ---- scenario_prescan.c */
+
+/* Refuses len bytes of text holding a NUL or control byte (binary data). */
+int vl_scenario_check_bytes(const char *text, size_t len, const char *path, vl_status *st);
+/* Lexical pass over text (NUL-terminated, modified in place) for what libconfig would
+ * accept but mishandle: oversized integers, directives, and a string literal where the
+ * grammar allows none (defused). */
+int vl_scenario_prescan(char *text, const char *path, vl_status *st);
+
+/* ---- scenario_read.c */
+
+/* Parses len bytes of scenario text and walks every setting in it; relative paths
+ * resolve against dir; messages name sc->path. */
+int vl_scenario_read_memory(vl_scenario *sc, const char *text, size_t len, const char *dir,
+                            vl_status *st);
+/* The file at sc->path, relative paths in it resolved against its folder. */
+int vl_scenario_read_file(vl_scenario *sc, vl_status *st);
+
+/* ---- sweep_spec.c */
+
+/* Reads the top-level setting `sweep` (line: its line) into a new sc->sweep. */
+int vl_sweep_spec_read(vl_loader *ld, const config_setting_t *g, int line);
+
+/* ---- scenario_check.c */
+
+/* Checks every parameter table once per process (rows well formed, keys unique);
+ * a failure is a bug: VL_ERR_INTERNAL. */
+int vl_scenario_check_tables(vl_status *st);
+/* Every check that needs the complete scenario: required keys, needs clauses,
+ * consistency, the process hooks. */
+int vl_scenario_cross_check(const vl_scenario *sc, vl_status *st);
+/* The state of a CHOICE or BOOL row as written in a file. */
+void vl_scenario_state_text(const vl_scenario *sc, size_t i, char *buf, size_t n);
+/* 1 if row i has no needs clause or its condition holds in sc; fills the text of the
+ * controlling key, its state and the needed values for messages. */
+int vl_scenario_needs_hold(const vl_scenario *sc, size_t i, char *other, size_t on,
+                           char *state, size_t sn, const char **values);
+
+#endif
