@@ -156,3 +156,24 @@ void vl_nonthermal_apply(const double q[NEL], const int map[NEL], int keep_o, do
     }
 }
 
+
+void vl_nonthermal_demand(const vl_nonthermal_params *p, const vl_view *v, double k,
+                          double share, double q[NEL])
+{
+    for (int el = 0; el < NEL; el++)
+        q[el] = p->ref[el] * k;
+    vl_nonthermal_photon_guard(p, v->planet, v->env, share, q);
+}
+
+double vl_nonthermal_h_demand(const vl_nonthermal_params *p, const double q[NEL])
+{
+    return p->h_capped ? q[EL_H] : 0.0;
+}
+
+void vl_nonthermal_apply_capped(const vl_nonthermal_params *p, const vl_view *v, double q[NEL],
+                                const int map[NEL], vl_flux *fx)
+{
+    if (p->h_capped)
+        q[EL_H] *= v->env->escape.nt_h_factor;
+    vl_nonthermal_apply(q, map, 0, p->f_d, fx);
+}

@@ -102,6 +102,18 @@ double vl_nonthermal_polar_factor(const vl_nonthermal_params *p, const vl_planet
  * the disc (a smooth guard). */
 void vl_nonthermal_photon_guard(const vl_nonthermal_params *p, const vl_planet *pl,
                                 const vl_env *env, double share, double q[NEL]);
+/* q = the reference rates p->ref times k, kept within the photon guard over share of
+ * the disc: the demand of a channel with driver factor k. */
+void vl_nonthermal_demand(const vl_nonthermal_params *p, const vl_view *v, double k,
+                          double share, double q[NEL]);
+/* The hydrogen of demand q that counts against the diffusion room (0 when p does not
+ * hold its hydrogen to it). */
+double vl_nonthermal_h_demand(const vl_nonthermal_params *p, const double q[NEL]);
+/* Apply demand q, its hydrogen scaled by the escape stage's room factor when p holds it
+ * to the room, through the declared fluxes (vl_nonthermal_apply, p's fractionation). */
+void vl_nonthermal_apply_capped(const vl_nonthermal_params *p, const vl_view *v, double q[NEL],
+                                const int map[NEL], vl_flux *fx);
+
 /* Remove q particles/s of each element through the declared fluxes; map gives each
  * element's column (-1: none); keep_o: carbon leaves as a hot atom whose O stays. */
 void vl_nonthermal_apply(const double q[NEL], const int map[NEL], int keep_o, double f_d,

@@ -45,9 +45,7 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
     double q[NEL];
     double k = vl_nonthermal_drive(p, v->planet, v->env) *
                vl_nonthermal_dr_gravity(p, v->planet, v->env);
-    for (int el = 0; el < NEL; el++)
-        q[el] = p->ref[el] * k;
-    vl_nonthermal_photon_guard(p, v->planet, v->env, 1.0, q);
+    vl_nonthermal_demand(p, v, k, 1.0, q);
     vl_nonthermal_apply(q, column_of, 1, 1.0, fx);
 }
 

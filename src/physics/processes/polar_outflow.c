@@ -47,29 +47,21 @@ static void demand(const vl_nonthermal_params *p, const vl_view *v, double q[NEL
 {
     double k = vl_nonthermal_drive(p, v->planet, v->env) *
                vl_nonthermal_polar_factor(p, v->planet, v->env);
-    for (int el = 0; el < NEL; el++)
-        q[el] = p->ref[el] * k;
-    vl_nonthermal_photon_guard(p, v->planet, v->env, v->env->upper.cap_fraction, q);
+    vl_nonthermal_demand(p, v, k, v->env->upper.cap_fraction, q);
 }
 
 static double h_demand(const void *pv, const vl_view *v)
 {
-    const vl_nonthermal_params *p = pv;
-    if (!p->h_capped)
-        return 0.0;
     double q[NEL];
-    demand(p, v, q);
-    return q[EL_H];
+    demand(pv, v, q);
+    return vl_nonthermal_h_demand(pv, q);
 }
 
 static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
-    const vl_nonthermal_params *p = pv;
     double q[NEL];
-    demand(p, v, q);
-    if (p->h_capped)
-        q[EL_H] *= v->env->escape.nt_h_factor;
-    vl_nonthermal_apply(q, column_of, 0, p->f_d, fx);
+    demand(pv, v, q);
+    vl_nonthermal_apply_capped(pv, v, q, column_of, fx);
 }
 
 /* The reference magnetopause must stand above the induced obstacle, or the polar
