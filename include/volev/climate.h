@@ -44,6 +44,8 @@ typedef struct vl_curve {
     double absorbed[VL_CURVE_MAX];  /* W/m^2 */
     double albedo[VL_CURVE_MAX];
     double f_strat[VL_CURVE_MAX];
+    double s_runaway;               /* the largest S_eff with a warm equilibrium */
+    double s_moist;                 /* S_eff at which it reaches the moist greenhouse (inf: never) */
 } vl_curve;
 size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
                         vl_curve *out);

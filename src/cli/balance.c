@@ -59,7 +59,7 @@ static int write_curves(const char *path, const vl_model *m, const vl_env *env, 
             env->mass_kg[VL_GAS_O2] * m->planet.pa_per_kg / VL_BAR,
             env->mass_kg[VL_GAS_H2] * m->planet.pa_per_kg / VL_BAR, wet ? "over an ocean" : "no water");
     fprintf(f, "# runaway threshold s_eff %.6g; moist-greenhouse threshold s_eff %.6g\n",
-            env->s_runaway, env->s_moist);
+            cv->s_runaway, cv->s_moist);
     fprintf(f, "# stable equilibria (K):");
     int any = 0;
     for (size_t j = 0; j + 1 < n; j++) {
