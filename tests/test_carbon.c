@@ -1,7 +1,7 @@
 /* test_carbon.c: the carbon cycle (docs/cycles.md): outgassing with the heat flow
  * and the tectonic mode, the continental and seafloor weathering laws, carbonate
  * recycling, the ocean-atmosphere partition of the surface CO2, and present Earth's
- * relaxation after a perturbation, against science.md section 5. */
+ * relaxation after a perturbation; each check names its source. */
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -32,7 +32,8 @@ static void only(vl_scenario *sc, const char *const *names)
     }
 }
 
-/* Present Earth: one ocean, atmospheric N2 3.887e18 kg (science.md section 6 [C]) and
+/* Present Earth: one ocean, atmospheric N2 3.887e18 kg ([C]: 5.148e18 kg of air, total
+ * atmospheric mass from memory, x 0.7808 N2 by volume, NSSDC, x 28.013/28.965) and
  * co2_mol of surface CO2. */
 static void earth_state(double co2_mol, double y[VL_NRES])
 {
@@ -240,7 +241,9 @@ START_TEST(recycling_split)
     double y[VL_NRES];
     vl_env env;
     earth_state(3.3e18, y);
-    y[VL_R_CARBONATE] = 3.29e20; /* ~63 bar CO2-equivalent on Earth (science.md section 5 [C]) */
+    /* ~63 bar CO2-equivalent on Earth [C]: ~7.5e21 mol of crustal carbonate (from memory)
+     * x 0.044009 kg/mol = 3.3e20 kg; x 9.82 m/s^2 / 5.101e14 m^2 = 6.3e6 Pa */
+    y[VL_R_CARBONATE] = 3.29e20;
     reference_env(m, y, &env);
     env.heat_flow_rel = 1.37;
     /* S = (Q/Q0) M / tau, tau = 1.7 Gyr; f = 0.3 to the mantle, the rest back (defaults) */
@@ -337,14 +340,15 @@ START_TEST(partition_earth_and_dense)
     vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
     vl_model *m = vl_test_model(sc);
     vl_env env;
-    /* science.md section 5: exchangeable carbon ~3.3e18 mol, of which the atmosphere holds
-     * ~5e16 mol (280 ppmv): most in the ocean */
+    /* exchangeable carbon ~3.3e18 mol (from memory), of which the atmosphere holds
+     * ~5e16 mol (280 ppmv x 1.77e20 mol of dry air [C]): most in the ocean */
     double share = air_share(m, 3.3e18, VL_REGIME_TEMPERATE, &env);
     ck_assert_msg(share < 0.1, "air share %g at 280 ppmv", share);
     double atm_mol = env.mass_kg[VL_GAS_CO2] / mu_co2();
     ck_assert_msg(atm_mol > 3.5e16 && atm_mol < 7e16, "atmosphere %g mol", atm_mol);
-    /* at several bar most carbon is in the atmosphere (science.md section 5): 5 bar of
-     * surface CO2 (as pressure alone) */
+    /* at several bar most carbon is in the atmosphere (Henry's law, Sander compilation:
+     * dissolved CO2 grows as pCO2, bicarbonate only as sqrt(pCO2); docs/cycles.md 6):
+     * 5 bar of surface CO2 (as pressure alone) */
     double five_bar = 5.0 * VL_BAR / m->planet.pa_per_kg / mu_co2();
     share = air_share(m, five_bar, VL_REGIME_TEMPERATE, &env);
     ck_assert_msg(share > 0.5 && share < 1.0, "air share %g at 5 bar", share);
@@ -421,7 +425,7 @@ static void run_earth(const char *const *sets, size_t n, trace *tr, vl_run_stats
     ck_assert_msg(vl_integrate(m, &sink, stats, &st) == VL_OK, "%s", st.msg);
     for (int el = 0; el < VL_NELEMENTS; el++) {
         double t0 = stats->totals0[el];
-        /* science.md section 1: relative residual of every element below 1e-8 */
+        /* conservation criterion (docs/model.md 1): every element's relative residual < 1e-8 */
         if (t0 > 0.0)
             ck_assert_msg(fabs(stats->totals1[el] - t0) / t0 < 1e-8, "%s residual %g",
                           vl_element_name(el), fabs(stats->totals1[el] - t0) / t0);
@@ -453,11 +457,12 @@ START_TEST(earth_history_carbon)
     ck_assert_msg(fabs(hist.last.t_surf_k - 288.0) < 2.0, "T = %g", hist.last.t_surf_k);
     double ppm = hist.last.x[VL_GAS_CO2] * 1e6;
     ck_assert_msg(ppm > 140.0 && ppm < 560.0, "CO2 %g ppmv", ppm);
-    /* most of the exchangeable carbon in the ocean (science.md section 5: ~3.3e18 mol of
-     * which ~5e16 in the air) */
+    /* most of the exchangeable carbon in the ocean (~3.3e18 mol, from memory, of which
+     * ~5e16 in the air: 280 ppmv x 1.77e20 mol of dry air [C]) */
     ck_assert(hist.last.mass_kg[VL_GAS_CO2] < 0.1 * y_now[VL_R_CO2]);
     ck_assert_rel(y_now[VL_R_CO2] / mu_co2(), 3.3e18, 0.3);
-    /* crustal carbonate ~63 bar CO2-equivalent (science.md section 5 [C]): within 2x */
+    /* crustal carbonate ~63 bar CO2-equivalent [C] (~7.5e21 mol, from memory, as CO2:
+     * 3.3e20 kg x 9.82 m/s^2 / 5.101e14 m^2): within 2x */
     double carb = y_now[VL_R_CARBONATE] * bar;
     ck_assert_msg(carb > 31.5 && carb < 126.0, "carbonate %g bar", carb);
     ck_assert(y_now[VL_R_MANTLE_C] > 0.0);
@@ -499,7 +504,9 @@ START_TEST(earth_history_carbon)
             tau = base.t[i - 1] +
                   (base.t[i] - base.t[i - 1]) * (-1.0 - log(a)) / (log(b) - log(a)) - base.t[0];
     }
-    /* science.md section 5 [C]: ~3.3e18 mol / 6-7 Tmol/yr -> ~0.5 Myr; asserted 0.1-2 Myr */
+    /* [C]: exchangeable carbon ~3.3e18 mol (from memory) over 6-7 Tmol/yr, about the
+     * present volcanic supply of 5.9 Tmol/yr (Gerlach 2011): 3.3e18 / 6.5e12 per yr
+     * = 0.5 Myr; asserted 0.1-2 Myr */
     ck_assert_msg(tau > 0.1e6 * VL_YR && tau < 2e6 * VL_YR, "e-folding %g Myr", tau / VL_YR / 1e6);
     vl_test_model_free(m);
     vl_scenario_free(sc);
@@ -552,7 +559,8 @@ START_TEST(ocean_column_written)
         if (k == k_surface)
             surface = strtod(tok, NULL);
     }
-    /* present Earth: the ocean holds more than 90 % (science.md section 5) */
+    /* present Earth: the ocean holds more than 90 % (~3.3e18 mol of exchangeable carbon,
+     * from memory, of which ~5e16 mol in the air: 280 ppmv x 1.77e20 mol [C]) */
     ck_assert_msg(ocean > 0.9 * surface && ocean < surface, "ocean %g of %g kg", ocean, surface);
     vl_test_model_free(m);
     vl_scenario_free(sc);

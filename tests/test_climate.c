@@ -1,7 +1,8 @@
 /* test_climate.c: water saturation (src/physics/water.c) and the hz_fit climate
  * (src/physics/climate.c, src/physics/climate_hzfit.c).
  * Tags: [C] computed from the stated formula; [V] read in the cited source;
- * [S] transcription agreed by several sources (science spec 3b). */
+ * [S] agreed by several independent transcriptions of the source, not checked against
+ * the original table (legend: docs/model.md). */
 #include <math.h>
 #include <string.h>
 
@@ -113,8 +114,8 @@ START_TEST(test_hz_2013)
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_MOIST, 5780.0), 1.0146, 0.0);
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_MAX_GREENHOUSE, 5780.0), 0.3507, 0.0);
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_EARLY_MARS, 5780.0), 0.3207, 0.0);
-    /* Kopparapu et al. 2013 polynomials away from 5780 K, from the table in science
-     * spec 3b [C]: at 3800 K and 7200 K */
+    /* Kopparapu et al. 2013 polynomials away from 5780 K, computed [C] from the
+     * coefficients of its table with the erratum (ApJ 770:82) [S]: at 3800 K and 7200 K */
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_RECENT_VENUS, 3800.0), 1.54668846, 1e-8);
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_RUNAWAY, 3800.0), 0.88150447, 1e-8);
     ck_assert_rel(vl_hz_seff_2013(VL_HZ_MOIST, 3800.0), 0.88343966, 1e-8);
@@ -206,8 +207,8 @@ START_TEST(test_energy_balance)
     earth_env(&env, 1361.0, VL_REGIME_TEMPERATE);
     set_air(&env, 1.01325e5, 280e-6);
     vl_climate_eval(c, vl_test_climate_work(c), VL_TO_KG, &env);
-    /* calibration (science spec 3a target 288 K): T_e(1361 W/m^2, A = 0.3) = 254.578 K [C]
-     * plus greenhouse_ref 33.42 K at the reference CO2 = 288.0 K */
+    /* calibration (present Earth at 288 K, docs/model.md 3.5): T_e(1361 W/m^2, A = 0.3) =
+     * 254.578 K [C] plus greenhouse_ref 33.42 K at the reference CO2 = 288.0 K */
     ck_assert_msg(fabs(env.t_surf_k - 288.0) <= 0.1, "T_s = %g", env.t_surf_k);
     ck_assert_rel(env.t_surf_k, 254.57814 + 33.42, 1e-6);
     /* temperate regime: T_s is the balance temperature (climate.h contract) */
@@ -275,7 +276,8 @@ START_TEST(test_vapour_partition)
     double water = 1.385 * VL_TO_KG;
     vl_climate_eval(c, vl_test_climate_work(c), water, &env);
     ck_assert_msg(fabs(env.t_surf_k - 288.0) < 0.2, "T_s = %g", env.t_surf_k);
-    /* thin shell, mole-fraction partial pressure x_v p_surf = p_sat(T_s) (science spec 4) [C] */
+    /* thin shell, mole-fraction partial pressure x_v p_surf = p_sat(T_s) (docs/model.md 1
+     * and 3, "Ocean and vapour") [C] */
     ck_assert_rel(vapour_pressure(&env), vl_water_psat(env.t_surf_k), 1e-9);
     ck_assert_rel(env.mass_kg[VL_GAS_H2O], env.vapour_kg, 0.0);
     ck_assert_rel(env.ocean_kg + env.vapour_kg, water, 1e-15);
@@ -321,7 +323,8 @@ START_TEST(test_vapour_partition)
     ck_assert_double_eq(env.liquid, 0.0);
     ck_assert_rel(env.f_strat, 7.6e-6, 0.0);
 
-    /* T_s = 779 K above T_c: no ocean survives even outside a runaway (science spec 3a) */
+    /* T_s = 779 K above T_c = 647.096 K (Wagner & Pruss 1993): no ocean survives even
+     * outside a runaway */
     env.regime = VL_REGIME_TEMPERATE;
     env.instellation = 1.0e5;
     vl_climate_eval(c, vl_test_climate_work(c), water, &env);
@@ -342,7 +345,7 @@ START_TEST(test_runaway_state)
     set_air(&env, 1.0e5, 280e-6);
     double water = VL_TO_KG;
     vl_climate_eval(c, vl_test_climate_work(c), water, &env);
-    /* runaway: the hot steam state, all water in the air (science spec 3a) */
+    /* runaway: the hot steam state, all water in the air (docs/model.md 3, "Regimes") */
     ck_assert_rel(env.t_surf_k, 1500.0, 0.0);
     ck_assert_rel(env.vapour_kg, water, 0.0);
     ck_assert_rel(env.ocean_kg, 0.0, 0.0);
@@ -381,7 +384,7 @@ START_TEST(test_classify)
     earth_scenario(&sc);
     vl_climate *c = new_climate(&sc);
     double dry = 1e-5 * VL_TO_KG;
-    /* order: dry, runaway, frozen, moist greenhouse, temperate (science spec 3a regimes) */
+    /* order: dry, runaway, frozen, moist greenhouse, temperate (docs/model.md 3.5 regimes) */
     ck_assert_int_eq(classify(c, 0.99 * dry, 2.0, 300.0), VL_REGIME_DRY);
     ck_assert_int_eq(classify(c, dry, 2.0, 300.0), VL_REGIME_RUNAWAY);
     ck_assert_int_eq(classify(c, VL_TO_KG, 1.1, 200.0), VL_REGIME_RUNAWAY);

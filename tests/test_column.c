@@ -1,5 +1,5 @@
-/* test_column.c: the radiative column and the column climate backend against the
- * check values of issue 3 / science.md section 3a. */
+/* test_column.c: the radiative column and the column climate backend against published
+ * limits and values computed from the grey column; each check names its source. */
 #include <stdio.h>
 #include <string.h>
 
@@ -64,14 +64,18 @@ START_TEST(steam_limit_and_gravity)
     }
     /* Goldblatt et al. 2013, Nat. Geosci. 6:661: 282 W/m^2 at Earth gravity, +-10 % */
     ck_assert_rel(olr[1], 282.0, 0.10);
-    /* the limit rises with gravity (Pierrehumbert 2010; science.md [C]) */
+    /* the limit rises with gravity (Pierrehumbert 2010): the emission level sits near
+     * p = g / (D k_w), deeper and warmer at higher g [C] */
     ck_assert(olr[0] < olr[1] && olr[1] < olr[2]);
 }
 END_TEST
 
 START_TEST(unbroadened_grey_limit)
 {
-    /* science.md [C]: k_w = 0.01 m^2/kg, no broadening: plateau ~290 W/m^2 at 9.81 m/s^2,
+    /* computed [C] from the grey two-stream steam column: k_w = 0.01 m^2/kg, no
+     * broadening, D = 1.66, saturated (Wagner & Pruss 1993, J. Phys. Chem. Ref. Data
+     * 22:783, the liquid curve throughout): OLR = integral over x of sigma T_sat(p)^4 e^-x,
+     * x = D k_w p / g: plateau ~290 W/m^2 at 9.81 m/s^2,
      * 240 at 3.7 and 335 at 20 (emission level p = g / (D k_w)); 3 % */
     vl_column_air steam = {0.0, vl_species_molar_mass(VL_SP_N2), VL_CP_N2, 0.0};
     double g[3] = {3.7, 9.81, 20.0}, want[3] = {240.0, 290.0, 335.0};

@@ -1,5 +1,6 @@
-/* test_escape.c: hydrogen escape, oxygen drag and photolysis against the published
- * check values of science.md section 4. */
+/* test_escape.c: hydrogen escape, oxygen drag and photolysis against values computed
+ * from the published laws (Hunten 1973; Watson, Donahue & Walker 1981; Hunten, Pepin &
+ * Walker 1987) and the measured present-Earth loss (Catling & Zahnle 2009). */
 #include <stdlib.h>
 #include <string.h>
 
@@ -22,7 +23,9 @@ static void setup_earth(fixture *f, const char *const *sets, size_t nsets)
     f->m = vl_test_model(f->sc);
     memset(f->y, 0, sizeof f->y);
     f->y[VL_R_WATER] = VL_TO_KG;
-    f->y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
+    /* present atmospheric N2 [C]: 5.148e18 kg of air (total atmospheric mass, from
+     * memory) x 0.7808 (N2 by volume, NSSDC) x 28.013/28.965 = 3.887e18 kg */
+    f->y[VL_R_N2] = 3.887e18;
     vl_model_env(f->m, vl_test_work(f->m), 4.57e9 * VL_YR, f->y, VL_REGIME_TEMPERATE, &f->env);
 }
 
@@ -48,10 +51,12 @@ START_TEST(energy_limited_earth)
     setup_earth(&f, sets, 1);
     f.env.f_xuv = 4.6e-3; /* Ribas et al. 2005: 4.6 erg cm^-2 s^-1 today at 1 au */
     budget_without_drag(&f);
-    /* science.md [C]: Earth today, eps = 0.15, F = 4.6 erg cm^-2 s^-1 -> 1.41e3 kg/s
-     * (Watson et al. 1981 energy-limited formula) */
+    /* computed [C] from the energy-limited formula (Watson, Donahue & Walker 1981, Icarus
+     * 48:150): Earth today, eps = 0.15, F = 4.6e-3 W/m^2, no Roche factor:
+     * eps pi R^3 F / (G M) = 0.15 pi (6.371e6 m)^3 4.6e-3 / 3.9861e14 = 1.41e3 kg/s */
     ck_assert_rel(f.env.escape.mass_flux * f.m->planet.area_m2, 1.41e3, 5e-3);
-    /* far above the diffusion limit, so hydrogen escape is diffusion-limited (science.md) */
+    /* far above the diffusion limit, so hydrogen escape, the least of its limits
+     * (docs/escape.md), is diffusion-limited */
     ck_assert_int_eq(f.env.escape.h_limit, VL_HLIM_DIFFUSION);
     teardown(&f);
 }
@@ -102,7 +107,11 @@ START_TEST(crossover_flux_earth)
     fixture f;
     setup_earth(&f, NULL, 0);
     double m_h = VL_AW_H * VL_AMU, m_o = VL_AW_O * VL_AMU;
-    /* science.md [C] from Hunten, Pepin & Walker 1987: Earth, 400 K: F_ref = 1.27e13 cm^-2 s^-1 */
+    /* computed [C] from the crossover flux of Hunten, Pepin & Walker 1987 (Icarus 69:532),
+     * F_ref = X_H b g (m_O - m_H) / (k T): Earth, 400 K, X_H = 2/3, b(H-O) = 4.8e17 x
+     * 400^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory), g = 982 cm s^-2:
+     * 2/3 x 4.29e19 x 982 x (15.999 - 1.008) 1.6605e-24 g / (1.380649e-16 x 400) erg
+     * = 1.27e13 cm^-2 s^-1 */
     double f_ref = 1.27e17;
     f.env.escape.h_diffusion = HUGE_VAL;
     f.env.escape.h_jeans = HUGE_VAL; /* test the drag law alone: no exobase cap */

@@ -80,7 +80,9 @@ static void gassy_state(const vl_model *m, double y[VL_NRES])
     memset(y, 0, VL_NRES * sizeof y[0]);
     y[VL_R_WATER] = 1.3729 * VL_TO_KG;
     y[VL_R_CO2] = 0.0417 * VL_BAR / m->planet.pa_per_kg;
-    y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
+    /* present atmospheric N2 [C]: 5.148e18 kg of air (total atmospheric mass, from
+     * memory) x 0.7808 (N2 by volume, NSSDC) x 28.013/28.965 = 3.887e18 kg */
+    y[VL_R_N2] = 3.887e18;
     y[VL_R_O2] = 1.19e18;
     y[VL_R_H2] = 2.17e16;
     y[VL_R_IMPACT_WATER] = 4.41e18;
@@ -320,7 +322,7 @@ START_TEST(earth_run_with_delivery)
     vl_run_stats s;
     ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s", st.msg);
     for (int el = 0; el < VL_NELEMENTS; el++)
-        /* issue 2 / science.md section 1: relative residual of every element below 1e-8 */
+        /* conservation criterion (docs/model.md 1): every element's relative residual < 1e-8 */
         ck_assert_msg(fabs(s.totals1[el] - s.totals0[el]) / s.totals0[el] < 1e-8, "%s residual %g",
                       vl_element_name(el), fabs(s.totals1[el] - s.totals0[el]) / s.totals0[el]);
     /* the pools end (near) empty: the ramp leaves at most one depletion band (flux.h), the

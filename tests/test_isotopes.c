@@ -35,7 +35,7 @@ static int loss_rhs(double t, const double y[], double dydt[], void *pv)
 START_TEST(rayleigh_distillation)
 {
     /* Rayleigh distillation: a reservoir reduced to N/N0 with a constant fractionation
-     * factor f keeps R/R0 = (N/N0)^(f - 1) (science.md section 8; textbook) */
+     * factor f keeps R/R0 = (N/N0)^(f - 1) (the Rayleigh distillation law, textbook) */
     double fs[3] = {0.2385, 0.5, 0.8};
     for (int i = 0; i < 3; i++) {
         loss l = {1e-3, fs[i]};
@@ -70,8 +70,8 @@ START_TEST(fractionation_factors)
     ck_assert(vl_escape_drag_fractionation(1e6 * m_h) > 0.999);
 
     /* thermal escape on present Earth: diffusion-limited, so the factor is
-     * (b_D/b_H)(m_a - m_D)/(m_a - m_H), b ~ 1/sqrt(reduced mass) (science.md section 8,
-     * from memory) with an N2 background [C] */
+     * (b_D/b_H)(m_a - m_D)/(m_a - m_H), b ~ 1/sqrt(reduced mass) (from memory) with an
+     * N2 background [C] */
     vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
     vl_model *m = vl_test_model(sc);
     double y[VL_NRES] = {0};
@@ -108,7 +108,8 @@ START_TEST(enrichment_through_escape)
     ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s", st.msg);
     double enrich = vl_output_dh(s.y_final, VL_R_WATER) / sc->inventory.initial_dh;
     ck_assert_msg(enrich > 10.0, "enrichment %g", enrich);
-    /* deuterium conserved over the whole run (science.md section 1: 1e-8) */
+    /* deuterium conserved over the whole run: the project's conservation criterion,
+     * relative residual below 1e-8 (docs/model.md section 1) */
     ck_assert(fabs(s.totals1[VL_EL_D] - s.totals0[VL_EL_D]) < 1e-8 * s.totals0[VL_EL_D]);
     vl_test_model_free(m);
     vl_scenario_free(sc);

@@ -133,7 +133,8 @@ START_TEST(molar_masses)
     /* IUPAC 2021 abridged standard atomic weights: H2O 18.015, CO2 44.009 g/mol */
     ck_assert_rel(vl_species_molar_mass(VL_SP_H2O), 18.015e-3, 1e-12);
     ck_assert_rel(vl_species_molar_mass(VL_SP_CO2), 44.009e-3, 1e-12);
-    /* hydrogen in one terrestrial ocean: 1.39e21 kg x 2.016/18.015 = 1.555e20 kg (science.md [C]) */
+    /* hydrogen in one terrestrial ocean [C], IUPAC 2021 atomic weights:
+     * 1.39e21 kg x 2.016/18.015 = 1.555e20 kg */
     ck_assert_rel(VL_TO_KG * vl_reservoir_element_fraction(VL_R_WATER, VL_EL_H), 1.555e20, 2e-3);
 }
 END_TEST

@@ -1,5 +1,6 @@
 /* test_nonthermal.c: ion pickup, sputtering, photochemical escape and polar outflow
- * (src/physics/processes/nonthermal.c) against the present-day rates of science.md section 7:
+ * (src/physics/processes/nonthermal.c) against measured present-day rates (Lillis et al.
+ * 2017, Dong et al. 2015, Fedorov et al. 2011, Seki et al. 2001, Jakosky et al. 2018):
  * reference rates reproduced, the scaling laws exact, magnetic shielding and polar
  * outflow, non-negative columns, element conservation, present Mars's total. */
 #include <stdlib.h>
@@ -101,8 +102,8 @@ START_TEST(mars_reference_rates)
     setup(&f, off, 1);
     at_mars_reference(&f);
     double area = (0.532 * VL_R_EARTH / MARS_R) * (0.532 * VL_R_EARTH / MARS_R);
-    /* Lillis et al. 2017 (science.md section 7 [V]): photochemical hot O 4.3e25 s^-1,
-     * per unit area (our planet's radius 0.532 R_earth against Mars's 3389.5 km) */
+    /* Lillis et al. 2017 (MAVEN) [V]: photochemical hot O 4.3e25 s^-1, per unit area (our
+     * planet's radius 0.532 R_earth against Mars's 3389.5 km) */
     ck_assert_rel(column(&f, "photochemical_escape", "photochem_o_kg_s"), 4.3e25 * M_O * area,
                   1e-6);
     /* hot C 1e24 s^-1 (default, from memory) */
@@ -210,8 +211,9 @@ START_TEST(dipole_shields_pickup_opens_caps)
     /* neutral hot atoms do not see the field */
     ck_assert_rel(column(&dip, "photochemical_escape", "photochem_o_kg_s"),
                   column(&bare, "photochemical_escape", "photochem_o_kg_s"), 1e-12);
-    /* polar outflow: none without a field, positive with one (science.md section 7:
-     * "a magnetised planet is not simply protected") */
+    /* polar outflow: none without a field, positive with one: a field trades pickup for
+     * polar outflow and is not simply a shield (docs/escape.md; Gunell et al. 2018 argue
+     * the same, from memory) */
     ck_assert_double_eq(column(&bare, "polar_outflow", "polar_o_kg_s"), 0.0);
     double polar = column(&dip, "polar_outflow", "polar_o_kg_s");
     ck_assert(polar > 0.0);
@@ -260,7 +262,7 @@ END_TEST
 START_TEST(venus_from_mars_reference)
 {
     fixture f;
-    /* Venus (NSSDC, science.md section 9): 4.867e24 kg, 6051.8 km, 0.723 au */
+    /* Venus (NASA NSSDC planetary fact sheet): 4.867e24 kg, 6051.8 km, 0.723 au */
     const char *venus[] = {"planet.mass_mearth=0.81494", "planet.radius_rearth=0.94990",
                            "planet.orbit_au=0.723", "processes.ion_pickup.c_ref_per_s=0",
                            "escape.thermal=false"};
@@ -433,7 +435,7 @@ START_TEST(mars_today_runs)
     vl_run_sink sink = {NULL, NULL, NULL};
     ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s", st.msg);
     for (int el = 0; el < VL_NELEMENTS; el++)
-        if (s.totals0[el] > 0.0) /* science.md section 1: residual below 1e-8 */
+        if (s.totals0[el] > 0.0) /* conservation criterion (docs/model.md 1): below 1e-8 */
             ck_assert(fabs(s.totals1[el] - s.totals0[el]) / s.totals0[el] < 1e-8);
     /* every non-thermal channel that has a default rate moved mass over 70 Myr, except
      * polar outflow (no field) and hydrogen (diffusion-limited today: no room) */

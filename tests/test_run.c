@@ -87,7 +87,8 @@ static void check_conservation(const vl_run_stats *s)
         double t0 = s->totals0[el];
         if (t0 <= 0.0)
             continue;
-        /* issue 2 / science.md section 1: relative residual of every element below 1e-8 */
+        /* the project's conservation criterion (docs/model.md 1): relative residual of
+         * every element below 1e-8 */
         ck_assert_msg(fabs(s->totals1[el] - t0) / t0 < 1e-8, "%s residual %g", vl_element_name(el),
                       fabs(s->totals1[el] - t0) / t0);
     }
@@ -104,11 +105,10 @@ START_TEST(earth_history)
     /* Earth keeps its ocean: hydrogen loss of a few kg/s (Catling & Zahnle 2009) over
      * 4.5 Gyr removes well under 1 % of an ocean [C] */
     ck_assert(s.y_final[VL_R_WATER] > 0.99 * VL_TO_KG);
-    /* 288 K today: the climate's calibration target (docs/model.md 3.4); issue 2 asks
-     * "near 288 K", issue 6 288 +- 5 K; +-2 K here */
+    /* 288 K today: the climate's calibration target (docs/model.md 3.4); +-2 K here */
     ck_assert_msg(fabs(c.last_env.t_surf_k - 288.0) < 2.0, "T = %g", c.last_env.t_surf_k);
     /* pre-industrial CO2 280 ppmv (common practice); "a few hundred ppm", within a factor
-     * of two (issue 6 asks three) */
+     * of two */
     double ppm = c.last_env.x[VL_GAS_CO2] * 1e6;
     ck_assert_msg(ppm > 140.0 && ppm < 560.0, "CO2 %g ppmv", ppm);
     ck_assert_int_eq(c.last_env.regime, VL_REGIME_TEMPERATE);

@@ -1,4 +1,4 @@
-/* test_upper.c: exobase, Jeans escape and magnetopause (issue 4; science.md section 7). */
+/* test_upper.c: exobase, Jeans escape and magnetopause (docs/escape.md, "Upper atmosphere"). */
 #include <string.h>
 
 #include "suites.h"
@@ -11,8 +11,10 @@ START_TEST(jeans_hydrogen_earth)
     double lambda, m_h = VL_AW_H * VL_AMU;
     double n = 1e11;
     double phi = vl_upper_jeans_flux(n, m_h, 1000.0, 6871e3, VL_M_EARTH, &lambda);
-    /* science.md [C] (Jeans formula, textbook): H at Earth, T_exo = 1000 K,
-     * r_exo = 6871 km: escape parameter 7.03, effusion velocity 8.1 m/s */
+    /* computed [C] from the Jeans formula (Jeans 1925; Chamberlain & Hunten 1987): H at
+     * Earth, T_exo = 1000 K, r_exo = 6871 km: escape parameter G M m_H / (k T r) =
+     * 3.9861e14 x 1.6735e-27 / (1.380649e-23 x 1000 x 6.871e6) = 7.03; effusion velocity
+     * v0 (1 + lambda) e^-lambda / (2 sqrt(pi)), v0 = sqrt(2 k T / m_H) = 4.06 km/s: 8.1 m/s */
     ck_assert_rel(lambda, 7.03, 2e-3);
     ck_assert_rel(phi / n, 8.1, 5e-3);
     /* heavier particles: O's parameter is 16 times larger (m_O/m_H = 15.87) [C] */

@@ -25,7 +25,9 @@ static void setup(fixture *f, const char *const *sets, size_t nsets)
     memset(f->y, 0, sizeof f->y);
     f->y[VL_R_WATER] = VL_TO_KG;
     f->y[VL_R_MANTLE_WATER] = 2.385 * VL_TO_KG;
-    f->y[VL_R_N2] = 3.887e18; /* present atmospheric N2 (science.md section 6 [C]) */
+    /* present atmospheric N2 [C]: 5.148e18 kg of air (total atmospheric mass, from
+     * memory) x 0.7808 (N2 by volume, NSSDC) x 28.013/28.965 = 3.887e18 kg */
+    f->y[VL_R_N2] = 3.887e18;
     memset(&f->env, 0, sizeof f->env);
     f->env.heat_flow_rel = 1.0;
     f->env.g = f->m->planet.g;
@@ -99,8 +101,8 @@ START_TEST(present_earth_regassing)
     double r, d;
     water_rates(&f, 1.0, &r, &d);
     double kg_yr = r * VL_YR;
-    /* science.md section 6: ~1e12 kg/yr of water subducted today (from memory); the
-     * water entering the trenches is R / chi, within a factor of 3 */
+    /* ~1e12 kg/yr of water subducted today (from memory); the water entering the
+     * trenches is R / chi, within a factor of 3 */
     double subducted = kg_yr / 0.23;
     ck_assert_msg(subducted > 1e12 / 3.0 && subducted < 3e12, "subducted %g kg/yr", subducted);
     /* regassing is the share carried past the arcs (chi = 0.23, Cowan & Abbot 2014, from
@@ -287,7 +289,7 @@ START_TEST(earth_mantle_water)
     ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s", st.msg);
     for (int el = 0; el < VL_NELEMENTS; el++) {
         double t0 = s.totals0[el];
-        /* science.md section 1: relative residual of every element below 1e-8 */
+        /* conservation criterion (docs/model.md 1): every element's relative residual < 1e-8 */
         ck_assert_msg(t0 <= 0.0 || fabs(s.totals1[el] - t0) / t0 < 1e-8, "%s residual",
                       vl_element_name(el));
     }
@@ -303,9 +305,8 @@ START_TEST(earth_mantle_water)
                      VL_REGIME_TEMPERATE);
     double ocean_to = s.y_final[VL_R_WATER] / VL_TO_KG;
     ck_assert_msg(ocean_to > 0.5 && ocean_to < 2.0, "ocean %g TO", ocean_to);
-    /* science.md section 6: ~1e12 kg/yr subducted today (from memory): in the final
-     * state the water entering the trenches (regassing / chi, chi = 0.23) is within a
-     * factor of 3 of it */
+    /* ~1e12 kg/yr subducted today (from memory): in the final state the water entering
+     * the trenches (regassing / chi, chi = 0.23) is within a factor of 3 of it */
     int found = 0;
     for (size_t c = 0; c < m->ncolumns; c++)
         if (strcmp(m->col_name[c], "water_regassing_kg_s") == 0) {

@@ -10,7 +10,7 @@
 #define VL_OCEAN_DENSITY_KG_M3 1000.0
 
 /* Henry's constant of CO2 in water, mol m^-3 Pa^-1 at 298.15 K, and its temperature
- * coefficient d ln H / d(1/T), K (Sander compilation; science.md section 5). */
+ * coefficient d ln H / d(1/T), K (Sander compilation). */
 #define VL_OCEAN_HENRY_298 3.3e-4
 #define VL_OCEAN_HENRY_DT_K 2400.0
 #define VL_OCEAN_HENRY_REF_K 298.15
@@ -23,9 +23,10 @@
  * and c0 = H(T0) pCO2_0; the carbonate ion itself (a tenth of today's DIC) is folded into
  * the square-root term, so the law is exact at the reference and vanishes with pCO2. The
  * buffer factor d ln pCO2 / d ln DIC is ~2 at low pCO2 and falls to 1 at several bar,
- * where dissolved CO2 dominates. Reference state: DIC D0 = 2.3e-3 mol/kg ([C]: science.md
- * section 5, exchangeable carbon ~3.3e18 mol less ~5e16 mol in the air, over one
- * 1.39e21 kg ocean; measured whole-ocean mean ~2.25e-3 mol/kg, from memory) at
+ * where dissolved CO2 dominates. Reference state: DIC D0 = 2.3e-3 mol/kg ([C]:
+ * exchangeable carbon of air and ocean ~3.3e18 mol, from memory, less ~5e16 mol in the
+ * air (280 ppmv of 1.77e20 mol of dry air), over one 1.39e21 kg ocean; measured
+ * whole-ocean mean ~2.25e-3 mol/kg, from memory) at
  * pCO2_0 = 2.837e-4 bar (280 ppmv x 1.01325 bar, the climate and weathering
  * references) and T0 = 288 K (present mean surface temperature, common practice). */
 #define VL_OCEAN_DIC_REF_MOL_KG 2.3e-3

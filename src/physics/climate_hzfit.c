@@ -16,7 +16,8 @@
 #define TEFF_REF_K 5780.0
 
 /* Kopparapu et al. 2013 with its erratum: S0, a, b, c, d per enum vl_hz_limit
- * (transcription agreed by several sources, science spec 3b). */
+ * (as agreed by several independent transcriptions, not checked against the papers'
+ * tables: [S], docs/model.md). */
 static const double k2013[VL_NHZ][5] = {
     [VL_HZ_RECENT_VENUS] = {1.7763, 1.4335e-4, 3.3954e-9, -7.6364e-12, -1.1950e-15},
     [VL_HZ_RUNAWAY] = {1.0385, 1.2456e-4, 1.4612e-8, -7.6345e-12, -1.7511e-15},
@@ -26,7 +27,8 @@ static const double k2013[VL_NHZ][5] = {
 };
 
 /* Kopparapu et al. 2014: runaway greenhouse for 0.1, 1 and 5 Earth masses
- * (transcription agreed by several sources, science spec 3b). */
+ * (as agreed by several independent transcriptions, not checked against the papers'
+ * tables: [S], docs/model.md). */
 static const double k2014_mass[3] = {0.1, 1.0, 5.0};
 static const double k2014_runaway[3][5] = {
     {0.99, 1.209e-4, 1.404e-8, -7.418e-12, -1.713e-15},

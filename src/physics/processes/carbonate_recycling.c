@@ -26,7 +26,7 @@ typedef struct {
 static const vl_param table[] = {
     R("residence_time_gyr", "Gyr", 1e9 * VL_YR, 1.7, 1e-3, 1e3, tau_s,
       "tau: crustal residence time of carbonate at the present heat flow",
-      "[C] crustal carbonate ~7.5e21 mol (63 bar CO2-equivalent, science.md section 5) over "
+      "[C] crustal carbonate ~7.5e21 mol (from memory; 63 bar CO2-equivalent on Earth) over "
       "the carbon entering trenches, 40-66 Mt C/yr ~ 4.4 Tmol/yr (Kelemen & Manning 2015, "
       "from memory)", MOBILE),
     R("mantle_fraction", "", 1.0, 0.3, 0.0, 1.0, mantle_share,

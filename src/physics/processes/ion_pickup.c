@@ -9,7 +9,7 @@
 static const vl_param table[] = {
     ROW("o_ref_per_s", "s^-1", 1.0, 2e24, 0.0, 1e35, ref[EL_O],
         "O+ escape at the reference planet and drivers",
-        "Mars O+ ion escape ~2e24 s^-1 (Dong et al. 2015, MAVEN; science.md section 7)"),
+        "Mars O+ ion escape ~2e24 s^-1 (Dong et al. 2015, MAVEN)"),
     ROW("h_ref_per_s", "s^-1", 1.0, 5.26e24, 0.0, 1e35, ref[EL_H],
         "H+ escape at the reference planet and drivers",
         "[C] 2e24 x (7.1e24 / 2.7e24): the H+/O+ ratio at Venus (Fedorov et al. 2011)"),

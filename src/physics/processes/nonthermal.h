@@ -56,7 +56,7 @@ typedef struct vl_nonthermal_params {
 #define MARS_RADIUS_ROW                                                                  \
     ROW("reference_radius_km", "km", 1e3, 3389.5, 100.0, 1e5, radius_m,                  \
         "radius of the reference planet (rates scale with surface area)",               \
-        "Mars mean radius, NASA NSSDC fact sheet (science.md section 9)")
+        "Mars mean radius, NASA NSSDC planetary fact sheet, from memory")
 #define MARS_XUV_ROW                                                                     \
     ROW("reference_xuv_erg_cm2_s", "erg cm^-2 s^-1", 1e-3, 1.9806, 1e-6, 1e8, xuv_w_m2,  \
         "XUV flux (1-1200 A) at the reference planet",                                   \

@@ -8,7 +8,7 @@
 static const vl_param table[] = {
     ROW("o_ref_per_s", "s^-1", 1.0, 4.3e25, 0.0, 1e35, ref[EL_O],
         "hot O escape at the reference planet and drivers",
-        "Mars photochemical O 4.3e25 s^-1 (Lillis et al. 2017, MAVEN; science.md section 7)"),
+        "Mars photochemical O 4.3e25 s^-1 (Lillis et al. 2017, MAVEN)"),
     ROW("c_ref_per_s", "s^-1", 1.0, 1e24, 0.0, 1e35, ref[EL_C],
         "hot C escape at the reference (its oxygen stays as O2)",
         "from memory, unverified: model estimates for present Mars of order 1e24 s^-1"),

@@ -9,7 +9,7 @@ static const vl_param table[] = {
     ROW("o_ref_per_s", "s^-1", 1.0, 1e25, 0.0, 1e35, ref[EL_O],
         "net O+ loss by polar outflow at the reference planet and drivers",
         "Earth: O+ outflow up to ~1e26 s^-1 in disturbed times, net loss ~10 times smaller "
-        "(Seki et al. 2001, science.md section 7): an upper value for the mean"),
+        "(Seki et al. 2001): an upper value for the mean"),
     ROW("h_ref_per_s", "s^-1", 1.0, 2.6e25, 0.0, 1e35, ref[EL_H],
         "H+ loss by polar outflow (polar wind) at the reference",
         "[C] polar wind ~1e8 H+ cm^-2 s^-1 (from memory) over Earth's open caps 2.6e17 cm^2"),

@@ -39,7 +39,8 @@ static const vl_param table[] = {
       "uptake by the upper oceanic crust is of order 1-3 Tmol/yr (Staudigel et al. 1989; "
       "Alt & Teagle 1999, GCA 63:1527; both from memory)", MOBILE),
     R("co2_exponent", "", 1.0, 0.23, 0.0, 1.0, alpha, "alpha: exponent of pCO2 / pCO2_0",
-      "Krissansen-Totton & Catling 2017, from memory; range 0-0.5 (science.md section 5)",
+      "Krissansen-Totton & Catling 2017, Nat. Commun. 8:15423, from memory; range 0-0.5, "
+      "from memory",
       MOBILE),
     R("activation_energy_kj_mol", "kJ/mol", 1e3, 53.0, 0.0, 200.0, ea_j_mol,
       "Ea: activation energy of basalt dissolution",
