@@ -50,8 +50,17 @@ typedef struct vl_curve {
 size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
                         vl_curve *out);
 
-/* Table statistics of a workspace: nodes computed so far and the wall time spent. */
+/* Table statistics of a workspace: points computed so far and the wall time spent. */
 void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s);
+
+/* The column climate's table cache on disk (climate_disk.c). Off until configured:
+ * folder NULL or "" turns it off; otherwise tables are read from and appended to
+ * FOLDER/column-KEY.pts (the folder is made if missing). Returns VL_OK, or an I/O error
+ * with st filled when the folder cannot be made. */
+int vl_climate_cache_configure(const char *folder, vl_status *st);
+/* Write every point computed since the last flush (safe to call at any time, from any
+ * thread; also called at exit once configured). */
+void vl_climate_cache_flush(void);
 
 /* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
 enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,

@@ -22,7 +22,7 @@
 #include "volev/spectrum.h"
 
 /* Intervals of the cumulative probability g and their widths (the weights). */
-#define VL_NG 8
+#define VL_NG 6
 extern const double vl_g_weight[VL_NG];
 
 /* Gases with lines. */

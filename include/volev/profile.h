@@ -9,7 +9,9 @@
 
 #include "volev/env.h"
 
-#define VL_PROFILE_LEVELS 44
+#ifndef VL_PROFILE_LEVELS
+#define VL_PROFILE_LEVELS 40
+#endif
 
 /* Specific heat at constant pressure near 300 K, J kg^-1 K^-1 (NIST-JANAF tables,
  * from memory): N2 1040, O2 918, CO2 846, H2 14310. */

@@ -258,10 +258,11 @@ const vl_param vl_core_params[] = {
     REAL("climate.column.cloud_fraction", "", 1.0, 0.5, 0.0, 1.0, climate.cloud_fraction,
          "share of a wet planet's sky under the cloud layer (0: no clouds)",
          "of the order of Earth's cloud cover (~0.6-0.7, from memory), common practice", COLUMN_ONLY),
-    REAL("climate.column.cloud_pressure_ratio", "", 1.0, 0.6, 1e-4, 0.99, climate.cloud_p_ratio,
+    REAL("climate.column.cloud_pressure_ratio", "", 1.0, 0.85, 1e-4, 0.99, climate.cloud_p_ratio,
          "level of the cloud layer: its pressure over the surface pressure",
-         "mid-level cloud near 600 hPa on Earth, common practice", COLUMN_ONLY),
-    REAL("climate.column.cloud_optical_depth", "", 1.0, 10.0, 0.0, 1e3, climate.cloud_tau,
+         "low cloud near 850 hPa, where Earth's most reflective (stratocumulus) decks sit, "
+         "common practice", COLUMN_ONLY),
+    REAL("climate.column.cloud_optical_depth", "", 1.0, 9.8, 0.0, 1e3, climate.cloud_tau,
          "visible optical depth of the cloud layer (thermal: half of it)",
          "calibration: present Earth 288 K (docs/model.md section 3.4)", COLUMN_ONLY),
 

@@ -7,6 +7,10 @@
  * the other's copy is dropped (the computation is deterministic: both are identical). */
 #include "climate_table.h"
 
+#include "climate_disk.h"
+
+#include "volev/profile.h"
+
 #include <math.h>
 #include <pthread.h>
 #include <stdatomic.h>
@@ -18,25 +22,25 @@
 
 double vl_ct_grid_t(int j)
 {
-    if (j <= 125)
-        return 150.0 + 2.0 * j;
-    if (j <= 185)
-        return 400.0 + 10.0 * (j - 125);
-    return 1000.0 + 25.0 * (j - 185);
+    if (j <= 50)
+        return 150.0 + 5.0 * j;
+    if (j <= 80)
+        return 400.0 + 20.0 * (j - 50);
+    return 1000.0 + 50.0 * (j - 80);
 }
 
 double vl_ct_grid_index(double t)
 {
-    double x = t <= 400.0    ? (t - 150.0) / 2.0
-               : t <= 1000.0 ? 125.0 + (t - 400.0) / 10.0
-                             : 185.0 + (t - 1000.0) / 25.0;
+    double x = t <= 400.0    ? (t - 150.0) / 5.0
+               : t <= 1000.0 ? 50.0 + (t - 400.0) / 20.0
+                             : 80.0 + (t - 1000.0) / 50.0;
     return x < 0.0 ? 0.0 : x > VL_CT_NT - 1 ? VL_CT_NT - 1 : x;
 }
 
 /* log10 Pa of index 0 and points per decade, per dimension (H2: index 0 is 0 Pa). */
 static const double log_p0[VL_CT_NDIM] = {-1.0, -3.0, -3.0, 1.0};
-static const double per_decade[VL_CT_NDIM] = {4.0, 4.0, 4.0, 2.0};
-const int vl_ct_size[VL_CT_NDIM] = {45, 49, 49, 18};
+static const double per_decade[VL_CT_NDIM] = {3.0, 3.0, 3.0, 2.0};
+const int vl_ct_size[VL_CT_NDIM] = {34, 37, 37, 18};
 
 double vl_ct_grid_p(int d, int i)
 {
@@ -63,10 +67,16 @@ void vl_ct_bracket(int d, double p, int *lo, double *w_hi)
 
 /* ------------------------------------------------------------------ tables */
 
+/* A node's water index past the grid: water that never runs out (a saturated surface). */
+#define WATER_UNLIMITED (vl_ct_size[VL_CT_WATER])
+
 struct vl_ct_node {
     int idx[VL_CT_NDIM];
     pthread_mutex_t lock;
     _Atomic(vl_column_point *) pt[VL_CT_NT];
+    /* per temperature: 0 unknown, 1 the surface keeps water at saturation (the point is
+     * that of unlimited water), 2 the inventory is all in the air */
+    atomic_uchar saturated[VL_CT_NT];
 };
 
 struct vl_ctable {
@@ -114,6 +124,27 @@ static vl_ctable *table_new(const vl_column_opts *opts)
     return t;
 }
 
+static vl_ct_node *node_at(vl_ctable *t, const int idx[VL_CT_NDIM]);
+
+/* A point read from disk into table ctx (the first copy of a point wins). */
+static void adopt(void *ctx, const int idx[VL_CT_NDIM], int j, const vl_column_point *p)
+{
+    vl_ctable *t = ctx;
+    for (int d = 0; d < VL_CT_NDIM; d++)
+        if (idx[d] < 0 || idx[d] > vl_ct_size[d] || (idx[d] == vl_ct_size[d] && d != VL_CT_WATER))
+            return;
+    if (j < 0 || j >= VL_CT_NT)
+        return;
+    vl_ct_node *nd = node_at(t, idx);
+    vl_column_point *copy = nd ? malloc(sizeof *copy) : NULL;
+    if (!copy)
+        return;
+    *copy = *p;
+    vl_column_point *none = NULL;
+    if (!atomic_compare_exchange_strong(&nd->pt[j], &none, copy))
+        free(copy);
+}
+
 vl_ctable *vl_ctable_get(const vl_column_opts *opts)
 {
     pthread_mutex_lock(&registry_lock);
@@ -121,6 +152,7 @@ vl_ctable *vl_ctable_get(const vl_column_opts *opts)
     while (t && memcmp(&t->opts, opts, sizeof *opts) != 0)
         t = t->next;
     if (!t && (t = table_new(opts))) {
+        vl_ct_disk_load(t->key, adopt, t);
         t->next = registry;
         registry = t;
     }
@@ -195,6 +227,31 @@ static double seconds(void)
     return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
 }
 
+/* The gases of node idx, kg/m^2 (unlimited water past the water grid). */
+static void node_gases(const vl_ctable *t, const int idx[VL_CT_NDIM], vl_column_gases *gs)
+{
+    const double g = t->opts.g;
+    gs->co2 = vl_ct_grid_p(VL_CT_CO2, idx[VL_CT_CO2]) / g;
+    gs->bg = vl_ct_grid_p(VL_CT_BG, idx[VL_CT_BG]) / g;
+    gs->h2 = vl_ct_grid_p(VL_CT_H2, idx[VL_CT_H2]) / g;
+    gs->water = idx[VL_CT_WATER] >= WATER_UNLIMITED ? HUGE_VAL
+                                                    : vl_ct_grid_p(VL_CT_WATER, idx[VL_CT_WATER]) / g;
+}
+
+/* Whether node nd's surface still holds water at temperature index j (then its column
+ * is that of unlimited water: the saturated points are shared by every inventory). */
+static int keeps_water(const vl_ctable *t, vl_ct_node *nd, int j)
+{
+    unsigned char s = atomic_load_explicit(&nd->saturated[j], memory_order_relaxed);
+    if (!s) {
+        vl_column_gases gs;
+        node_gases(t, nd->idx, &gs);
+        s = vl_profile_vapour(&gs, t->opts.g, vl_ct_grid_t(j)) < gs.water ? 1 : 2;
+        atomic_store_explicit(&nd->saturated[j], s, memory_order_relaxed);
+    }
+    return s == 1;
+}
+
 /* Compute the point of node nd at temperature index j and publish it. */
 static vl_column_point *compute(vl_ctable *t, vl_ct_lookaside *la, vl_ct_node *nd, int j)
 {
@@ -202,12 +259,12 @@ static vl_column_point *compute(vl_ctable *t, vl_ct_lookaside *la, vl_ct_node *n
     vl_column_point *p = malloc(sizeof *p);
     if (!p)
         return NULL;
-    const double g = t->opts.g;
-    vl_column_gases gs = {vl_ct_grid_p(VL_CT_CO2, nd->idx[VL_CT_CO2]) / g,
-                          vl_ct_grid_p(VL_CT_BG, nd->idx[VL_CT_BG]) / g,
-                          vl_ct_grid_p(VL_CT_H2, nd->idx[VL_CT_H2]) / g,
-                          vl_ct_grid_p(VL_CT_WATER, nd->idx[VL_CT_WATER]) / g};
-    vl_column_point_eval(&t->opts, &gs, vl_ct_grid_t(j), p);
+    vl_column_gases gs;
+    node_gases(t, nd->idx, &gs);
+    vl_column_opts o = t->opts;
+    if (nd->idx[VL_CT_WATER] < WATER_UNLIMITED) /* the water is all in the air: no ocean feeds clouds */
+        o.cloud.tau_sw = 0.0;
+    vl_column_point_eval(&o, &gs, vl_ct_grid_t(j), p);
     pthread_mutex_lock(&nd->lock);
     vl_column_point *have = atomic_load_explicit(&nd->pt[j], memory_order_acquire);
     if (have) {
@@ -215,6 +272,7 @@ static vl_column_point *compute(vl_ctable *t, vl_ct_lookaside *la, vl_ct_node *n
         p = have;
     } else {
         atomic_store_explicit(&nd->pt[j], p, memory_order_release);
+        vl_ct_disk_note(t->key, nd->idx, j, p);
     }
     pthread_mutex_unlock(&nd->lock);
     la->points++;
@@ -228,6 +286,13 @@ const vl_column_point *vl_ctable_point(vl_ctable *t, vl_ct_lookaside *la,
     vl_ct_node *nd = lookup(t, la, idx);
     if (!nd)
         return NULL;
+    if (idx[VL_CT_WATER] < WATER_UNLIMITED && keeps_water(t, nd, j)) {
+        int sat[VL_CT_NDIM];
+        memcpy(sat, idx, sizeof sat);
+        sat[VL_CT_WATER] = WATER_UNLIMITED;
+        if (!(nd = lookup(t, la, sat)))
+            return NULL;
+    }
     vl_column_point *p = atomic_load_explicit(&nd->pt[j], memory_order_acquire);
     return p ? p : compute(t, la, nd, j);
 }

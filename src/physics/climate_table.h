@@ -12,14 +12,14 @@
 
 #include "volev/column.h"
 
-/* Surface temperature grid: 150-400 K in 2 K steps, to 1000 K in 10 K, to 3000 K in
- * 25 K steps. */
-#define VL_CT_NT 266
+/* Surface temperature grid: 150-400 K in 5 K steps, to 1000 K in 20 K, to 3000 K in
+ * 50 K steps. */
+#define VL_CT_NT 121
 double vl_ct_grid_t(int j);
 /* Fractional grid index of t, clamped to the grid. */
 double vl_ct_grid_index(double t_k);
 
-/* Pressure grids (log10 Pa, 4 per decade): water inventory 1e-1..1e10 Pa, CO2 and the
+/* Pressure grids (log10 Pa, 3 per decade): water inventory 1e-1..1e10 Pa, CO2 and the
  * background 1e-3..1e9 Pa; H2: 0, then 1e1..1e9 Pa at 2 per decade. */
 enum { VL_CT_WATER, VL_CT_CO2, VL_CT_BG, VL_CT_H2, VL_CT_NDIM };
 extern const int vl_ct_size[VL_CT_NDIM];

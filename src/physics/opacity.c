@@ -17,10 +17,10 @@
 #include "volev/reservoir.h"
 #include "volev/units.h"
 
-/* g intervals [0, .3, .6, .8, .9, .97, .99, .998, 1]: fine near g = 1, where the
- * strong line centres sit (common practice of k-distribution schemes). */
-static const double g_edge[VL_NG + 1] = {0.0, 0.3, 0.6, 0.8, 0.9, 0.97, 0.99, 0.998, 1.0};
-const double vl_g_weight[VL_NG] = {0.3, 0.3, 0.2, 0.1, 0.07, 0.02, 0.008, 0.002};
+/* g intervals [0, .5, .8, .93, .98, .995, 1]: fine near g = 1, where the strong line
+ * centres sit (common practice of k-distribution schemes). */
+static const double g_edge[VL_NG + 1] = {0.0, 0.5, 0.8, 0.93, 0.98, 0.995, 1.0};
+const double vl_g_weight[VL_NG] = {0.5, 0.3, 0.13, 0.05, 0.015, 0.005};
 
 /* Per band: integrated line intensity at 296 K (cm/molecule, summed over the band's
  * lines), the exponent n of its temperature scaling (T/296 K)^n (positive where hot
@@ -42,7 +42,7 @@ static const line_band h2o_lines[VL_NBANDS] = {
     {1.0e-20, 4.0, 0.01},   {1.0e-20, 4.0, 0.01},  {1.0e-18, 1.0, 0.02},  {6.5e-18, 0.0, 0.05},
     {6.0e-20, 4.0, 0.005},  {8.5e-19, 0.5, 0.03},  {1.0e-19, 3.0, 0.01},  {2.0e-19, 0.5, 0.03},
     {5.0e-21, 4.0, 0.005},  {2.0e-20, 1.0, 0.02},  {2.0e-21, 4.0, 0.005}, {1.0e-20, 1.0, 0.02},
-    {3.0e-21, 2.0, 0.01},   {5.0e-22, 2.0, 0.01},  {0, 0, 0.01},          {0, 0, 0.01},
+    {1.2e-20, 2.0, 0.01},   {1.5e-21, 2.0, 0.01},  {1.0e-22, 2.0, 0.01},  {2.0e-23, 2.0, 0.01},
     {0, 0, 0.01},           {0, 0, 0.01}};
 
 static const line_band co2_lines[VL_NBANDS] = {

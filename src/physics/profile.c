@@ -1,6 +1,7 @@
 /* profile.c: the column's temperature and composition (profile.h).
  *
- * Levels are fixed in log pressure from the surface to p_top = min(1e-2 Pa, 1e-5 p_s).
+ * Levels are fixed in log pressure from the surface to p_top = min(1e-2 Pa, 1e-5 p_s),
+ * stretched so that they are closer near the surface (LEVEL_STRETCH).
  * Between levels the state is carried upward in ln p with midpoint (RK2) substeps:
  *  - unsaturated: the dry adiabat of the mixture, d ln T / d ln p = R / (M c_p), vapour
  *    included as a non-condensing gas (this holds above water's critical point too);
@@ -30,6 +31,11 @@
 
 #define SUBSTEPS 4
 #define P_TOP_PA 1e-2
+/* Levels at ln p = ln p_s + (ln p_top - ln p_s) (k/(n-1))^LEVEL_STRETCH: closer together
+ * near the surface, where the troposphere emits, than in the stratosphere. */
+#ifndef LEVEL_STRETCH
+#define LEVEL_STRETCH 1.6
+#endif
 
 static const int gas_species[VL_NGASES] = {VL_SP_H2O, VL_SP_CO2, VL_SP_N2, VL_SP_O2, VL_SP_H2};
 static const double gas_cp[VL_NGASES] = {VL_WATER_CP_VAPOUR, VL_CP_CO2, VL_CP_N2, VL_CP_O2,
@@ -189,7 +195,7 @@ void vl_profile_build(const vl_column_gases *gs, double g, double t_s, double t_
     out->p_trop = ps;
     for (int k = 1; k < n; k++) {
         int was_strat = s.strat;
-        climb(&s, log(ps) + (log(ptop) - log(ps)) * k / (n - 1));
+        climb(&s, log(ps) + (log(ptop) - log(ps)) * pow((double)k / (n - 1), LEVEL_STRETCH));
         if (s.strat && !was_strat)
             out->p_trop = exp(s.lnp);
         record(&s, out, k);

@@ -107,8 +107,13 @@ static void cloud_depths(const vl_profile *pr, const vl_cloud *cl, double tau, d
     memset(extra, 0, (size_t)nl * sizeof extra[0]);
     if (!cl || !(tau > 0.0))
         return;
-    /* levels are evenly spaced in ln p from the surface */
-    double x = -log(cl->p_ratio) / log(pr->p[0] / pr->p[nl]) * nl;
+    /* the cloud's fractional level, linear in ln p between levels */
+    double lp = log(cl->p_ratio * pr->p[0]), x = 0.5;
+    for (int k = 0; k < nl; k++)
+        if (log(pr->p[k + 1]) <= lp) {
+            x = k + (log(pr->p[k]) - lp) / (log(pr->p[k]) - log(pr->p[k + 1]));
+            break;
+        }
     x = x < 0.5 ? 0.5 : x > nl - 1.5 ? nl - 1.5 : x;
     int k = (int)(x - 0.5);
     double f = x - 0.5 - k;
@@ -139,12 +144,18 @@ static double up_flux(const band_tau *bt, int nl, const double *bl, const double
     return f;
 }
 
-static double band_olr(const band_tau *bt, const vl_profile *pr, int b, const double *extra)
+/* Planck fluxes of band b at every level. */
+static void planck_levels(const vl_profile *pr, int b, double *bl)
 {
-    double bl[VL_PROFILE_LEVELS];
     for (int k = 0; k < pr->n; k++)
         bl[k] = vl_planck_band(b, pr->t[k]);
-    if (bl[0] < 1e-12 * VL_SIGMA_SB * pow(pr->t[0], 4.0))
+}
+
+static double band_olr(const band_tau *bt, const vl_profile *pr, const double *bl,
+                       const double *extra)
+{
+    double t2 = pr->t[0] * pr->t[0];
+    if (bl[0] < 1e-12 * VL_SIGMA_SB * t2 * t2)
         return bl[0];
     double olr = 0.0;
     for (int i = 0; i < nint(bt, 0); i++)
@@ -157,11 +168,12 @@ double vl_radiation_band_olr(const vl_opacity_scales *s, const vl_profile *pr, d
 {
     band_tau t;
     vl_opacity_layer ol[NLAYERS];
-    double none[NLAYERS];
+    double none[NLAYERS], bl[VL_PROFILE_LEVELS];
     prepare_layers(pr, g, ol);
     band_depths(s, pr->n - 1, ol, b, &t);
     cloud_depths(pr, NULL, 0.0, none);
-    return band_olr(&t, pr, b, none);
+    planck_levels(pr, b, bl);
+    return band_olr(&t, pr, bl, none);
 }
 
 double vl_radiation_olr(const vl_opacity_scales *s, const vl_profile *pr, double g)
@@ -170,11 +182,12 @@ double vl_radiation_olr(const vl_opacity_scales *s, const vl_profile *pr, double
     double none[NLAYERS];
     prepare_layers(pr, g, ol);
     cloud_depths(pr, NULL, 0.0, none);
-    double olr = 0.0;
+    double olr = 0.0, bl[VL_PROFILE_LEVELS];
     for (int b = 0; b < VL_NBANDS; b++) {
         band_tau t;
         band_depths(s, pr->n - 1, ol, b, &t);
-        olr += band_olr(&t, pr, b, none);
+        planck_levels(pr, b, bl);
+        olr += band_olr(&t, pr, bl, none);
     }
     return olr;
 }
@@ -190,9 +203,9 @@ static void layer_rt(double tau, double omega, double *r, double *t)
         *t = 1.0 / den;
         return;
     }
-    double e2 = exp(-2.0 * kt), den = k * (1.0 + e2) + g1 * (1.0 - e2);
+    double e1 = exp(-kt), e2 = e1 * e1, den = k * (1.0 + e2) + g1 * (1.0 - e2);
     *r = g2 * (1.0 - e2) / den;
-    *t = 2.0 * k * exp(-kt) / den;
+    *t = 2.0 * k * e1 / den;
 }
 
 /* vl_rayleigh_air of every band, computed once. */
@@ -282,9 +295,11 @@ void vl_radiation_eval(const vl_opacity_scales *s, const vl_profile *pr, double 
     out->olr[0] = out->olr[1] = 0.0;
     for (int b = 0; b < VL_NBANDS; b++) {
         band_tau bt;
+        double bl[VL_PROFILE_LEVELS];
         band_depths(s, nl, ol, b, &bt);
-        out->olr[0] += band_olr(&bt, pr, b, none);
-        out->olr[1] += cl ? band_olr(&bt, pr, b, cloud_lw) : 0.0;
+        planck_levels(pr, b, bl);
+        out->olr[0] += band_olr(&bt, pr, bl, none);
+        out->olr[1] += cl ? band_olr(&bt, pr, bl, cloud_lw) : 0.0;
         if (b >= VL_SW_FIRST)
             band_starlight(&bt, pr, g, b, cl ? cloud_sw : NULL, out);
     }
