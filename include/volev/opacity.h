@@ -37,7 +37,8 @@ typedef struct vl_opacity_scales {
     double h2o_nir_lines;      /* H2O lines from VL_NIR_CM up (2.7 um and shorter) */
     double co2_lines;
     double h2o_continuum;
-    double cia;
+    double co2_continuum;      /* CO2-CO2 collision-induced and far-wing absorption */
+    double cia;                /* the other pairs: N2-N2, H2-H2, H2-N2 */
 } vl_opacity_scales;
 
 /* Pairs with collision-induced absorption. */

@@ -97,6 +97,7 @@ typedef struct vl_climate_params {
     double h2o_nir_line_scale;
     double co2_line_scale;
     double h2o_cont_scale;
+    double co2_cont_scale;
     double cia_scale;
     double strat_offset_k;     /* stratosphere = skin temperature - this */
     int albedo_mode;           /* enum vl_albedo_mode */

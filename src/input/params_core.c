@@ -216,8 +216,12 @@ const vl_param vl_core_params[] = {
     REAL("climate.column.h2o_continuum_scale", "", 1.0, 1.0, 0.0, 100.0, climate.h2o_cont_scale,
          "factor on the H2O continuum",
          "1: Roberts, Selby & Biberman 1976 (Appl. Opt. 15:2085) in the window", COLUMN_ONLY),
+    REAL("climate.column.co2_continuum_scale", "", 1.0, 3.0, 0.0, 1000.0, climate.co2_cont_scale,
+         "factor on the CO2-CO2 continuum (collision-induced and far-wing absorption)",
+         "calibration: maximum CO2 greenhouse at S_eff 0.3507 (Kopparapu et al. 2013, ApJ "
+         "765:131, erratum ApJ 770:82); docs/model.md section 3.4", COLUMN_ONLY),
     REAL("climate.column.cia_scale", "", 1.0, 1.0, 0.0, 100.0, climate.cia_scale,
-         "factor on collision-induced absorption (CO2-CO2, N2-N2, H2-H2, H2-N2)",
+         "factor on the other collision-induced absorption (N2-N2, H2-H2, H2-N2)",
          "1: the tabulated coefficients (from memory)", COLUMN_ONLY),
     REAL("climate.column.stratosphere_offset_k", "K", 1.0, 14.0, 0.0, 100.0, climate.strat_offset_k,
          "stratosphere and cold trap this much colder than the skin temperature (OLR/2 sigma)^(1/4)",
@@ -262,7 +266,7 @@ const vl_param vl_core_params[] = {
          "level of the cloud layer: its pressure over the surface pressure",
          "low cloud near 850 hPa, where Earth's most reflective (stratocumulus) decks sit, "
          "common practice", COLUMN_ONLY),
-    REAL("climate.column.cloud_optical_depth", "", 1.0, 9.8, 0.0, 1e3, climate.cloud_tau,
+    REAL("climate.column.cloud_optical_depth", "", 1.0, 7.7, 0.0, 1e3, climate.cloud_tau,
          "visible optical depth of the cloud layer (thermal: half of it)",
          "calibration: present Earth 288 K (docs/model.md section 3.4)", COLUMN_ONLY),
 

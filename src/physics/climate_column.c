@@ -209,7 +209,8 @@ static vl_column_opts options(const vl_scenario *sc, double g)
     memset(&o, 0, sizeof o); /* the table registry compares options with memcmp */
     o.g = g;
     o.scales = (vl_opacity_scales){cp->h2o_line_scale, cp->h2o_nir_line_scale, cp->co2_line_scale,
-                                   cp->h2o_cont_scale, cp->cia_scale};
+                                   cp->h2o_cont_scale, cp->co2_cont_scale,
+                                   cp->cia_scale};
     o.strat_offset_k = cp->strat_offset_k;
     if (cp->cloud_fraction > 0.0)
         o.cloud = (vl_cloud){cp->cloud_p_ratio, cp->cloud_tau, 0.5 * cp->cloud_tau};

@@ -48,8 +48,8 @@ static const line_band h2o_lines[VL_NBANDS] = {
 static const line_band co2_lines[VL_NBANDS] = {
     {0, 0, 0.05},         {0, 0, 0.05},         {0, 0, 0.05},       {2.0e-20, 2.0, 0.02},
     {4.0e-19, 2.0, 0.02}, {6.5e-18, 0.0, 0.05}, {9.0e-19, 2.0, 0.02}, {1.0e-19, 2.0, 0.02},
-    {2.0e-22, 6.0, 0.01}, {3.0e-22, 6.0, 0.01}, {0, 0, 0.02},       {0, 0, 0.02},
-    {0, 0, 0.02},         {0, 0, 0.02},         {2.0e-21, 2.0, 0.02}, {3.0e-20, 2.0, 0.02},
+    {2.0e-22, 6.0, 0.03}, {3.0e-22, 6.0, 0.03}, {0, 0, 0.02},       {0, 0, 0.02},
+    {0, 0, 0.02},         {1.0e-23, 6.0, 0.03}, {2.0e-21, 2.0, 0.02}, {3.0e-20, 2.0, 0.02},
     {9.5e-17, 0.0, 0.05}, {1.0e-21, 4.0, 0.02}, {0, 0, 0.02},       {2.6e-18, 0.5, 0.03},
     {0, 0, 0.02},         {5.0e-20, 1.0, 0.02}, {5.0e-21, 1.0, 0.02}, {1.0e-21, 1.0, 0.02},
     {0, 0, 0.02},         {0, 0, 0.02},         {0, 0, 0.02},       {0, 0, 0.02},
@@ -75,12 +75,18 @@ static const double h2o_self_cont[VL_NBANDS] = {
 
 /* Collision-induced absorption at 296 K, cm^-1 amagat^-2, and its temperature exponent
  * (T/296)^-n; from memory of the published spectra: CO2-CO2 far infrared and the
- * 1200-1500 cm^-1 dyad region (Gruszka & Borysow 1997; Baranov et al. 2004), N2-N2
- * roto-translational and fundamental (Borysow & Frommhold 1986), H2-H2 (Borysow et al.
- * 2001) and H2-N2 (Wordsworth & Pierrehumbert 2013, Science 339:64). */
+ * 1200-1500 cm^-1 dyad region (Gruszka & Borysow 1997, Icarus 129:172; Baranov et al.
+ * 2004, J. Mol. Spectrosc. 228:432), N2-N2 roto-translational and fundamental (Borysow
+ * & Frommhold 1986), H2-H2 (Borysow et al. 2001) and H2-N2 (Wordsworth & Pierrehumbert
+ * 2013, Science 339:64). The CO2 row also carries, as the same density-squared
+ * continuum, the sub-Lorentzian far wings of the strong bands that dense CO2 shows
+ * between them (Perrin & Hartmann 1989, JQSRT 42:311) and the near-infrared window
+ * continuum that Venus's night-side emission requires (Bezard et al. 2011, Icarus
+ * 216:173), both from memory. */
 static const double cia_k[VL_NCIA][VL_NBANDS] = {
-    {1.2e-6, 8e-7, 2e-7, 3e-8, 0, 0, 0, 0, 0, 0, 0, 2.5e-6, 1.5e-6, 0, 0, 0, 0, 0, 0, 0, 0, 0,
-     0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0},
+    {1.2e-6, 8e-7, 2e-7, 3e-8, 5e-8, 1e-7, 5e-8, 2e-8, 5e-9, 1e-8, 1.5e-7, 2.5e-6, 1.5e-6,
+     5e-9, 2e-9, 1e-8, 1e-7, 3e-8, 5e-9, 1e-8, 2e-8, 1e-8, 3e-9, 1e-9, 1e-9, 5e-10, 3e-10,
+     0, 0, 0, 0, 0, 0, 0},
     {1e-7, 3e-8, 5e-9, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 3e-8, 1e-8, 0, 0, 0, 0, 0, 0,
      0, 0, 0, 0, 0, 0, 0, 0, 0, 0},
     {5e-7, 1.5e-6, 1e-6, 8e-7, 4e-7, 4e-7, 4e-7, 4e-7, 2e-7, 5e-8, 5e-8, 0, 0, 0, 0, 0, 0, 0,
@@ -257,6 +263,6 @@ double vl_opacity_grey_tau(const vl_opacity_scales *s, int b, const vl_opacity_l
     double tau = c * (ol->cont_self + ol->cont_foreign);
     for (int k = 0; k < VL_NCIA; k++)
         if (cia_k[k][b] > 0.0)
-            tau += s->cia * cia_k[k][b] * ol->cia[k];
+            tau += (k == VL_CIA_CO2_CO2 ? s->co2_continuum : s->cia) * cia_k[k][b] * ol->cia[k];
     return tau;
 }
