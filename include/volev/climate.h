@@ -33,10 +33,11 @@ int vl_climate_classify(const vl_climate *c, vl_climate_work *w, double water_kg
                         const vl_env *env);
 
 /* The energy-balance curves at the instant in env (star and dry atmosphere): for each
- * surface temperature of the climate's grid, OLR, absorbed stellar flux, planetary
- * albedo and stratospheric H2O mixing ratio. wet: over an ocean (1) or without water (0).
- * Returns the number of points (at most VL_CURVE_MAX), or 0 if the backend has no
- * such curves (hz_fit). */
+ * surface temperature of the climate's grid (t_k NULL) or of t_k[0..n-1] (n at most
+ * VL_CURVE_MAX), OLR, absorbed stellar flux, planetary albedo and stratospheric H2O
+ * mixing ratio, as the balance interpolates them. wet: over an ocean (1) or without
+ * water (0). The thresholds s_runaway and s_moist always come from the grid. Returns
+ * the number of points, or 0 if the backend has no such curves (hz_fit). */
 #define VL_CURVE_MAX 512
 typedef struct vl_curve {
     double t_k[VL_CURVE_MAX];
@@ -48,7 +49,7 @@ typedef struct vl_curve {
     double s_moist;                 /* S_eff at which it reaches the moist greenhouse (inf: never) */
 } vl_curve;
 size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
-                        vl_curve *out);
+                        const double *t_k, size_t n, vl_curve *out);
 
 /* Table statistics of a workspace: points computed so far and the wall time spent. */
 void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s);

@@ -123,7 +123,7 @@ int vl_cli_balance(int argc, char **argv)
         vl_work *w = st.code == VL_OK ? vl_work_new(m, &st) : NULL;
         if (st.code == VL_OK) {
             vl_model_env(m, w, t, y, wet ? VL_REGIME_TEMPERATE : VL_REGIME_DRY, &env);
-            n = vl_climate_curve(m->climate, vl_work_climate(w), &env, wet, cv);
+            n = vl_climate_curve(m->climate, vl_work_climate(w), &env, wet, NULL, 0, cv);
             if (n == 0)
                 vl_fail(&st, VL_ERR_INPUT, sc->path, 0,
                         "balance needs climate.model = \"column\" (the habitable-zone fits have "

@@ -172,26 +172,37 @@ static void thresholds(const column *c, vl_curve *cv, size_t n, double t_hot)
     cv->s_moist = isnan(s_moist) ? INFINITY : s_moist / VL_S_EARTH;
 }
 
+/* The curves of balance b at t_k[0..n-1] into out (from index 0). */
+static void fill_curve(const column *c, column_work *w, vl_balance *b, const vl_env *env,
+                       const double *t_k, size_t n, vl_curve *out)
+{
+    for (size_t i = 0; i < n; i++) {
+        double t = t_k[i];
+        out->t_k[i] = t;
+        out->olr[i] = vl_balance_olr(b, c->table, &w->la, &c->surface, t);
+        out->albedo[i] = vl_balance_albedo(b, c->table, &w->la, &c->surface, t);
+        out->absorbed[i] = env->instellation * (1.0 - out->albedo[i]) / 4.0;
+        out->f_strat[i] = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
+    }
+}
+
 static size_t column_curve(const void *state, void *work, const vl_env *env, int wet,
-                           vl_curve *out)
+                           const double *t_k, size_t n, vl_curve *out)
 {
     const column *c = state;
     column_work *w = work;
     double water = env->ocean_kg + env->vapour_kg;
     vl_balance *b = balance_of(c, w, wet, wet ? water : 0.0, env);
-    size_t n = 0;
-    for (int j = 0; j < VL_CT_NT && n < VL_CURVE_MAX; j++, n++) {
-        double t = vl_ct_grid_t(j);
-        out->t_k[n] = t;
-        out->olr[n] = vl_balance_olr(b, c->table, &w->la, &c->surface, t);
-        out->albedo[n] = vl_balance_albedo(b, c->table, &w->la, &c->surface, t);
-        out->absorbed[n] = env->instellation * (1.0 - out->albedo[n]) / 4.0;
-        out->f_strat[n] = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
-    }
-    if (b->oom)
-        return 0;
-    thresholds(c, out, n, b->t_hot);
-    return n;
+    double grid[VL_CT_NT];
+    for (int j = 0; j < VL_CT_NT; j++)
+        grid[j] = vl_ct_grid_t(j);
+    fill_curve(c, w, b, env, grid, VL_CT_NT, out); /* the thresholds come from the grid */
+    thresholds(c, out, VL_CT_NT, b->t_hot);
+    if (t_k)
+        fill_curve(c, w, b, env, t_k, n < VL_CURVE_MAX ? n : VL_CURVE_MAX, out);
+    else
+        n = VL_CT_NT;
+    return b->oom ? 0 : n;
 }
 
 static void column_stats(const void *work, long *nodes, double *build_s)
