@@ -155,7 +155,7 @@ START_TEST(ice_albedo_hysteresis)
     ck_assert_msg(e.t_surf_k > 273.15, "warm branch at %g K", e.t_surf_k);
     ck_assert_int_eq(classify(&p, &e), VL_REGIME_TEMPERATE);
     /* brighter: the frozen branch vanishes (thaw); dimmer: the temperate one (freeze) */
-    env_at(&p, 1.1, VL_REGIME_FROZEN, &e);
+    env_at(&p, 1.3, VL_REGIME_FROZEN, &e);
     ck_assert_int_ne(classify(&p, &e), VL_REGIME_FROZEN);
     env_at(&p, 0.75, VL_REGIME_TEMPERATE, &e);
     ck_assert_int_eq(classify(&p, &e), VL_REGIME_FROZEN);

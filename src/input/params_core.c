@@ -202,7 +202,7 @@ const vl_param vl_core_params[] = {
     REAL("climate.moist_threshold", "", 1.0, 3e-3, 1e-6, 1.0, climate.moist_threshold,
          "stratospheric H2O mixing ratio above which the climate is a moist greenhouse",
          "Kasting 1988, Icarus 74:472 (3e-3); Popp et al. 2016 use 1e-3", COLUMN_ONLY),
-    REAL("climate.column.h2o_line_scale", "", 1.0, 0.05, 0.0, 100.0, climate.h2o_line_scale,
+    REAL("climate.column.h2o_line_scale", "", 1.0, 0.03, 0.0, 100.0, climate.h2o_line_scale,
          "factor on the tabulated thermal H2O line intensities (below 2000 cm^-1; "
          "src/physics/opacity.c, from memory)",
          "calibration: steam-column OLR limit 282 W/m^2 at 9.81 m/s^2 (Goldblatt et al. 2013, "
@@ -245,7 +245,7 @@ const vl_param vl_core_params[] = {
     REAL("climate.column.ice_albedo_infrared", "", 1.0, 0.4, 0.0, 1.0, climate.ice_albedo_nir,
          "albedo of snow and ice above 0.7 um (lower: ice absorbs the near infrared)",
          "Shields et al. 2013, from memory", COLUMN_ONLY),
-    REAL("climate.column.ice_cover_temp_k", "K", 1.0, 225.0, 150.0, 300.0, climate.ice_cover_k,
+    REAL("climate.column.ice_cover_temp_k", "K", 1.0, 240.0, 150.0, 300.0, climate.ice_cover_k,
          "mean surface temperature below which the planet is fully ice-covered",
          "Budyko-Sellers-type ramp, common practice", COLUMN_ONLY),
     REAL("climate.column.ice_free_temp_k", "K", 1.0, 273.0, 150.0, 320.0, climate.ice_free_k,
@@ -266,7 +266,7 @@ const vl_param vl_core_params[] = {
          "level of the cloud layer: its pressure over the surface pressure",
          "low cloud near 850 hPa, where Earth's most reflective (stratocumulus) decks sit, "
          "common practice", COLUMN_ONLY),
-    REAL("climate.column.cloud_optical_depth", "", 1.0, 7.7, 0.0, 1e3, climate.cloud_tau,
+    REAL("climate.column.cloud_optical_depth", "", 1.0, 5.7, 0.0, 1e3, climate.cloud_tau,
          "visible optical depth of the cloud layer (thermal: half of it)",
          "calibration: present Earth 288 K (docs/model.md section 3.4)", COLUMN_ONLY),
 

@@ -12,6 +12,18 @@
  *    so d ln T / d ln p = 1 / [(p_a/p) S + (p_c/p) L/(R_c T)]; in a pure steam column
  *    this is the Clausius-Clapeyron curve. The latent heat blends sublimation into
  *    vaporisation over 272.16-274.16 K so the slope has no step at the triple point;
+ *  - where air rising on the dry adiabat becomes supersaturated, condensation at
+ *    constant pressure warms it until it is just saturated (saturation adjustment:
+ *    c_p dT = L dq, common practice of cloud models): in a dilute column it removes the
+ *    excess vapour at almost constant temperature, in a steam column it puts the
+ *    temperature back on the saturation curve; on the moist adiabat (whose lapse rate
+ *    holds the latent heat) the vapour is simply what saturation allows;
+ *  - a surface above water's critical point under more water than the critical
+ *    pressure: if the adiabat from the surface reaches the critical temperature while
+ *    the water's partial pressure still exceeds the critical pressure, the water there
+ *    is a compressed liquid, an ocean on top of the hot supercritical layer; the
+ *    radiating column is then that of an ocean at the critical temperature under its
+ *    saturated steam (vl_profile_build);
  *  - CO2 condenses where its partial pressure exceeds saturation (co2.h): the
  *    temperature is held on its saturation curve (the limit of a CO2 pseudo-adiabat,
  *    as in Kasting 1991, Icarus 94:1), its mixing ratio unchanged (documented);
@@ -71,6 +83,7 @@ typedef struct {
     double x_v;                 /* water mole fraction */
     double dry[VL_NGASES];      /* composition of the dry part (sums to 1, no H2O) */
     int strat;                  /* above the tropopause */
+    int moist;                  /* the last substep followed the moist adiabat */
     double t_strat;
 } state;
 
@@ -91,6 +104,24 @@ static int saturated(const state *s, double p, double t)
     return t < VL_WATER_TC_K && s->x_v > 0.0 && s->x_v * p >= vl_water_psat(t);
 }
 
+/* d ln p_sat / d ln T of water at t (centred difference, one-sided at the critical
+ * point; the latent-heat blend near the triple point is the ice-liquid switch of
+ * vl_water_psat, smoothed the same way). */
+static double saturation_slope(double t)
+{
+    const double e = 1e-4;
+    double hi = fmin(t * (1.0 + e), VL_WATER_TC_K), lo = hi - 2.0 * e * t;
+    double cc = (log(vl_water_psat(hi)) - log(vl_water_psat(lo))) / log(hi / lo);
+    /* blend: at the triple point the curve's slope jumps (sublimation to vaporisation) */
+    double u = (t - (VL_WATER_TTRIPLE_K - 1.0)) / 2.0;
+    if (u > 0.0 && u < 1.0) {
+        double w_ice = 1.0 - u * u * (3.0 - 2.0 * u);
+        double m_w = vl_species_molar_mass(VL_SP_H2O);
+        cc = latent(t) / (VL_R_GAS / m_w * t) * w_ice + cc * (1.0 - w_ice);
+    }
+    return cc;
+}
+
 /* d ln T / d ln p at (ln p, t). */
 static double lapse(const state *s, double lnp, double t)
 {
@@ -104,8 +135,12 @@ static double lapse(const state *s, double lnp, double t)
         double cp = (x_v * m_w * VL_WATER_CP_VAPOUR + (1.0 - x_v) * m_a * cp_a) / m;
         return VL_R_GAS / (m * cp);
     }
-    double pc = vl_water_psat(t), pa = p - pc, l = latent(t);
-    double r_a = VL_R_GAS / m_a, r_c = VL_R_GAS / m_w, cc = l / (r_c * t);
+    /* L / (R_c T) is the slope d ln p_sat / d ln T of the saturation curve itself (the
+     * ideal-gas Clausius-Clapeyron relation fails near the critical point, where the
+     * Watson latent heat vanishes but the curve stays steep): the effective latent heat
+     * keeps a steam column exactly on vl_water_psat */
+    double pc = vl_water_psat(t), pa = p - pc, cc = saturation_slope(t);
+    double r_a = VL_R_GAS / m_a, r_c = VL_R_GAS / m_w, l = cc * r_c * t;
     if (!(pa > 0.0))
         return 1.0 / cc;
     double r = (m_w / m_a) * pc / pa;
@@ -114,12 +149,52 @@ static double lapse(const state *s, double lnp, double t)
     return 1.0 / ((pa / p) * sl + (pc / p) * cc);
 }
 
+/* Water's mass fraction at mole fraction x_v over a dry part of molar mass m_a. */
+static double mass_fraction(double x_v, double m_a)
+{
+    double m_w = vl_species_molar_mass(VL_SP_H2O);
+    return x_v * m_w / (x_v * m_w + (1.0 - x_v) * m_a);
+}
+
+/* Saturation adjustment at pressure p: the temperature t' >= t at which the heat of the
+ * condensed water, L (q - q_sat(t')), has warmed the air by c_p (t' - t); the water
+ * left is saturated at t'. Bisection (the heat balance rises monotonically in t'),
+ * bracketed by t and the saturation temperature of the water's partial pressure, or
+ * the critical temperature when that exceeds the critical pressure. */
+static void adjust(state *s, double p)
+{
+    double m_a, cp_a;
+    dry_props(s, &m_a, &cp_a);
+    double q = mass_fraction(s->x_v, m_a);
+    double cp = q * VL_WATER_CP_VAPOUR + (1.0 - q) * cp_a, l = latent(s->t);
+    double lo = s->t, hi = VL_WATER_TC_K * (1.0 - 1e-9);
+    if (s->x_v * p < VL_WATER_PC_PA)
+        hi = fmin(hi, vl_water_tsat(s->x_v * p));
+    for (int i = 0; i < 50 && hi - lo > 1e-6 * hi; i++) {
+        double t = 0.5 * (lo + hi);
+        double qs = mass_fraction(fmin(vl_water_psat(t) / p, s->x_v), m_a);
+        if (cp * (t - s->t) < l * (q - qs))
+            lo = t;
+        else
+            hi = t;
+    }
+    s->t = lo;
+    s->x_v = fmin(vl_water_psat(lo) / p, s->x_v);
+}
+
 /* After a substep: saturation, CO2 condensation and the tropopause. */
 static void settle(state *s)
 {
     double p = exp(s->lnp);
-    if (!s->strat && saturated(s, p, s->t))
+    /* on the moist adiabat the latent heat is in the lapse rate: the water left is
+     * what saturation allows; arriving from the dry adiabat, the overshoot is condensed
+     * with its heat */
+    int sat = !s->strat && saturated(s, p, s->t);
+    if (sat && s->moist)
         s->x_v = vl_water_psat(s->t) / p;
+    else if (sat)
+        adjust(s, p);
+    s->moist = sat;
     double p_co2 = (1.0 - s->x_v) * s->dry[1] * p;
     if (p_co2 > 0.0 && vl_co2_psat(s->t) < p_co2)
         s->t = vl_co2_tsat(p_co2);
@@ -177,6 +252,25 @@ static void surface(const vl_column_gases *gs, double g, double t_s, state *s, v
     out->saturated_surface = t_s < VL_WATER_TC_K && out->vapour < gs->water;
     s->t = t_s;
     s->strat = 0;
+    s->moist = out->saturated_surface;
+}
+
+/* Whether the adiabat from a surface above the critical temperature, whose air holds
+ * water at more than the critical pressure, reaches the critical temperature while the
+ * water's partial pressure still exceeds the critical pressure (a liquid envelope). */
+static int liquid_envelope(const state *s0, double p_s)
+{
+    if (s0->t < VL_WATER_TC_K || s0->x_v * p_s < VL_WATER_PC_PA)
+        return 0;
+    state s = *s0;
+    s.lnp = log(p_s);
+    while (s.t > VL_WATER_TC_K && s.x_v * exp(s.lnp) > VL_WATER_PC_PA) {
+        double h = -0.05, k1 = lapse(&s, s.lnp, s.t);
+        double k2 = lapse(&s, s.lnp + 0.5 * h, s.t * exp(0.5 * h * k1));
+        s.t *= exp(h * k2);
+        s.lnp += h;
+    }
+    return s.t <= VL_WATER_TC_K;
 }
 
 void vl_profile_build(const vl_column_gases *gs, double g, double t_s, double t_strat,
@@ -184,6 +278,18 @@ void vl_profile_build(const vl_column_gases *gs, double g, double t_s, double t_
 {
     state s;
     surface(gs, g, t_s, &s, out);
+    if (liquid_envelope(&s, out->p_surf)) {
+        /* radiatively an ocean at the critical temperature under saturated steam; the
+         * surface's own pressure and vapour are kept for the caller */
+        double p_true = out->p_surf, vapour = out->vapour;
+        vl_column_gases ocean = *gs;
+        ocean.water = HUGE_VAL;
+        vl_profile_build(&ocean, g, VL_WATER_TC_K * (1.0 - 1e-9), t_strat, out);
+        out->p_surf = p_true;
+        out->vapour = vapour;
+        out->saturated_surface = 0;
+        return;
+    }
     s.t_strat = t_strat < t_s ? t_strat : t_s;
     double ps = out->p_surf > 1e-30 ? out->p_surf : 1e-30;
     double ptop = fmin(P_TOP_PA, 1e-5 * ps);
