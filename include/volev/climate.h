@@ -56,12 +56,19 @@ void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_
 
 /* The column climate's table cache on disk (climate_disk.c). Off until configured:
  * folder NULL or "" turns it off; otherwise tables are read from and appended to
- * FOLDER/column-KEY.pts (the folder is made if missing). Returns VL_OK, or an I/O error
- * with st filled when the folder cannot be made. */
+ * FOLDER/column-KEY.pts (the folder and its parents are made if missing). Points
+ * buffered under the previous configuration are written first, and the previous error
+ * is forgotten. Returns VL_OK, or VL_ERR_IO with st filled (the cache then off) when
+ * the folder cannot be made. Tables made before the call are not read again. */
 int vl_climate_cache_configure(const char *folder, vl_status *st);
 /* Write every point computed since the last flush (safe to call at any time, from any
  * thread; also called at exit once configured). */
 void vl_climate_cache_flush(void);
+/* NULL, or the first write error of the cache since it was configured ("PATH: reason");
+ * the cache has then turned itself off for the rest of the process. A write error
+ * never fails a run: the program reports it as a warning. The text stays valid until
+ * the next vl_climate_cache_configure. */
+const char *vl_climate_cache_error(void);
 
 /* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
 enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,

@@ -100,6 +100,7 @@ int vl_cli_balance(int argc, char **argv)
     vl_status st;
     vl_scenario *sc;
     vl_model *m;
+    vl_cli_cache_start();
     if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
         vl_cli_args_free(&a);
         return VL_ERR_USAGE;
@@ -145,5 +146,6 @@ int vl_cli_balance(int argc, char **argv)
         vl_work_free(w);
         free(cv);
     }
+    vl_cli_cache_finish();
     return vl_cli_finish(&a, sc, m, &st);
 }
