@@ -151,6 +151,27 @@ START_TEST(hot_end)
 }
 END_TEST
 
+START_TEST(plateau_is_flat)
+{
+    /* Goldblatt et al. 2013 (fig. 1, from memory): between the critical point and the
+     * opening of the windows the OLR of a 1 TO steam atmosphere with a little air stays
+     * at its limit, whatever the surface temperature: the radiating upper column is the
+     * saturation curve, fixed by the water, not by the surface. Here: within 1 W/m^2
+     * (0.4 %) from 700 to 1500 K every 10 K (a spurious ripple of +-5 W/m^2 would put
+     * false stable equilibria on the hot branch). */
+    vl_column_opts o = default_opts(9.81);
+    vl_column_gases gs = {5e-3, 1.02e4, 0.0, VL_TO_KG / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH)};
+    double lo = HUGE_VAL, hi = -HUGE_VAL;
+    for (double t = 700.0; t <= 1500.0; t += 10.0) {
+        vl_column_point p;
+        vl_column_point_eval(&o, &gs, t, &p);
+        lo = fmin(lo, p.olr[0]);
+        hi = fmax(hi, p.olr[0]);
+    }
+    ck_assert_msg(hi - lo < 1.0, "OLR %g to %g W/m^2", lo, hi);
+}
+END_TEST
+
 START_TEST(cold_trap_opens)
 {
     /* Kasting 1988, Icarus 74:472: the cold trap's water rises by orders of magnitude
@@ -238,6 +259,7 @@ Suite *vl_suite_column(void)
     tcase_add_test(tc, planck_and_rayleigh);
     tcase_add_test(tc, steam_limit_and_gravity);
     tcase_add_test(tc, hot_end);
+    tcase_add_test(tc, plateau_is_flat);
     tcase_add_test(tc, cold_trap_opens);
     tcase_add_test(tc, co2_condenses);
     tcase_add_test(tc, rayleigh_albedo_and_star);

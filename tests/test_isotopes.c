@@ -78,6 +78,7 @@ START_TEST(fractionation_factors)
     double y[VL_NRES] = {0};
     y[VL_R_WATER] = VL_TO_KG;
     y[VL_R_N2] = 3.887e18;
+    y[VL_R_CO2] = 1e17; /* some CO2, most of it in the ocean: temperate, not a snowball */
     vl_env e;
     vl_model_env(m, vl_test_work(m), 4.57e9 * VL_YR, y, VL_REGIME_TEMPERATE, &e);
     ck_assert_int_eq(e.escape.h_limit, VL_HLIM_DIFFUSION);

@@ -10,6 +10,8 @@
  * so it is continuous with its first derivative. */
 #include "climate_balance.h"
 
+#include "volev/co2.h"
+
 #include <math.h>
 #include <string.h>
 
@@ -19,6 +21,7 @@
 #include "volev/water.h"
 
 #define T_MIN 150.0
+#define OVERLAP_K 5.0 /* half-width of the cold/warm branch overlap, K */
 #define T_MAX 3000.0
 #define WINDOW 6  /* cells searched around the last root before a whole-range scan */
 #define STRIDE 6  /* grid points between the samples of a whole-range scan */
@@ -98,6 +101,10 @@ void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double s
     memset(b->have, 0, sizeof b->have);
     b->t_cond = condensation_limit(key, g);
     b->t_hot = fmin(fmax(steam_point(key), VL_STEAM_FLOOR_K), b->t_cond);
+    /* a surface colder than CO2's frost point at its partial pressure would take the
+     * air's CO2 as ice: the surface is held there by the latent heat (atmospheric
+     * collapse itself is not modelled; docs/model.md section 3) */
+    b->t_floor = key->p[VL_CT_CO2] > 0.0 ? fmax(T_MIN, vl_co2_tsat(key->p[VL_CT_CO2])) : T_MIN;
     b->valid = 1;
 }
 
@@ -226,8 +233,14 @@ double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl
 /* Temperature range of branch br. */
 static void branch_range(const vl_balance *b, int br, double split_k, double *lo, double *hi)
 {
-    *lo = br == VL_BRANCH_WARM ? split_k : br == VL_BRANCH_HOT ? b->t_hot : T_MIN;
-    *hi = br == VL_BRANCH_COLD ? split_k : br == VL_BRANCH_WARM ? b->t_hot : T_MAX;
+    /* the cold and warm branches overlap by 2 OVERLAP_K around the split, so that a root
+     * that moves across it keeps its regime until it is clear of the other side
+     * (hysteresis: no chattering of freeze and thaw events around the split) */
+    *lo = br == VL_BRANCH_WARM ? split_k - OVERLAP_K : br == VL_BRANCH_HOT ? b->t_hot : b->t_floor;
+    *hi = br == VL_BRANCH_COLD ? split_k + OVERLAP_K : br == VL_BRANCH_WARM ? b->t_hot : T_MAX;
+    *lo = fmax(*lo, b->t_floor);
+    if (*hi < *lo)
+        *hi = *lo;
 }
 
 /* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve. */
@@ -333,21 +346,45 @@ int vl_balance_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_s
     return 1;
 }
 
+/* Whether grid point j comes closer to a balance than best (-1: none yet), skipping
+ * points next to an unstable crossing (N rising through zero): the ghost is the near
+ * miss of a vanished stable root, not an unstable equilibrium. */
+static int closer(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j,
+                  int best, int j0, int j1)
+{
+    double nj = net_at(b, t, la, s, j);
+    double below = j > j0 ? net_at(b, t, la, s, j - 1) : nj;
+    double above = j < j1 ? net_at(b, t, la, s, j + 1) : nj;
+    if (fmin(below, nj) < 0.0 && fmax(nj, above) > 0.0 && above > below)
+        return 0;
+    return best < 0 || fabs(nj) < fabs(net_at(b, t, la, s, best));
+}
+
 double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                         int br, double split_k)
 {
     double lo, hi;
     branch_range(b, br, split_k, &lo, &hi);
+    /* colder than any balance: the surface sits at the branch's floor */
+    if ((br == VL_BRANCH_COLD || br == VL_BRANCH_ANY) && vl_balance_net(b, t, la, s, lo) < 0.0)
+        return lo;
+    /* hotter than any balance: the surface sits at the grid's top (3000 K; hotter
+     * surfaces are outside the column's range, docs/model.md section 3) */
+    if ((br == VL_BRANCH_HOT || br == VL_BRANCH_ANY) && hi >= T_MAX &&
+        vl_balance_net(b, t, la, s, hi) > 0.0)
+        return hi;
     int j0 = (int)ceil(vl_ct_grid_index(lo)), j1 = (int)vl_ct_grid_index(hi);
     if (j1 < j0)
         j1 = j0;
-    int best = j0;
+    int best = -1;
     for (int j = j0; j <= j1; j += STRIDE) /* coarse, then around the best sample */
-        if (fabs(net_at(b, t, la, s, j)) < fabs(net_at(b, t, la, s, best)))
+        if (closer(b, t, la, s, j, best, j0, j1))
             best = j;
+    if (best < 0)
+        best = j0;
     int a = best - STRIDE > j0 ? best - STRIDE : j0, c = best + STRIDE < j1 ? best + STRIDE : j1;
     for (int j = a; j <= c; j++)
-        if (fabs(net_at(b, t, la, s, j)) < fabs(net_at(b, t, la, s, best)))
+        if (closer(b, t, la, s, j, best, j0, j1))
             best = j;
     if (best <= 0 || best >= VL_CT_NT - 1)
         return vl_ct_grid_t(best);

@@ -43,6 +43,7 @@ typedef struct vl_balance {
     double olr[VL_CT_NT], alb[VL_CT_NT], logf[VL_CT_NT];
     double t_cond;             /* where the surface water has all evaporated, K */
     double t_hot;              /* where the hot (runaway) branch begins, K */
+    double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
     double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
     int oom;                   /* a point could not be computed */
 } vl_balance;

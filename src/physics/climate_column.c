@@ -123,6 +123,13 @@ static int has_root(const column *c, column_work *w, vl_balance *b, int br, doub
     return vl_balance_root(b, c->table, &w->la, &c->surface, br, c->split_k, r);
 }
 
+/* 1 if balance b cools even at its floor (CO2's frost point or the grid's lower end): a
+ * frozen surface sits there, held by the latent heat of CO2 frost, and stays frozen. */
+static int below_floor(const column *c, column_work *w, vl_balance *b)
+{
+    return vl_balance_net(b, c->table, &w->la, &c->surface, b->t_floor) < 0.0;
+}
+
 /* Warm-branch regime from its root's stratospheric water. */
 static int warm_regime(const column *c, column_work *w, vl_balance *b, double r)
 {
@@ -138,7 +145,8 @@ static int column_classify(const void *state, void *work, double water_kg, const
         return VL_REGIME_DRY;
     vl_balance *wet = balance_of(c, w, 1, water_kg, env);
     double r;
-    if (env->regime == VL_REGIME_FROZEN && has_root(c, w, wet, VL_BRANCH_COLD, &r))
+    if (env->regime == VL_REGIME_FROZEN &&
+        (has_root(c, w, wet, VL_BRANCH_COLD, &r) || below_floor(c, w, wet)))
         return VL_REGIME_FROZEN;
     if (env->regime == VL_REGIME_RUNAWAY && has_root(c, w, wet, VL_BRANCH_HOT, &r))
         return VL_REGIME_RUNAWAY;

@@ -93,7 +93,7 @@ static vl_ctable *registry;
 
 /* The version of everything that fixes a point besides the options: bumped whenever the
  * column's physics or tabulated coefficients change (so stale disk caches are ignored). */
-#define TABLE_VERSION "volev-column-1"
+#define TABLE_VERSION "volev-column-2"
 
 static uint64_t fnv1a(const void *p, size_t n, uint64_t h)
 {

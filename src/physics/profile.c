@@ -99,9 +99,12 @@ static void dry_props(const state *s, double *m, double *cp)
     *cp = mm > 0.0 ? c : VL_CP_N2;
 }
 
+/* Saturated within a relative 1e-9: a state put on the saturation curve (adjust, or
+ * x_v = p_sat/p) must stay saturated despite rounding, or the next substep would leave
+ * the curve on the dry adiabat and the column would flip between the two. */
 static int saturated(const state *s, double p, double t)
 {
-    return t < VL_WATER_TC_K && s->x_v > 0.0 && s->x_v * p >= vl_water_psat(t);
+    return t < VL_WATER_TC_K && s->x_v > 0.0 && s->x_v * p >= vl_water_psat(t) * (1.0 - 1e-9);
 }
 
 /* d ln p_sat / d ln T of water at t (centred difference, one-sided at the critical
@@ -130,7 +133,10 @@ static double lapse(const state *s, double lnp, double t)
     double p = exp(lnp), m_a, cp_a;
     dry_props(s, &m_a, &cp_a);
     double m_w = vl_species_molar_mass(VL_SP_H2O);
-    if (!saturated(s, p, t)) {
+    /* the branch is that of the substep's start (settle): deciding it at the RK2
+     * midpoint would let a subsaturated column ride the moist adiabat, never reaching
+     * saturation; a dry substep that overshoots is put back by the adjustment */
+    if (!s->moist || !(t < VL_WATER_TC_K)) {
         double x_v = s->x_v, m = x_v * m_w + (1.0 - x_v) * m_a;
         double cp = (x_v * m_w * VL_WATER_CP_VAPOUR + (1.0 - x_v) * m_a * cp_a) / m;
         return VL_R_GAS / (m * cp);
