@@ -112,7 +112,8 @@ $(TESTBIN): $(TEST_OBJ) $(LIB)
 
 # All tests: unit suites and command-line tests, one runner. Where mpicc exists the MPI
 # build of the program (build-mpi/, without sanitizers: OpenMPI's own allocations would
-# read as leaks) is made too, and the sweep tests run it on 2 ranks.
+# read as leaks) is made too, and the sweep tests run it on 2 ranks. The climate table
+# cache of the program's runs is a fresh folder of the build, never the user's.
 MPICC := $(shell command -v mpicc 2>/dev/null)
 ifneq ($(MPICC),)
 MPI_BIN := build-mpi/volev
@@ -122,7 +123,9 @@ check: $(TESTBIN) $(BIN)
 ifneq ($(MPICC),)
 	@$(MAKE) --no-print-directory MPI=1 BUILD=build-mpi SAN= $(MPI_BIN)
 endif
-	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) $(MPI_ENV) CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
+	rm -rf $(BUILD)/cache
+	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) $(MPI_ENV) VOLEV_CACHE_DIR=$(abspath $(BUILD)/cache) \
+	    CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
 
 # libFuzzer targets (clang; library objects with -fsanitize=fuzzer-no-link,address,undefined,
 # the targets linked with -fsanitize=fuzzer): build-fuzz/fuzz_{scenario,track,catalogue}.

@@ -1,6 +1,11 @@
 # bench/lib.sh -- helpers shared by the benchmark scripts (sourced, not run).
 # shellcheck shell=sh
 
+# The benchmarks time the column climate's table building too: no table cache on disk
+# (docs/performance.md section 6), whatever the environment says.
+VOLEV_CACHE_DIR=
+export VOLEV_CACHE_DIR
+
 # value of NAME in a summary.csv (comment lines, header "name,value,unit", rows)
 summary_value() {
     awk -F, -v key="$2" '

@@ -9,6 +9,8 @@
 #                comment line of BALANCE.csv, when present, go underneath
 #
 # Both panels share the surface-temperature axis:
+# The surface-temperature axis covers the whole table (150-3000 K), logarithmic; the flux
+# axis is logarithmic too when the fluxes span more than a factor 30.
 #   (a) outgoing longwave radiation (OLR) and absorbed stellar flux (W m^-2). Where the
 #       absorbed flux falls through the OLR from above the climate has a stable
 #       equilibrium (filled circle, with a dotted line through both panels); where it
@@ -72,6 +74,9 @@ stats bl_data using (column("surface_temp_k")) nooutput
 T_min = STATS_min; T_max = STATS_max
 stats bl_data using (column("olr_w_m2")):(column("absorbed_w_m2")) nooutput
 F_max = (STATS_max_x > STATS_max_y) ? STATS_max_x : STATS_max_y
+F_min = (STATS_min_x < STATS_min_y) ? STATS_min_x : STATS_min_y
+# fluxes over more than a factor 30 (the OLR of a hot surface): log axis
+F_log = (F_min > 0 && F_max > 30.0 * F_min)
 stats bl_data using (column("absorbed_w_m2") - column("olr_w_m2")) nooutput
 net_min = STATS_min; net_max = STATS_max
 
@@ -94,11 +99,8 @@ n_eq = |$bl_eq| - 1
 eq_T(i) = word($bl_eq[i + 1], 1) + 0.0
 eq_F(i) = word($bl_eq[i + 1], 2) + 0.0
 eq_stable(i) = int(word($bl_eq[i + 1], 3)) == 1
-# temperature axis: the data, cut at 700 K unless an equilibrium lies further out
-T_hi = (T_max < 700.0) ? T_max : 700.0
-do for [i = 1:n_eq] {
-    if (eq_T(i) * 1.1 > T_hi) { T_hi = (eq_T(i) * 1.1 < T_max) ? eq_T(i) * 1.1 : T_max }
-}
+# temperature axis: the whole tabulated range (150-3000 K from `volev balance`), log
+T_hi = T_max
 if (T_hi <= T_min) { T_hi = T_min + 1.0 }
 # equilibria in range: a point on the OLR curve; stable ones also a dotted line
 # through both panels
@@ -151,7 +153,13 @@ if (strlen(bl_sub) > 0) { set label 101 bl_sub at screen 0.5, 0.945 center noenh
 set lmargin at screen L_left
 set rmargin at screen L_right
 set xrange [T_min:T_hi]
-set mxtics 5
+if (T_hi > 3.0 * T_min) {
+    set logscale x
+    set xtics (150, 200, 300, 400, 500, 700, 1000, 1500, 2000, 3000)
+    set mxtics default
+} else {
+    set mxtics 5
+}
 PANEL = 'set tmargin at screen ptop(bl_p); set bmargin at screen pbot(bl_p); \
     set key at screen key_x, ptop(bl_p) left top; \
     set label 1 sprintf("(%c)", 96 + bl_p) at screen 0.012, ptop(bl_p) - 0.004 left font ",12"'
@@ -161,8 +169,14 @@ bl_p = 1; eval PANEL
 set format x ""
 set xlabel ""
 set ylabel "Flux (W m^{-2})"
-set yrange [0:(F_max > 0 ? F_max * 1.08 : 1.0)]
-set format y "%g"
+if (F_log) {
+    set logscale y
+    set yrange [decfloor(F_min, F_max, 6):F_max * 1.5]
+    set format y "10^{%L}"
+} else {
+    set yrange [0:(F_max > 0 ? F_max * 1.08 : 1.0)]
+    set format y "%g"
+}
 do for [i = 1:n_eq] {
     if (eq_T(i) <= T_hi) {
         set label 200 + i "" at first eq_T(i), first eq_F(i) front \
@@ -185,7 +199,9 @@ do for [i = 1:n_eq] { unset label 200 + i }
 set format x "%g"
 set xlabel "Surface temperature (K)"
 set ylabel "Planetary albedo"
+unset logscale y
 set yrange [0:1]
+set format y "%g"
 set ytics 0.2 nomirror
 set logscale y2
 set y2range [sw_lo:sw_hi]

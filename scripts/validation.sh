@@ -84,45 +84,55 @@ printf '\n(regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway)\
 cat <<'TAIL'
 ## Discussion of the misses
 
-- **Venus** loses its ocean in a runaway that lasts until the water is gone (about 40
-  Myr after the start) and keeps its CO2 in the air: the divergence is reproduced. Its
-  surface pressure comes out near 100 bar from the shared carbon inventory plus
-  stagnant-lid outgassing, close to the measured 92 bar; its surface is about 190 K too
-  hot, which points at the grey CO2 collision-induced absorption (a coefficient from
-  memory) being too strong at Venus's pressures. Its N2 follows the shared Earth-scaled
-  rule and is several times too small (Venus holds ~3 bar of N2, more than Earth): the
-  shared inventory does not explain Venus's nitrogen (and photochemical N escape, scaled
-  from a present-Mars rate recalled from memory, removes part of it). The D/H enrichment
-  falls short of ~100x: most of the water was lost in energy-limited, weakly
-  fractionating escape, and the last traces sit at the depletion floor with no source;
-  the enrichment measured today is thought to be a steady state between late,
-  strongly fractionating non-thermal loss (fractionation factor 0.15 here) and a small
-  supply of water (outgassing, comets), which the default scenario does not have
-  (juvenile water outgassing is 0).
+The climate is the non-grey column of docs/model.md section 3, calibrated once (steam
+limit, present Earth, maximum CO2 greenhouse, cold trap); nothing here was fitted.
+
+- **Venus** loses its ocean in a runaway (its surface near 2300 K while the whole
+  ocean fills the air, cooling as the water escapes) that lasts until the water is
+  gone, about 0.5 Gyr after the start, and keeps its CO2 in the air: the divergence
+  is reproduced, and its surface pressure, from the
+  shared carbon inventory plus stagnant-lid outgassing, is close to the measured
+  92 bar. Its surface comes out about 90 K too cold. Two causes, both visible in the
+  model: the computed Bond albedo (Rayleigh scattering of 90 bar of CO2 plus the
+  Earth-like cloud layer) is 0.64, not the measured 0.76 of Venus's sulphuric-acid
+  clouds, which alone would make it hotter; but with the shared N2 rule (under 1 bar
+  instead of ~3) and no water vapour left (Venus keeps ~30 ppmv) the near-infrared
+  windows between the CO2 bands let the hot surface cool too well. With the measured
+  albedo, 3.3 bar of N2 and 30 ppmv of water the same column gives about 700 K
+  (tests/test_column_climate.c). Its N2 follows the shared Earth-scaled rule and is
+  several times too small: the shared inventory does not explain Venus's nitrogen. The
+  D/H ratio in the table is that of a vanishing residual (the last 1e-146 TO of
+  water, distilled by fractionating escape): it has no physical meaning. The enrichment
+  measured today is thought to be a steady state between late, strongly fractionating
+  non-thermal loss and a small supply of water (outgassing, comets), which the default
+  scenario does not have (juvenile water outgassing is 0).
 - **Earth** keeps its ocean, draws the starting 63 bar of CO2 into carbonates within
   ~0.1 Gyr and ends temperate near 288 K with a few hundred ppmv of CO2 — largely by
   construction: the climate is calibrated to present Earth and the weathering
-  reference to today's outgassing. Its background is all "N2" (the whole present dry
-  air), so its composition misses O2 (biological, not modelled). The choice of the
-  whole dry air as background matters: with only today's N2 (0.75 bar) the grey column,
-  too sensitive to background pressure (docs/model.md section 3.4), ends several times
-  above 280 ppmv.
-- **Mars** ends frozen with a few hundredths of a bar of CO2: while the young Sun's XUV
-  is 10-100 times today's, photochemical escape and ion pickup (scaled from MAVEN-era
-  rates) and weathering of a briefly warm, wet surface remove nearly all of the
-  starting 9 bar within ~0.3 Gyr; the little that is left is what stagnant-lid
-  outgassing (fixed from Grott et al. 2011's estimate, a planet fact) adds afterwards.
-  The end state is several times the measured 6 mbar, and its composition misses:
-  nitrogen escape (a present rate recalled from memory, applied without any dependence
-  on the N2 abundance) removes all N2, while Mars keeps ~2.7 %. Mars keeps almost all
-  of its starting 0.1 TO of water as ice (measured: a few thousandths of a TO in the
-  polar caps and the shallow subsurface): with a tight cold trap and little H2 its
-  thermal hydrogen escape is small, so its D/H stays near the start instead of ~6x.
-  Two things in these results depend on changes made for this comparison and stated
-  in docs/escape.md and docs/cycles.md: the exospheric (non-thermal) channels now fade
-  only when the upper atmosphere as a whole flows out (before, a hydrodynamic trace of
-  hydrogen switched them off and Mars ended at 1.2 bar), and outgassing and weathering
-  rates scale with planet mass and surface area.
+  reference to today's outgassing. Its hydrogen escape today, set by the cold trap the
+  column computes, is within a factor of two of the ~3 kg/s of Catling & Zahnle (2009).
+  Its background is all "N2" (the whole present dry air), so its composition misses O2
+  (biological, not modelled).
+- **Mars** ends frozen with about 2 bar of CO2, hundreds of times the measured 6 mbar.
+  With the non-grey column no amount of CO2 warms the young Mars above freezing (the
+  maximum CO2 greenhouse lies near S_eff 0.35, Kopparapu et al. 2013; Mars received
+  ~0.32 then; no warm early Mars from CO2 alone, Forget et al. 2013): the surface sits
+  at the frost point of its CO2 and nothing weathers. Photochemical escape, ion pickup
+  and sputtering under the young Sun's XUV remove about half of the starting 9 bar;
+  when the brightening Sun thaws the planet briefly near 4 Gyr, weathering locks ~2
+  bar into carbonates before it freezes again. Missing, and stated in docs/model.md
+  section 3.4: the collapse of CO2 onto polar caps and into the regolith (a
+  global-mean surface held at the frost point keeps its CO2 in the air), carbonate
+  formation under a cold climate, and impact erosion (off by default). The shared
+  inventory rule also starts Mars with 9 bar, more than most published estimates of its
+  early atmosphere. Nitrogen escape (a present rate applied without any dependence on
+  the N2 abundance) removes all N2, while Mars keeps ~2.7 %. Mars keeps almost all of
+  its starting 0.1 TO of water as ice (measured: a few thousandths of a TO in the polar
+  caps and the shallow subsurface): with a cold trap and little H2 its thermal
+  hydrogen escape is small, so its D/H stays near the start instead of ~6x.
+  Under the grey column of the previous version Mars was instead warmed falsely by its
+  CO2 and weathered it away early, ending near 0.05 bar: a closer number for a wrong
+  reason.
 
 The three histories on shared axes: `docs/divergence.png` (plots/comparison.gp).
 

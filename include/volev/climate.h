@@ -33,10 +33,11 @@ int vl_climate_classify(const vl_climate *c, vl_climate_work *w, double water_kg
                         const vl_env *env);
 
 /* The energy-balance curves at the instant in env (star and dry atmosphere): for each
- * surface temperature of the climate's grid, OLR, absorbed stellar flux, planetary
- * albedo and stratospheric H2O mixing ratio. wet: over an ocean (1) or without water (0).
- * Returns the number of points (at most VL_CURVE_MAX), or 0 if the backend has no
- * such curves (hz_fit). */
+ * surface temperature of the climate's grid (t_k NULL) or of t_k[0..n-1] (n at most
+ * VL_CURVE_MAX), OLR, absorbed stellar flux, planetary albedo and stratospheric H2O
+ * mixing ratio, as the balance interpolates them. wet: over an ocean (1) or without
+ * water (0). The thresholds s_runaway and s_moist always come from the grid. Returns
+ * the number of points, or 0 if the backend has no such curves (hz_fit). */
 #define VL_CURVE_MAX 512
 typedef struct vl_curve {
     double t_k[VL_CURVE_MAX];
@@ -44,12 +45,30 @@ typedef struct vl_curve {
     double absorbed[VL_CURVE_MAX];  /* W/m^2 */
     double albedo[VL_CURVE_MAX];
     double f_strat[VL_CURVE_MAX];
+    double s_runaway;               /* the largest S_eff with a warm equilibrium */
+    double s_moist;                 /* S_eff at which it reaches the moist greenhouse (inf: never) */
 } vl_curve;
 size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
-                        vl_curve *out);
+                        const double *t_k, size_t n, vl_curve *out);
 
-/* Table statistics of a workspace: nodes computed so far and the wall time spent. */
+/* Table statistics of a workspace: points computed so far and the wall time spent. */
 void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s);
+
+/* The column climate's table cache on disk (climate_disk.c). Off until configured:
+ * folder NULL or "" turns it off; otherwise tables are read from and appended to
+ * FOLDER/column-KEY.pts (the folder and its parents are made if missing). Points
+ * buffered under the previous configuration are written first, and the previous error
+ * is forgotten. Returns VL_OK, or VL_ERR_IO with st filled (the cache then off) when
+ * the folder cannot be made. Tables made before the call are not read again. */
+int vl_climate_cache_configure(const char *folder, vl_status *st);
+/* Write every point computed since the last flush (safe to call at any time, from any
+ * thread; also called at exit once configured). */
+void vl_climate_cache_flush(void);
+/* NULL, or the first write error of the cache since it was configured ("PATH: reason");
+ * the cache has then turned itself off for the rest of the process. A write error
+ * never fails a run: the program reports it as a warning. The text stays valid until
+ * the next vl_climate_cache_configure. */
+const char *vl_climate_cache_error(void);
 
 /* Kopparapu et al. 2013 (ApJ 765:131, erratum ApJ 770:82) effective-flux limits. */
 enum vl_hz_limit { VL_HZ_RECENT_VENUS, VL_HZ_RUNAWAY, VL_HZ_MOIST, VL_HZ_MAX_GREENHOUSE,

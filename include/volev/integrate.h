@@ -22,6 +22,8 @@ typedef struct vl_run_stats {
                                           (trapezoid over accepted steps) */
     vl_env env_last;           /* every stage at the last output row (the run's end once
                                   it succeeded) */
+    double water_dh_last;      /* D/H of the surface water after the last accepted step
+                                  at which it was above its depletion floor (0: never) */
     long climate_nodes;        /* climate table nodes the run built */
     double climate_build_s;    /* wall time spent building them */
 } vl_run_stats;

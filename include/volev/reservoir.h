@@ -87,5 +87,9 @@ const char *vl_element_name(int el);
  * impactor water, space H), or -1. Transfers of hydrogen carry deuterium along
  * (flux.c). */
 int vl_reservoir_deuterium(int r);
+/* D/H atom ratio of reservoir r in the state y: 0 without hydrogen or a deuterium
+ * companion; NAN once r is below its depletion floor (an exhausted reservoir's ratio is
+ * numerical noise: undefined). */
+double vl_reservoir_dh(const double *y, int r);
 
 #endif

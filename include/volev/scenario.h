@@ -14,6 +14,8 @@ enum vl_xuv_model { VL_XUV_RATIO, VL_XUV_SOLAR_RIBAS };
 enum vl_climate_model { VL_CLIMATE_COLUMN, VL_CLIMATE_HZ_FIT };
 #define VL_CLIMATE_CHOICES "column|hz_fit"
 enum vl_runaway_fit { VL_RUNAWAY_K2014, VL_RUNAWAY_K2013 };
+enum vl_albedo_mode { VL_ALBEDO_COMPUTED, VL_ALBEDO_FIXED };
+#define VL_ALBEDO_CHOICES "computed|fixed"
 #define VL_RUNAWAY_CHOICES "k2014_mass|k2013"
 
 typedef struct vl_star_params {
@@ -91,21 +93,22 @@ typedef struct vl_climate_params {
     int runaway_fit;           /* enum vl_runaway_fit */
     double moist_threshold;    /* column: stratospheric H2O mixing ratio of the moist greenhouse */
     /* column backend (climate_column.c) */
-    double k_h2o;              /* grey H2O mass absorption coefficient at p0, m^2/kg */
-    double n_h2o;              /* H2O pressure-broadening exponent */
-    double k_co2;              /* grey CO2 mass absorption coefficient at p0, m^2/kg */
-    double n_co2;              /* CO2 pressure-broadening exponent */
-    double u_co2_sat;          /* CO2 band-saturation column, kg/m^2 */
-    double k_cia;              /* CO2-CO2 collision-induced absorption coefficient, m^2/kg */
-    double p0_pa;              /* broadening reference pressure, Pa */
+    double h2o_line_scale;     /* factors on the tabulated absorption (opacity.c) */
+    double h2o_nir_line_scale;
+    double co2_line_scale;
+    double h2o_cont_scale;
+    double co2_cont_scale;
+    double cia_scale;
     double strat_offset_k;     /* stratosphere = skin temperature - this */
-    double ice_albedo;         /* albedo of an ice-covered planet */
+    int albedo_mode;           /* enum vl_albedo_mode */
+    double ocean_albedo, land_albedo, land_fraction;
+    double ice_albedo_vis, ice_albedo_nir;
     double ice_cover_k;        /* below this T_s the planet is fully ice-covered */
     double ice_free_k;         /* above this T_s it is ice-free */
-    double steam_albedo;       /* albedo of a steam-rich atmosphere around a Sun-like star */
-    double steam_teff_exp;     /* every albedo ~ (Teff / 5772 K)^this */
-    double steam_start_k;      /* T_s where the albedo starts to move to the steam value */
-    double steam_full_k;       /* T_s where it reaches it */
+    double melt_albedo, melt_start_k, melt_full_k;
+    double cloud_fraction;     /* share of a wet planet's sky under the cloud layer */
+    double cloud_p_ratio;      /* cloud level over the surface pressure */
+    double cloud_tau;          /* visible optical depth of the cloud layer */
 } vl_climate_params;
 
 /* The escape budget (escape.c): thermal hydrogen escape and the oxygen it drags. */

@@ -18,6 +18,11 @@ double vl_water_psat_ice(double t_k);
  * liquid up to T_c; above T_c returns +INFINITY (no condensed phase). */
 double vl_water_psat(double t_k);
 
+/* The temperature at which vl_water_psat equals p_pa, K (its inverse, by bisection in
+ * ln p to 1e-9 relative; T_c at and above the critical pressure, 110 K below the
+ * saturation pressure there). */
+double vl_water_tsat(double p_pa);
+
 /* Latent heat of vaporisation, J/kg, 273.16 K <= T <= T_c: Watson (1943) correlation
  * L = L_tp ((T_c - T)/(T_c - T_tp))^0.38 anchored at L_tp = 2.5009e6 J/kg at the triple
  * point (IAPWS-95 tables, from memory); 0 at and above T_c. Within 2 % of the steam

@@ -59,7 +59,7 @@ static int write_curves(const char *path, const vl_model *m, const vl_env *env, 
             env->mass_kg[VL_GAS_O2] * m->planet.pa_per_kg / VL_BAR,
             env->mass_kg[VL_GAS_H2] * m->planet.pa_per_kg / VL_BAR, wet ? "over an ocean" : "no water");
     fprintf(f, "# runaway threshold s_eff %.6g; moist-greenhouse threshold s_eff %.6g\n",
-            env->s_runaway, env->s_moist);
+            cv->s_runaway, cv->s_moist);
     fprintf(f, "# stable equilibria (K):");
     int any = 0;
     for (size_t j = 0; j + 1 < n; j++) {
@@ -100,6 +100,7 @@ int vl_cli_balance(int argc, char **argv)
     vl_status st;
     vl_scenario *sc;
     vl_model *m;
+    vl_cli_cache_start();
     if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
         vl_cli_args_free(&a);
         return VL_ERR_USAGE;
@@ -123,7 +124,7 @@ int vl_cli_balance(int argc, char **argv)
         vl_work *w = st.code == VL_OK ? vl_work_new(m, &st) : NULL;
         if (st.code == VL_OK) {
             vl_model_env(m, w, t, y, wet ? VL_REGIME_TEMPERATE : VL_REGIME_DRY, &env);
-            n = vl_climate_curve(m->climate, vl_work_climate(w), &env, wet, cv);
+            n = vl_climate_curve(m->climate, vl_work_climate(w), &env, wet, NULL, 0, cv);
             if (n == 0)
                 vl_fail(&st, VL_ERR_INPUT, sc->path, 0,
                         "balance needs climate.model = \"column\" (the habitable-zone fits have "
@@ -145,5 +146,6 @@ int vl_cli_balance(int argc, char **argv)
         vl_work_free(w);
         free(cv);
     }
+    vl_cli_cache_finish();
     return vl_cli_finish(&a, sc, m, &st);
 }

@@ -18,6 +18,13 @@ int vl_cli_compare(int argc, char **argv);
  * vl_cli_report then returns 128 + signal. */
 void vl_cli_catch_signals(void);
 
+/* The climate table cache (src/cli/cache.c): configured from VOLEV_CACHE_DIR, else
+ * $XDG_CACHE_HOME/volev, else $HOME/.cache/volev (a folder that cannot be made: one
+ * warning, and the command runs without it), before the first model is built; at the
+ * end, flushed, with one warning if a write failed and turned it off. */
+void vl_cli_cache_start(void);
+void vl_cli_cache_finish(void);
+
 /* Print st to stderr as "volev: FILE:LINE: message" and return its code. */
 int vl_cli_report(const vl_status *st);
 /* Print a usage error to stderr and return VL_ERR_USAGE. */

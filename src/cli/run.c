@@ -39,6 +39,7 @@ int vl_cli_run(int argc, char **argv)
     vl_status st;
     vl_scenario *sc;
     vl_model *m;
+    vl_cli_cache_start();
     if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
         vl_cli_args_free(&a);
         return VL_ERR_USAGE;
@@ -69,5 +70,6 @@ int vl_cli_run(int argc, char **argv)
             vl_output_abort(out);
         }
     }
+    vl_cli_cache_finish();
     return vl_cli_finish(&a, sc, m, &st);
 }

@@ -156,6 +156,7 @@ int vl_cli_sweep(int argc, char **argv)
     vl_cli_sweep_mpi_start(&argc, &argv, &c, &a.threads);
     vl_status st;
     vl_status_clear(&st);
+    vl_cli_cache_start();
     vl_sweep *sw = vl_sweep_load(a.scenario, &st);
     char dir[1024], *done = NULL;
     int rc = sw ? start(&c, sw, a.out, dir, sizeof dir, &st) : st.code, already = 0;
@@ -178,6 +179,7 @@ int vl_cli_sweep(int argc, char **argv)
     }
     if (already && c.rank == 0)
         printf("sweep already complete in %s (same settings): nothing to do\n", dir);
+    vl_cli_cache_finish();
     release(&c, done, sw);
     vl_cli_sweep_mpi_end();
     if (c.rank != 0)

@@ -16,6 +16,7 @@
 #include <gsl/gsl_errno.h>
 
 #include "integrate_internal.h"
+#include "volev/reservoir.h"
 #include "volev/units.h"
 
 /* A stop request from a signal handler (vl_integrate_request_stop). */
@@ -119,6 +120,9 @@ static void account(runner_t *r, double t0)
 {
     double dt = r->t - t0;
     r->stats->time_in_regime_s[r->ode->regime] += dt;
+    double dh = vl_reservoir_dh(r->y, VL_R_WATER);
+    if (!isnan(dh))
+        r->stats->water_dh_last = dh;
     for (size_t c = 0; c < r->m->ncolumns; c++) {
         r->stats->channel_kg[c] += 0.5 * (r->prev[c] + r->now[c]) * dt;
         r->prev[c] = r->now[c];

@@ -1,6 +1,8 @@
 /* reservoir.c: species make-up and reservoir layout (reservoir.h). */
 #include "volev/reservoir.h"
 
+#include <math.h>
+
 #include "volev/units.h"
 
 static const struct {
@@ -67,4 +69,15 @@ int vl_reservoir_deuterium(int r)
     default:
         return -1;
     }
+}
+
+double vl_reservoir_dh(const double *y, int r)
+{
+    int d = vl_reservoir_deuterium(r);
+    if (d >= 0 && y[r] < vl_reservoir_floor(r))
+        return NAN;
+    double h_mol = fmax(y[r], 0.0) * vl_reservoir_element_fraction(r, VL_EL_H) / (VL_AW_H * 1e-3);
+    if (d < 0 || !(h_mol > 0.0))
+        return 0.0;
+    return fmax(y[d], 0.0) / (VL_AW_D * 1e-3) / h_mol;
 }

@@ -132,18 +132,8 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
     return o;
 }
 
-static double clamp0(double v) { return v > 0.0 ? v : 0.0; }
 
-double vl_output_dh(const double *y, int r)
-{
-    int d = vl_reservoir_deuterium(r);
-    if (d >= 0 && y[r] < vl_reservoir_floor(r))
-        return NAN; /* an exhausted reservoir's ratio is numerical noise: undefined */
-    double h_mol = clamp0(y[r]) * vl_reservoir_element_fraction(r, VL_EL_H) / (VL_AW_H * 1e-3);
-    if (d < 0 || !(h_mol > 0.0))
-        return 0.0;
-    return clamp0(y[d]) / (VL_AW_D * 1e-3) / h_mol;
-}
+double vl_output_dh(const double *y, int r) { return vl_reservoir_dh(y, r); }
 
 static int row_cb(void *ctx, double t, const double *y, const double *dydt, const vl_env *env,
                   const double *columns, vl_status *st)

@@ -33,7 +33,9 @@ void vl_summary_derive(const vl_model *m, const vl_run_stats *stats, vl_summary 
     out->surface_temp_k = env->t_surf_k;
     out->surface_pressure_bar = env->p_surf_pa / VL_BAR;
     out->dh_water = vl_output_dh(y, VL_R_WATER);
-    out->dh_enrichment = dh0 > 0.0 ? out->dh_water / dh0 : NAN;
+    if (isnan(out->dh_water)) /* exhausted: the ratio of its last water */
+        out->dh_water = stats->water_dh_last;
+    out->dh_enrichment = dh0 > 0.0 ? out->dh_water / dh0 : 0.0;
 }
 
 void vl_event_firsts_note(vl_event_firsts *e, const char *name, double t_s)
@@ -166,9 +168,9 @@ static const item items[] = {
     {"o2_accumulated", "bar", REAL10, "atmospheric O2 at the end (pressure of the gas alone)",
      o2, NULL},
     {"final_dh_water", "ratio", REAL10,
-     "D/H atom ratio of the surface water at the end (nan: exhausted)", dh, NULL},
+     "D/H atom ratio of the surface water at the end (once exhausted: of its last water above the depletion floor)", dh, NULL},
     {"dh_enrichment", "ratio", REAL10,
-     "final_dh_water over inventory.initial_dh (nan: undefined)", dh_enrichment, NULL},
+     "final_dh_water over inventory.initial_dh", dh_enrichment, NULL},
     {"final_co2", "bar", REAL10, "CO2 in the air at the end (pressure of the gas alone)", co2,
      NULL},
     {"final_ocean_co2", "kg", REAL10, "CO2 dissolved in the ocean at the end", ocean_co2, NULL},

@@ -106,9 +106,9 @@ int vl_climate_classify(const vl_climate *c, vl_climate_work *w, double water_kg
 }
 
 size_t vl_climate_curve(const vl_climate *c, vl_climate_work *w, const vl_env *env, int wet,
-                        vl_curve *out)
+                        const double *t_k, size_t n, vl_curve *out)
 {
-    return c->backend->curve ? c->backend->curve(c->state, w->work, env, wet, out) : 0;
+    return c->backend->curve ? c->backend->curve(c->state, w->work, env, wet, t_k, n, out) : 0;
 }
 
 void vl_climate_work_stats(const vl_climate_work *w, long *nodes, double *build_s)

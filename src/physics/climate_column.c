@@ -1,87 +1,43 @@
 /* climate_column.c: the radiative column climate backend.
  *
- * The column (column.c) gives, for a surface temperature and a dry atmosphere, the
- * outgoing longwave radiation and the stratospheric water. Per run, these are
- * tabulated against surface temperature on a grid of CO2 and background pressure
- * (nodes filled lazily into the run's workspace, when the run first needs them; the
- * backend's own state is fixed once created and shared); the right-hand side only
- * interpolates. The energy balance N(T) = S (1 - A(T)) / 4 - OLR(T) is then scanned
- * on the temperature grid for its stable roots (N falling through zero), refined on
- * the interpolant:
- *  - a cold root (below the middle of the ice-albedo ramp, where roots are unstable) is
- *    the frozen (snowball) state, a warm root the
- *    temperate or moist-greenhouse state; a planet stays on its branch while that
- *    root exists, so frozen and temperate states show hysteresis;
- *  - without a warm or cold root, absorbed flux exceeds the OLR limit: runaway.
- * Albedo A(T): ice-covered below climate.column.ice_cover_temp_k, blending to the
- * temperate climate.bond_albedo at ice_free_temp_k, then to the (lower) steam albedo
- * as water vapour absorbs more sunlight; all of it scaled by (Teff/5772 K)^exponent,
- * lower around cooler stars (Rayleigh scattering). */
+ * The column (column.h: profile, non-grey radiation, clouds) is tabulated against
+ * surface temperature and the gas amounts (climate_table.c: shared, lazily filled); the
+ * energy balance N(T) = S (1 - A(T))/4 - OLR(T) of the moment is read from it
+ * (climate_balance.c) and its stable roots are the climate's equilibria, on three
+ * branches:
+ *  - cold: below the middle of the ice-albedo ramp (where equilibria are unstable), the
+ *    frozen (snowball) state;
+ *  - warm: above it while the surface keeps water (below the temperature at which the
+ *    whole inventory is vapour, or the critical point): temperate or moist greenhouse;
+ *  - hot: above that, with all the water in the air: the runaway (post-runaway) state,
+ *    whose surface temperature follows from the balance like every other.
+ * A planet keeps its branch while that branch's root exists (the frozen/warm and
+ * warm/hot hysteresis), searched outward from its last position; once it vanishes the
+ * "ghost" (least |N|) keeps the temperature continuous until the integrator has located
+ * the regime change. A dry planet (less water than climate.dry_threshold_to) takes the
+ * stable root nearest its last one over the whole range. */
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
-#include <time.h>
 
+#include "climate_balance.h"
 #include "climate_internal.h"
-#include "volev/column.h"
 #include "volev/reservoir.h"
 #include "volev/units.h"
 #include "volev/water.h"
 
-/* Temperature grid: 2.5 K steps from 150 to 400 K (where climates are decided), 10 K
- * steps to 1000 K, 25 K steps to 2500 K (hot dry states). */
-#define T_MIN 150.0
-#define N_FINE 100  /* 2.5 K intervals, 150..400 K */
-#define N_MID 60    /* 10 K intervals, 400..1000 K */
-#define N_HOT 60    /* 25 K intervals, 1000..2500 K */
-#define NT (N_FINE + N_MID + N_HOT + 1)
-#define LOG_P_MIN (-3) /* log10 Pa of the pressure grids */
-#define LOG_P_MAX 9
-#define PER_DECADE 4
-#define NP ((LOG_P_MAX - LOG_P_MIN) * PER_DECADE + 1)
-
-typedef struct {
-    float olr[NT];      /* W/m^2 */
-    float log_f[NT];    /* ln of the stratospheric H2O mole fraction (wet only) */
-} node;
-
-/* The backend's state: fixed once created (shared by every run of the model). */
 typedef struct {
     vl_climate_params cp;
-    vl_column_opts opts;
-    double w_ice[NT];        /* ice weight of the albedo at each grid temperature */
-    double w_steam[NT];      /* steam weight */
+    vl_surface surface;
+    double g, area_m2;
+    double split_k;            /* cold/warm branch boundary */
+    vl_ctable *table;          /* shared, borrowed from the registry */
 } column;
 
-/* A run's workspace: the table, filled lazily, and the last balance. */
 typedef struct {
-    node *nodes[2][NP][NP];  /* [wet][co2][background], filled lazily, owned */
-    /* one-entry cache of the last balance: the Jacobian's perturbations of reservoirs
-     * that do not touch the atmosphere, and classify after eval, reuse it */
-    int cache_valid, cache_wet;
-    double cache_key[4];     /* p_co2, p_bg, instellation, Teff */
-    struct balance_s *cache;
-    long nodes_built;        /* statistics for the benchmark */
-    double build_s;          /* wall time spent building nodes */
+    vl_ct_lookaside la;
+    vl_balance bal[2];         /* [wet] */
 } column_work;
-
-static double grid_t(int j)
-{
-    if (j <= N_FINE)
-        return T_MIN + 2.5 * j;
-    if (j <= N_FINE + N_MID)
-        return 400.0 + 10.0 * (j - N_FINE);
-    return 1000.0 + 25.0 * (j - N_FINE - N_MID);
-}
-
-/* Fractional grid index of temperature t (clamped to the grid). */
-static double grid_index(double t)
-{
-    double x = t <= 400.0    ? (t - T_MIN) / 2.5
-               : t <= 1000.0 ? N_FINE + (t - 400.0) / 10.0
-                             : N_FINE + N_MID + (t - 1000.0) / 25.0;
-    return x < 0.0 ? 0.0 : x > NT - 1 ? NT - 1 : x;
-}
 
 static double smoothstep(double x, double lo, double hi)
 {
@@ -92,304 +48,209 @@ static double smoothstep(double x, double lo, double hi)
     return u * u * (3.0 - 2.0 * u);
 }
 
-/* Planetary albedo from the ice and steam weights at a surface temperature, for a
- * Sun-like star (the caller scales it with Teff; see file comment). */
-static double albedo_w(const vl_climate_params *cp, double w_ice, double w_steam)
+static int wet_regime(int regime)
 {
-    double warm = cp->bond_albedo + (cp->steam_albedo - cp->bond_albedo) * w_steam;
-    return cp->ice_albedo * w_ice + warm * (1.0 - w_ice);
+    return regime == VL_REGIME_FROZEN || regime == VL_REGIME_TEMPERATE ||
+           regime == VL_REGIME_MOIST;
 }
 
-/* Pressure at grid index i, Pa. */
-static double grid_p(int i) { return pow(10.0, LOG_P_MIN + (double)i / PER_DECADE); }
-
-/* Fractional grid position of pressure p (clamped to the grid). */
-static double grid_pos(double p_pa)
+/* The balance of env's moment for a wet or dry surface (water_kg: the surface water). */
+static vl_balance *balance_of(const column *c, column_work *w, int wet, double water_kg,
+                              const vl_env *env)
 {
-    double x = (log10(fmax(p_pa, 1e-30)) - LOG_P_MIN) * PER_DECADE;
-    return x < 0.0 ? 0.0 : x > NP - 1 ? NP - 1 : x;
+    vl_balance_key k;
+    memset(&k, 0, sizeof k); /* padding compared by memcmp */
+    double per_area = c->g / c->area_m2;
+    k.p[VL_CT_WATER] = fmax(water_kg, 0.0) * per_area;
+    k.p[VL_CT_CO2] = env->mass_kg[VL_GAS_CO2] * per_area;
+    k.p[VL_CT_BG] = (env->mass_kg[VL_GAS_N2] + env->mass_kg[VL_GAS_O2]) * per_area;
+    k.p[VL_CT_H2] = env->mass_kg[VL_GAS_H2] * per_area;
+    k.instellation = env->instellation;
+    k.teff_k = env->star.teff_k;
+    k.wet = wet;
+    vl_balance *b = &w->bal[wet];
+    vl_balance_set(b, &k, c->g, c->split_k);
+    return b;
 }
 
-/* Tabulate one node: OLR and stratospheric water against T for CO2 pressure p_c and
- * background (N2-like) pressure p_b, both thin-shell pressures of the gas alone. */
-static node *build_node(const column *c, column_work *w, int wet, int ic, int ib)
+static int branch_of(int regime)
 {
-    node *n = malloc(sizeof *n);
-    if (!n)
-        return NULL;
-    struct timespec w0, w1;
-    clock_gettime(CLOCK_MONOTONIC, &w0);
-    double pc = grid_p(ic), pb = grid_p(ib);
-    double m_co2 = vl_species_molar_mass(VL_SP_CO2), m_n2 = vl_species_molar_mass(VL_SP_N2);
-    vl_column_air air;
-    air.p_dry_pa = pc + pb;
-    air.q_co2 = pc / air.p_dry_pa;
-    air.m_dry = air.p_dry_pa / (pc / m_co2 + pb / m_n2);
-    air.cp_dry = air.q_co2 * VL_CP_CO2 + (1.0 - air.q_co2) * VL_CP_N2;
-    vl_column_opts o = c->opts;
-    o.wet = wet;
-    double olr = 0.0, log_f = 0.0;
-    for (int j = 0; j < NT; j++) {
-        /* a wet column exists only below the critical point; above it the steam
-         * column's values are held (OLR at its limit, saturated stratosphere) */
-        if (!wet || grid_t(j) < VL_WATER_TC_K - 5.0) {
-            vl_column_out out;
-            vl_column_eval(&o, &air, grid_t(j), olr, &out);
-            olr = out.olr;
-            log_f = log(fmax(out.f_strat, 1e-30));
-        }
-        n->olr[j] = (float)olr;
-        n->log_f[j] = (float)log_f;
-    }
-    w->nodes_built++;
-    clock_gettime(CLOCK_MONOTONIC, &w1);
-    w->build_s += (double)(w1.tv_sec - w0.tv_sec) + 1e-9 * (double)(w1.tv_nsec - w0.tv_nsec);
-    return n;
-}
-
-/* The node (built on first use into the run's workspace). */
-static const node *get_node(const column *c, column_work *w, int wet, int ic, int ib)
-{
-    if (!w->nodes[wet][ic][ib])
-        w->nodes[wet][ic][ib] = build_node(c, w, wet, ic, ib);
-    return w->nodes[wet][ic][ib];
-}
-
-/* OLR and ln f_strat on the temperature grid for the given pressures (bilinear in
- * log pressure). Returns 0 on allocation failure. */
-static int interpolate(const column *c, column_work *w, int wet, double p_co2, double p_bg,
-                       double *olr, double *log_f)
-{
-    double xc = grid_pos(p_co2), xb = grid_pos(p_bg);
-    int ic = (int)xc < NP - 1 ? (int)xc : NP - 2, ib = (int)xb < NP - 1 ? (int)xb : NP - 2;
-    double fc = xc - ic, fb = xb - ib;
-    const node *n00 = get_node(c, w, wet, ic, ib), *n10 = get_node(c, w, wet, ic + 1, ib);
-    const node *n01 = get_node(c, w, wet, ic, ib + 1), *n11 = get_node(c, w, wet, ic + 1, ib + 1);
-    if (!n00 || !n10 || !n01 || !n11)
-        return 0;
-    double w00 = (1 - fc) * (1 - fb), w10 = fc * (1 - fb), w01 = (1 - fc) * fb, w11 = fc * fb;
-    for (int j = 0; j < NT; j++) {
-        olr[j] = w00 * n00->olr[j] + w10 * n10->olr[j] + w01 * n01->olr[j] + w11 * n11->olr[j];
-        log_f[j] = w00 * n00->log_f[j] + w10 * n10->log_f[j] + w01 * n01->log_f[j] +
-                   w11 * n11->log_f[j];
-    }
-    return 1;
-}
-
-/* The energy balance on the grid for env's star and atmosphere. */
-typedef struct balance_s {
-    double net[NT];    /* absorbed - OLR, W/m^2 */
-    double olr[NT];
-    double log_f[NT];
-    double alb[NT];
-    int cold;          /* grid cell of the lowest stable root below freezing, or -1 */
-    int warm;          /* grid cell of the lowest stable root at or above freezing, or -1 */
-} balance;
-
-/* Temperature separating the frozen (snowball) branch from the warm one: the middle of
- * the ice-albedo ramp, where the albedo feedback is strongest and equilibria unstable,
- * so that a stable root crossing it is a label change, not a jump. */
-static double split_temp(const column *c) { return 0.5 * (c->cp.ice_cover_k + c->cp.ice_free_k); }
-
-static double root_in(const balance *b, int j)
-{
-    return grid_t(j) + (grid_t(j + 1) - grid_t(j)) * b->net[j] / (b->net[j] - b->net[j + 1]);
-}
-
-static void dry_pressures(const vl_env *env, double *p_co2, double *p_bg)
-{
-    double k = env->g / env->area_m2;
-    *p_co2 = env->mass_kg[VL_GAS_CO2] * k;
-    *p_bg = (env->mass_kg[VL_GAS_N2] + env->mass_kg[VL_GAS_O2] + env->mass_kg[VL_GAS_H2]) * k;
-}
-
-/* The balance at env (wet: over an ocean), into b. */
-static void fill_balance(const column *c, column_work *w, int wet, const vl_env *env,
-                         double p_co2, double p_bg, balance *b)
-{
-    if (!interpolate(c, w, wet, p_co2, p_bg, b->olr, b->log_f))
-        for (int j = 0; j < NT; j++) /* out of memory: no equilibrium, reported as NaN */
-            b->olr[j] = b->log_f[j] = NAN;
-    double scale = pow(env->star.teff_k / VL_TEFF_SUN, c->cp.steam_teff_exp);
-    b->cold = b->warm = -1;
-    for (int j = 0; j < NT; j++) {
-        b->alb[j] = wet ? scale * albedo_w(&c->cp, c->w_ice[j], c->w_steam[j]) : c->cp.bond_albedo;
-        b->net[j] = env->instellation * (1.0 - b->alb[j]) / 4.0 - b->olr[j];
-    }
-    for (int j = 0; j + 1 < NT; j++) {
-        if (!(b->net[j] > 0.0 && b->net[j + 1] <= 0.0))
-            continue;
-        if (root_in(b, j) < split_temp(c)) {
-            if (b->cold < 0)
-                b->cold = j;
-        } else if (b->warm < 0) {
-            b->warm = j;
-        }
+    switch (regime) {
+    case VL_REGIME_FROZEN: return VL_BRANCH_COLD;
+    case VL_REGIME_RUNAWAY: return VL_BRANCH_HOT;
+    case VL_REGIME_DRY: return VL_BRANCH_ANY;
+    default: return VL_BRANCH_WARM;
     }
 }
 
-/* The balance at env, from the one-entry cache when the dry atmosphere, the flux and
- * the star are those of the previous call. NULL only when out of memory. */
-static const balance *get_balance(const column *c, column_work *w, int wet, const vl_env *env)
+/* The surface temperature of regime's branch: its root, or the ghost once it is gone. */
+static double branch_temp(const column *c, column_work *w, vl_balance *b, int regime)
 {
-    double key[4];
-    dry_pressures(env, &key[0], &key[1]);
-    key[2] = env->instellation;
-    key[3] = env->star.teff_k;
-    if (w->cache && w->cache_valid && w->cache_wet == wet && memcmp(key, w->cache_key, sizeof key) == 0)
-        return w->cache;
-    if (!w->cache && !(w->cache = malloc(sizeof *w->cache)))
-        return NULL;
-    fill_balance(c, w, wet, env, key[0], key[1], w->cache);
-    memcpy(w->cache_key, key, sizeof key);
-    w->cache_wet = wet;
-    w->cache_valid = 1;
-    return w->cache;
-}
-
-/* Runaway and moist-greenhouse thresholds in S_eff units: the largest flux with a warm
- * equilibrium, and the flux that puts the warm equilibrium at f_strat = threshold. */
-static void thresholds(const column *c, const balance *b, const vl_env *env, vl_env *out)
-{
-    double s_run = 0.0, s_moist = NAN, thr = log(c->cp.moist_threshold);
-    for (int j = 0; j < NT; j++) {
-        if (grid_t(j) < split_temp(c))
-            continue;
-        double s_eq = 4.0 * b->olr[j] / (1.0 - b->alb[j]);
-        if (s_eq > s_run)
-            s_run = s_eq;
-        if (isnan(s_moist) && j > 0 && b->log_f[j - 1] < thr && b->log_f[j] >= thr)
-            s_moist = s_eq;
-    }
-    (void)env;
-    out->s_runaway = s_run / VL_S_EARTH;
-    out->s_moist = isnan(s_moist) ? INFINITY : s_moist / VL_S_EARTH;
-}
-
-/* Interpolate ln f_strat at temperature t on the grid. */
-static double log_f_at(const balance *b, double t)
-{
-    double x = grid_index(t);
-    int j = x >= NT - 1 ? NT - 2 : (int)x;
-    double u = x - j;
-    return b->log_f[j] + u * (b->log_f[j + 1] - b->log_f[j]);
-}
-
-/* Surface temperature on the branch of the regime in force: the cold branch (T below
- * freezing) for the frozen regime, the warm branch otherwise. Where the branch's root
- * exists it is returned; once the branch has vanished (past a saddle-node, before the
- * integrator has switched regime) the "ghost" is returned, the temperature where the
- * imbalance comes closest to zero, so that T_s stays continuous within a regime. */
-static double branch_temp(const column *c, const balance *b, int regime)
-{
-    int cold = regime == VL_REGIME_FROZEN;
-    int j = cold ? b->cold : b->warm;
-    if (j >= 0)
-        return root_in(b, j);
-    int lo = 0, hi = NT - 1;
-    for (int k = 0; k < NT; k++) {
-        if (grid_t(k) < split_temp(c))
-            lo = cold ? lo : k + 1;
-        else if (cold) {
-            hi = k;
-            break;
-        }
-    }
-    if (lo > hi)
-        lo = hi;
-    int best = lo;
-    for (int k = lo; k <= hi; k++)
-        if (fabs(b->net[k]) < fabs(b->net[best]))
-            best = k;
-    if (best == 0 || best == NT - 1)
-        return grid_t(best);
-    /* vertex of the parabola through the three points around the closest approach */
-    double y0 = b->net[best - 1], y1 = b->net[best], y2 = b->net[best + 1];
-    double den = y0 - 2.0 * y1 + y2;
-    double off = den != 0.0 ? 0.5 * (y0 - y2) / den : 0.0;
-    off = off < -1.0 ? -1.0 : off > 1.0 ? 1.0 : off;
-    return grid_t(best) + off * (off < 0.0 ? grid_t(best) - grid_t(best - 1)
-                                            : grid_t(best + 1) - grid_t(best));
+    double r;
+    int br = branch_of(regime);
+    if (vl_balance_root(b, c->table, &w->la, &c->surface, br, c->split_k, &r))
+        return r;
+    return vl_balance_ghost(b, c->table, &w->la, &c->surface, br, c->split_k);
 }
 
 static void column_eval(const void *state, void *work, double water_kg, vl_env *env)
 {
     const column *c = state;
-    const vl_climate_params *cp = &c->cp;
+    column_work *w = work;
+    /* wet: an ocean while the surface keeps water (a runaway's steam ocean too, until it
+     * has all evaporated: the balance turns sea into rock at that temperature) */
     int wet = env->regime != VL_REGIME_DRY;
-    const balance *b = get_balance(c, work, wet, env);
-    if (!b) { /* out of memory: a NaN state stops the integrator with a message */
+    vl_balance *b = balance_of(c, w, wet, water_kg, env);
+    double t = branch_temp(c, w, b, env->regime);
+    if (b->oom) { /* out of memory: a NaN state stops the integrator with a message */
         env->t_surf_k = env->t_balance_k = env->f_strat = NAN;
         return;
     }
-    thresholds(c, b, env, env);
-    double t = branch_temp(c, b, env->regime), log_f = log_f_at(b, t);
-    env->t_balance_k = t;
-    int runaway = env->regime == VL_REGIME_RUNAWAY;
-    env->t_surf_k = runaway ? cp->runaway_surface_temp_k : t;
-
+    env->t_surf_k = env->t_balance_k = t;
+    env->f_strat = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
+    env->s_runaway = env->s_moist = NAN; /* thresholds: only the balance curves compute them */
     vl_dry_air air;
     vl_climate_dry_air(env, &air);
-    vl_climate_partition(water_kg, runaway, &air, env);
+    vl_climate_partition(water_kg, 0, &air, env); /* saturated, at most all of it */
     env->liquid = 0.0;
-    if (wet && !runaway && env->t_surf_k < VL_WATER_TC_K) /* the ice-free share of the ocean */
-        env->liquid = smoothstep(env->t_surf_k, cp->ice_cover_k, cp->ice_free_k);
-    if (runaway) { /* steam throughout: the upper atmosphere has the bulk vapour fraction */
-        double mol_v = env->vapour_kg / vl_species_molar_mass(VL_SP_H2O);
-        env->f_strat = mol_v + air.mol > 0.0 ? mol_v / (mol_v + air.mol) : 0.0;
-    } else {
-        env->f_strat = wet ? exp(log_f) : 0.0;
-    }
+    if (wet_regime(env->regime) && t < VL_WATER_TC_K) /* the ice-free share of the ocean */
+        env->liquid = smoothstep(t, c->cp.ice_cover_k, c->cp.ice_free_k);
+}
+
+/* 1 and the root temperature if branch br of balance b has a root. */
+static int has_root(const column *c, column_work *w, vl_balance *b, int br, double *r)
+{
+    return vl_balance_root(b, c->table, &w->la, &c->surface, br, c->split_k, r);
+}
+
+/* 1 if balance b cools even at its floor (CO2's frost point or the grid's lower end): a
+ * frozen surface sits there, held by the latent heat of CO2 frost, and stays frozen. */
+static int below_floor(const column *c, column_work *w, vl_balance *b)
+{
+    return vl_balance_net(b, c->table, &w->la, &c->surface, b->t_floor) < 0.0;
+}
+
+/* Warm-branch regime from its root's stratospheric water. */
+static int warm_regime(const column *c, column_work *w, vl_balance *b, double r)
+{
+    double f = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, r));
+    return f >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
 }
 
 static int column_classify(const void *state, void *work, double water_kg, const vl_env *env)
 {
     const column *c = state;
+    column_work *w = work;
     if (water_kg < c->cp.dry_threshold_kg)
         return VL_REGIME_DRY;
-    const balance *b = get_balance(c, work, 1, env);
-    if (!b)
-        return env->regime;
-    int warm_ok = b->warm >= 0, cold_ok = b->cold >= 0;
-    if (env->regime == VL_REGIME_FROZEN && cold_ok)
+    vl_balance *wet = balance_of(c, w, 1, water_kg, env);
+    double r;
+    if (env->regime == VL_REGIME_FROZEN &&
+        (has_root(c, w, wet, VL_BRANCH_COLD, &r) || below_floor(c, w, wet)))
         return VL_REGIME_FROZEN;
-    if (!warm_ok) /* too hot for any equilibrium, or only the frozen one (or none: colder
-                     than the grid) is left */
-        return b->net[NT - 1] > 0.0 ? VL_REGIME_RUNAWAY : VL_REGIME_FROZEN;
-    double log_f = log_f_at(b, branch_temp(c, b, VL_REGIME_TEMPERATE));
-    return exp(log_f) >= c->cp.moist_threshold ? VL_REGIME_MOIST : VL_REGIME_TEMPERATE;
+    if (env->regime == VL_REGIME_RUNAWAY && has_root(c, w, wet, VL_BRANCH_HOT, &r))
+        return VL_REGIME_RUNAWAY;
+    if (has_root(c, w, wet, VL_BRANCH_WARM, &r))
+        return warm_regime(c, w, wet, r);
+    if (has_root(c, w, wet, VL_BRANCH_HOT, &r))
+        return VL_REGIME_RUNAWAY;
+    if (has_root(c, w, wet, VL_BRANCH_COLD, &r))
+        return VL_REGIME_FROZEN;
+    /* no equilibrium at all: too hot for any (runaway) or colder than the grid */
+    return vl_balance_net(wet, c->table, &w->la, &c->surface, 400.0) > 0.0 ? VL_REGIME_RUNAWAY
+                                                                         : VL_REGIME_FROZEN;
+}
+
+/* Thresholds in S_eff units over the wet balance's grid: the largest flux with a warm
+ * equilibrium (4 OLR/(1 - A) maximised over the warm range) and the flux that puts the
+ * warm equilibrium at the moist-greenhouse mixing ratio. */
+static void thresholds(const column *c, vl_curve *cv, size_t n, double t_hot)
+{
+    double s_run = 0.0, s_moist = NAN, thr = c->cp.moist_threshold;
+    for (size_t j = 0; j < n; j++) {
+        if (cv->t_k[j] < c->split_k || cv->t_k[j] > t_hot)
+            continue;
+        double s_eq = 4.0 * cv->olr[j] / (1.0 - cv->albedo[j]);
+        if (s_eq > s_run)
+            s_run = s_eq;
+        if (isnan(s_moist) && j > 0 && cv->f_strat[j - 1] < thr && cv->f_strat[j] >= thr)
+            s_moist = s_eq;
+    }
+    cv->s_runaway = s_run / VL_S_EARTH;
+    cv->s_moist = isnan(s_moist) ? INFINITY : s_moist / VL_S_EARTH;
+}
+
+/* The curves of balance b at t_k[0..n-1] into out (from index 0). */
+static void fill_curve(const column *c, column_work *w, vl_balance *b, const vl_env *env,
+                       const double *t_k, size_t n, vl_curve *out)
+{
+    for (size_t i = 0; i < n; i++) {
+        double t = t_k[i];
+        out->t_k[i] = t;
+        out->olr[i] = vl_balance_olr(b, c->table, &w->la, &c->surface, t);
+        out->albedo[i] = vl_balance_albedo(b, c->table, &w->la, &c->surface, t);
+        out->absorbed[i] = env->instellation * (1.0 - out->albedo[i]) / 4.0;
+        out->f_strat[i] = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
+    }
 }
 
 static size_t column_curve(const void *state, void *work, const vl_env *env, int wet,
-                           vl_curve *out)
+                           const double *t_k, size_t n, vl_curve *out)
 {
-    const balance *b = get_balance(state, work, wet, env);
-    if (!b)
-        return 0;
-    for (int j = 0; j < NT; j++) {
-        out->t_k[j] = grid_t(j);
-        out->olr[j] = b->olr[j];
-        out->absorbed[j] = b->olr[j] + b->net[j];
-        out->albedo[j] = b->alb[j];
-        out->f_strat[j] = wet ? exp(b->log_f[j]) : 0.0;
-    }
-    return NT;
+    const column *c = state;
+    column_work *w = work;
+    double water = env->ocean_kg + env->vapour_kg;
+    vl_balance *b = balance_of(c, w, wet, wet ? water : 0.0, env);
+    double grid[VL_CT_NT];
+    for (int j = 0; j < VL_CT_NT; j++)
+        grid[j] = vl_ct_grid_t(j);
+    fill_curve(c, w, b, env, grid, VL_CT_NT, out); /* the thresholds come from the grid */
+    thresholds(c, out, VL_CT_NT, b->t_hot);
+    if (t_k)
+        fill_curve(c, w, b, env, t_k, n < VL_CURVE_MAX ? n : VL_CURVE_MAX, out);
+    else
+        n = VL_CT_NT;
+    return b->oom ? 0 : n;
 }
 
 static void column_stats(const void *work, long *nodes, double *build_s)
 {
     const column_work *w = work;
-    *nodes = w->nodes_built;
-    *build_s = w->build_s;
+    *nodes = w->la.points;
+    *build_s = w->la.build_s;
+}
+
+/* The column options of the scenario. */
+static vl_column_opts options(const vl_scenario *sc, double g)
+{
+    const vl_climate_params *cp = &sc->climate;
+    vl_column_opts o;
+    memset(&o, 0, sizeof o); /* the table registry compares options with memcmp */
+    o.g = g;
+    o.scales = (vl_opacity_scales){cp->h2o_line_scale, cp->h2o_nir_line_scale, cp->co2_line_scale,
+                                   cp->h2o_cont_scale, cp->co2_cont_scale,
+                                   cp->cia_scale};
+    o.strat_offset_k = cp->strat_offset_k;
+    if (cp->cloud_fraction > 0.0)
+        o.cloud = (vl_cloud){cp->cloud_p_ratio, cp->cloud_tau, 0.5 * cp->cloud_tau};
+    return o;
+}
+
+static vl_surface surface_of(const vl_climate_params *cp)
+{
+    return (vl_surface){cp->ocean_albedo, cp->land_albedo, cp->land_fraction, cp->ice_albedo_vis,
+                        cp->ice_albedo_nir, cp->ice_cover_k, cp->ice_free_k, cp->melt_albedo,
+                        cp->melt_start_k, cp->melt_full_k, cp->cloud_fraction,
+                        cp->albedo_mode == VL_ALBEDO_FIXED, cp->bond_albedo};
 }
 
 static void *column_create(const vl_scenario *sc, vl_status *st)
 {
     const vl_climate_params *cp = &sc->climate;
-    if (cp->ice_cover_k > cp->ice_free_k || cp->steam_start_k > cp->steam_full_k) {
+    if (cp->ice_cover_k > cp->ice_free_k || cp->melt_start_k > cp->melt_full_k) {
         vl_fail(st, VL_ERR_INPUT, sc->path, 0,
-                "climate.column: ice_cover_temp_k <= ice_free_temp_k and steam_start_temp_k <= "
-                "steam_full_temp_k are required");
+                "climate.column: ice_cover_temp_k <= ice_free_temp_k and melt_start_temp_k <= "
+                "melt_full_temp_k are required");
         return NULL;
     }
     column *c = calloc(1, sizeof *c);
@@ -398,25 +259,27 @@ static void *column_create(const vl_scenario *sc, vl_status *st)
         return NULL;
     }
     c->cp = *cp;
-    double g = VL_G_NEWTON * sc->planet.mass_kg / (sc->planet.radius_m * sc->planet.radius_m);
-    c->opts = (vl_column_opts){.g = g,
-                               .k_h2o = cp->k_h2o,
-                               .k_co2 = cp->k_co2,
-                               .p0 = cp->p0_pa,
-                               .n_h2o = cp->n_h2o,
-                               .n_co2 = cp->n_co2,
-                               .u_co2_sat = cp->u_co2_sat,
-                               .k_cia = cp->k_cia,
-                               .strat_offset_k = cp->strat_offset_k,
-                               .wet = 1};
-    for (int j = 0; j < NT; j++) {
-        c->w_ice[j] = 1.0 - smoothstep(grid_t(j), cp->ice_cover_k, cp->ice_free_k);
-        c->w_steam[j] = smoothstep(grid_t(j), cp->steam_start_k, cp->steam_full_k);
+    double r = sc->planet.radius_m;
+    c->g = VL_G_NEWTON * sc->planet.mass_kg / (r * r);
+    c->area_m2 = 4.0 * VL_PI * r * r;
+    c->split_k = 0.5 * (cp->ice_cover_k + cp->ice_free_k);
+    c->surface = surface_of(cp);
+    vl_column_opts o = options(sc, c->g);
+    if (!(c->table = vl_ctable_get(&o))) {
+        free(c);
+        vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+        return NULL;
     }
     return c;
 }
 
-static void column_destroy(void *state) { free(state); }
+static void column_destroy(void *state)
+{
+    column *c = state;
+    if (c)
+        vl_ctable_release(c->table);
+    free(c);
+}
 
 static void *column_work_new(const void *state)
 {
@@ -424,18 +287,7 @@ static void *column_work_new(const void *state)
     return calloc(1, sizeof(column_work));
 }
 
-static void column_work_free(void *work)
-{
-    column_work *w = work;
-    if (!w)
-        return;
-    for (int wet = 0; wet < 2; wet++)
-        for (int i = 0; i < NP; i++)
-            for (int k = 0; k < NP; k++)
-                free(w->nodes[wet][i][k]);
-    free(w->cache);
-    free(w);
-}
+static void column_work_free(void *work) { free(work); }
 
 const vl_climate_backend vl_column_backend = {
     .name = "column",

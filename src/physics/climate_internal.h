@@ -21,7 +21,8 @@ typedef struct vl_climate_backend {
     /* The vl_climate_classify contract (climate.h). */
     int (*classify)(const void *state, void *work, double water_kg, const vl_env *env);
     /* Optional: the vl_climate_curve contract. */
-    size_t (*curve)(const void *state, void *work, const vl_env *env, int wet, vl_curve *out);
+    size_t (*curve)(const void *state, void *work, const vl_env *env, int wet, const double *t_k,
+                     size_t n, vl_curve *out);
     /* Optional: table statistics of a workspace. */
     void (*stats)(const void *work, long *nodes, double *build_s);
 } vl_climate_backend;

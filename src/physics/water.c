@@ -39,6 +39,24 @@ double vl_water_psat(double t_k)
     return INFINITY;
 }
 
+double vl_water_tsat(double p_pa)
+{
+    if (p_pa >= VL_WATER_PC_PA)
+        return VL_WATER_TC_K;
+    double lo = 110.0, hi = VL_WATER_TC_K;
+    if (!(p_pa > vl_water_psat(lo)))
+        return lo;
+    double lnp = log(p_pa);
+    while (hi - lo > 1e-9 * hi) { /* ln psat rises monotonically with T */
+        double mid = 0.5 * (lo + hi);
+        if (log(vl_water_psat(mid)) < lnp)
+            lo = mid;
+        else
+            hi = mid;
+    }
+    return 0.5 * (lo + hi);
+}
+
 #define L_TRIPLE 2.5009e6 /* J/kg, IAPWS-95 tables at 273.16 K, from memory */
 #define L_FUSION 3.337e5  /* J/kg at 273.15 K, common practice */
 

@@ -1,0 +1,398 @@
+/* climate_balance.c: the column climate's energy balance at one instant
+ * (climate_balance.h).
+ *
+ * Grid values come from the table's pressure nodes around the state, weighted linearly
+ * in log pressure (H2 linearly in pressure near zero); the cloud fraction mixes the
+ * clear and cloudy columns; the planetary albedo follows from each node's band
+ * reflectances, the surface's band albedos at that temperature and the star's band
+ * shares (radiation.h). Between grid temperatures every quantity is a cubic Hermite
+ * curve with the slopes of the weighted three-point finite difference (non-uniform grid),
+ * so it is continuous with its first derivative. */
+#include "climate_balance.h"
+
+#include "volev/co2.h"
+
+#include <math.h>
+#include <string.h>
+
+#include "volev/profile.h"
+#include "volev/radiation.h"
+#include "volev/spectrum.h"
+#include "volev/water.h"
+
+#define T_MIN 150.0
+#define OVERLAP_K 5.0 /* half-width of the cold/warm branch overlap, K */
+#define T_MAX 3000.0
+#define WINDOW 6  /* cells searched around the last root before a whole-range scan */
+#define STRIDE 6  /* grid points between the samples of a whole-range scan */
+
+static double smoothstep(double x, double lo, double hi)
+{
+    if (hi <= lo)
+        return x >= hi ? 1.0 : 0.0;
+    double u = (x - lo) / (hi - lo);
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    return u * u * (3.0 - 2.0 * u);
+}
+
+void vl_surface_albedo(const vl_surface *s, double ocean, double t, double a[VL_NBANDS])
+{
+    double w_melt = smoothstep(t, s->melt_start_k, s->melt_full_k);
+    double w_ice = ocean * (1.0 - smoothstep(t, s->ice_cover_k, s->ice_free_k));
+    double sea = ocean * (1.0 - s->land_fraction);
+    double open = sea * s->ocean + (1.0 - sea) * s->land;
+    for (int b = 0; b < VL_NBANDS; b++) {
+        double ice = vl_band_edge[b] >= 14300.0 ? s->ice_vis : s->ice_nir;
+        double cold = w_ice * ice + (1.0 - w_ice) * open;
+        a[b] = w_melt * s->melt + (1.0 - w_melt) * cold;
+    }
+}
+
+/* Where the surface water has all gone into the air: the saturated vapour reaches the
+ * inventory (bisection), at most the critical point. */
+static double condensation_limit(const vl_balance_key *k, double g)
+{
+    vl_column_gases gs = {k->p[VL_CT_CO2] / g, k->p[VL_CT_BG] / g, k->p[VL_CT_H2] / g,
+                          k->p[VL_CT_WATER] / g};
+    double lo = T_MIN, hi = VL_WATER_TC_K;
+    if (!(vl_profile_vapour(&gs, g, hi) >= gs.water * (1.0 - 1e-12)))
+        return hi;
+    if (vl_profile_vapour(&gs, g, lo) >= gs.water * (1.0 - 1e-12))
+        return lo;
+    for (int i = 0; i < 50; i++) {
+        double mid = 0.5 * (lo + hi);
+        if (vl_profile_vapour(&gs, g, mid) >= gs.water * (1.0 - 1e-12))
+            hi = mid;
+        else
+            lo = mid;
+    }
+    return hi;
+}
+
+/* The steam point: where p_sat(T) equals the dry gases' pressure (bisection; the
+ * critical point at most). */
+static double steam_point(const vl_balance_key *k)
+{
+    double p_dry = k->p[VL_CT_CO2] + k->p[VL_CT_BG] + k->p[VL_CT_H2];
+    double lo = T_MIN, hi = VL_WATER_TC_K;
+    if (vl_water_psat(hi * (1.0 - 1e-12)) <= p_dry)
+        return hi;
+    for (int i = 0; i < 50; i++) {
+        double mid = 0.5 * (lo + hi);
+        if (vl_water_psat(mid) < p_dry)
+            lo = mid;
+        else
+            hi = mid;
+    }
+    return hi;
+}
+
+void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double split_k)
+{
+    (void)split_k;
+    if (b->valid && memcmp(&b->key, key, sizeof *key) == 0)
+        return;
+    int same_star = b->valid && b->key.teff_k == key->teff_k;
+    b->key = *key;
+    for (int d = 0; d < VL_CT_NDIM; d++)
+        vl_ct_bracket(d, key->p[d], &b->lo[d], &b->w[d]);
+    if (!same_star)
+        vl_star_band_shares(key->teff_k, b->share);
+    memset(b->have, 0, sizeof b->have);
+    b->t_cond = condensation_limit(key, g);
+    b->t_hot = fmin(fmax(steam_point(key), VL_STEAM_FLOOR_K), b->t_cond);
+    /* a surface colder than CO2's frost point at its partial pressure would take the
+     * air's CO2 as ice: the surface is held there by the latent heat (atmospheric
+     * collapse itself is not modelled; docs/model.md section 3) */
+    b->t_floor = key->p[VL_CT_CO2] > 0.0 ? fmax(T_MIN, vl_co2_tsat(key->p[VL_CT_CO2])) : T_MIN;
+    b->valid = 1;
+}
+
+/* How much of a wet planet's ocean is left at t: 1 below the temperature at which it
+ * has all evaporated, 0 above, a 10 K smoothstep in between (the surface turns from
+ * sea to rock, and the clouds that the ocean feeds go). */
+static double ocean_left(const vl_balance *b, double t)
+{
+    return b->key.wet ? 1.0 - smoothstep(t, b->t_cond - 10.0, b->t_cond) : 0.0;
+}
+
+/* The values of one node point at grid temperature j. */
+static void point_values(const vl_balance *b, const vl_surface *s, const vl_column_point *p,
+                         int j, double *olr, double *alb, double *logf)
+{
+    double ocean = ocean_left(b, vl_ct_grid_t(j)), cf = ocean * s->cloud_fraction;
+    *olr = (1.0 - cf) * p->olr[0] + cf * p->olr[1];
+    if (s->fixed) {
+        *alb = s->fixed_albedo;
+    } else {
+        double a[VL_NBANDS];
+        vl_surface_albedo(s, ocean, vl_ct_grid_t(j), a);
+        *alb = (1.0 - cf) * vl_radiation_albedo(&p->sw[0], b->share, a) +
+               cf * vl_radiation_albedo(&p->sw[1], b->share, a);
+    }
+    *logf = log(fmax(p->f_strat, 1e-30));
+}
+
+/* Fill grid point j from the nodes around the state. */
+static void ensure(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j)
+{
+    if (b->have[j])
+        return;
+    double olr = 0.0, alb = 0.0, logf = 0.0;
+    for (int c = 0; c < 1 << VL_CT_NDIM; c++) {
+        int idx[VL_CT_NDIM];
+        double w = 1.0;
+        for (int d = 0; d < VL_CT_NDIM; d++) {
+            int hi = c >> d & 1;
+            w *= hi ? b->w[d] : 1.0 - b->w[d];
+            idx[d] = b->lo[d] + hi;
+        }
+        if (w == 0.0)
+            continue;
+        const vl_column_point *p = vl_ctable_point(t, la, idx, j);
+        if (!p) {
+            b->oom = 1;
+            continue;
+        }
+        double o, a, f;
+        point_values(b, s, p, j, &o, &a, &f);
+        olr += w * o;
+        alb += w * a;
+        logf += w * f;
+    }
+    b->olr[j] = olr;
+    b->alb[j] = alb;
+    b->logf[j] = logf;
+    b->have[j] = 1;
+}
+
+/* Grid net flux at j. */
+static double net_at(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j)
+{
+    ensure(b, t, la, s, j);
+    return b->key.instellation * (1.0 - b->alb[j]) / 4.0 - b->olr[j];
+}
+
+/* Slope of series v at grid point j (weighted three-point difference; one-sided at the
+ * ends). */
+static double slope(const double *v, int j)
+{
+    if (j <= 0)
+        return (v[1] - v[0]) / (vl_ct_grid_t(1) - vl_ct_grid_t(0));
+    if (j >= VL_CT_NT - 1)
+        return (v[j] - v[j - 1]) / (vl_ct_grid_t(j) - vl_ct_grid_t(j - 1));
+    double h0 = vl_ct_grid_t(j) - vl_ct_grid_t(j - 1), h1 = vl_ct_grid_t(j + 1) - vl_ct_grid_t(j);
+    double d0 = (v[j] - v[j - 1]) / h0, d1 = (v[j + 1] - v[j]) / h1;
+    return (d0 * h1 + d1 * h0) / (h0 + h1);
+}
+
+/* Cubic Hermite value of the series sel (0 OLR, 1 albedo, 2 ln f) at temperature temp. */
+static double hermite(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                      int sel, double temp)
+{
+    double x = vl_ct_grid_index(temp);
+    int j = (int)x < VL_CT_NT - 1 ? (int)x : VL_CT_NT - 2;
+    for (int k = j - 1; k <= j + 2; k++)
+        if (k >= 0 && k < VL_CT_NT)
+            ensure(b, t, la, s, k);
+    const double *v = sel == 0 ? b->olr : sel == 1 ? b->alb : b->logf;
+    double t0 = vl_ct_grid_t(j), h = vl_ct_grid_t(j + 1) - t0, u = (temp - t0) / h;
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    double h00 = (1.0 + 2.0 * u) * (1.0 - u) * (1.0 - u), h10 = u * (1.0 - u) * (1.0 - u);
+    double h01 = u * u * (3.0 - 2.0 * u), h11 = u * u * (u - 1.0);
+    return h00 * v[j] + h10 * h * slope(v, j) + h01 * v[j + 1] + h11 * h * slope(v, j + 1);
+}
+
+double vl_balance_olr(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                      double temp)
+{
+    return hermite(b, t, la, s, 0, temp);
+}
+
+double vl_balance_albedo(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                         double temp)
+{
+    return hermite(b, t, la, s, 1, temp);
+}
+
+double vl_balance_logf(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                       double temp)
+{
+    return hermite(b, t, la, s, 2, temp);
+}
+
+double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                      double temp)
+{
+    return b->key.instellation * (1.0 - hermite(b, t, la, s, 1, temp)) / 4.0 -
+           hermite(b, t, la, s, 0, temp);
+}
+
+/* ------------------------------------------------------------------ roots */
+
+/* Temperature range of branch br. */
+static void branch_range(const vl_balance *b, int br, double split_k, double *lo, double *hi)
+{
+    /* the cold and warm branches overlap by 2 OVERLAP_K around the split, so that a root
+     * that moves across it keeps its regime until it is clear of the other side
+     * (hysteresis: no chattering of freeze and thaw events around the split) */
+    *lo = br == VL_BRANCH_WARM ? split_k - OVERLAP_K : br == VL_BRANCH_HOT ? b->t_hot : b->t_floor;
+    *hi = br == VL_BRANCH_COLD ? split_k + OVERLAP_K : br == VL_BRANCH_WARM ? b->t_hot : T_MAX;
+    *lo = fmax(*lo, b->t_floor);
+    if (*hi < *lo)
+        *hi = *lo;
+}
+
+/* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve. */
+static double refine(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                     int j)
+{
+    double lo = vl_ct_grid_t(j), hi = vl_ct_grid_t(j + 1);
+    for (int i = 0; i < 40; i++) {
+        double mid = 0.5 * (lo + hi);
+        if (vl_balance_net(b, t, la, s, mid) > 0.0)
+            lo = mid;
+        else
+            hi = mid;
+    }
+    return 0.5 * (lo + hi);
+}
+
+/* 1 and the root if cell j holds a stable crossing whose root lies in [lo, hi). */
+static int cell_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                     int j, double lo, double hi, double *root)
+{
+    if (j < 0 || j >= VL_CT_NT - 1)
+        return 0;
+    if (!(net_at(b, t, la, s, j) > 0.0 && net_at(b, t, la, s, j + 1) <= 0.0))
+        return 0;
+    double r = refine(b, t, la, s, j);
+    if (r < lo || r >= hi)
+        return 0;
+    *root = r;
+    return 1;
+}
+
+/* Whole-range scan: samples every STRIDE grid points, each falling sign change narrowed
+ * by bisection over grid points; the root nearest prefer. */
+static int scan(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                double lo, double hi, double prefer, double *root)
+{
+    int j0 = (int)vl_ct_grid_index(lo), j1 = (int)ceil(vl_ct_grid_index(hi));
+    int found = 0, prev = j0;
+    double best = 0.0;
+    for (int j = j0 + STRIDE;; j += STRIDE) {
+        int jj = j < j1 ? j : j1;
+        if (jj <= prev)
+            break;
+        if (net_at(b, t, la, s, prev) > 0.0 && net_at(b, t, la, s, jj) <= 0.0) {
+            int a = prev, c = jj;
+            while (c - a > 1) {
+                int m = (a + c) / 2;
+                if (net_at(b, t, la, s, m) > 0.0)
+                    a = m;
+                else
+                    c = m;
+            }
+            double r;
+            if (cell_root(b, t, la, s, a, lo, hi, &r) &&
+                (!found || fabs(r - prefer) < fabs(best - prefer))) {
+                best = r;
+                found = 1;
+            }
+        }
+        prev = jj;
+        if (jj == j1)
+            break;
+    }
+    if (found)
+        *root = best;
+    return found;
+}
+
+/* Where a branch without history starts looking. */
+static double default_start(int br, const vl_balance *b, double split_k)
+{
+    if (br == VL_BRANCH_COLD)
+        return fmin(220.0, split_k - 1.0);
+    if (br == VL_BRANCH_WARM)
+        return fmax(288.0, split_k + 1.0) < b->t_cond ? fmax(288.0, split_k + 1.0) : split_k;
+    if (br == VL_BRANCH_HOT)
+        return b->t_hot;
+    /* any: the radiative equilibrium of a grey planet with albedo 0.3 */
+    return pow(b->key.instellation * 0.7 / (4.0 * 5.670374419e-8), 0.25);
+}
+
+int vl_balance_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                    int br, double split_k, double *root_k)
+{
+    double lo, hi;
+    branch_range(b, br, split_k, &lo, &hi);
+    if (!(hi > lo))
+        return 0;
+    double start = b->last[br] > 0.0 ? b->last[br] : default_start(br, b, split_k);
+    int c0 = (int)vl_ct_grid_index(start);
+    for (int d = 0; d <= WINDOW; d++)
+        for (int sgn = 0; sgn < (d ? 2 : 1); sgn++) {
+            double r;
+            if (cell_root(b, t, la, s, sgn ? c0 - d : c0 + d, lo, hi, &r)) {
+                b->last[br] = *root_k = r;
+                return 1;
+            }
+        }
+    if (!scan(b, t, la, s, lo, hi, start, root_k))
+        return 0;
+    b->last[br] = *root_k;
+    return 1;
+}
+
+/* Whether grid point j comes closer to a balance than best (-1: none yet), skipping
+ * points next to an unstable crossing (N rising through zero): the ghost is the near
+ * miss of a vanished stable root, not an unstable equilibrium. */
+static int closer(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j,
+                  int best, int j0, int j1)
+{
+    double nj = net_at(b, t, la, s, j);
+    double below = j > j0 ? net_at(b, t, la, s, j - 1) : nj;
+    double above = j < j1 ? net_at(b, t, la, s, j + 1) : nj;
+    if (fmin(below, nj) < 0.0 && fmax(nj, above) > 0.0 && above > below)
+        return 0;
+    return best < 0 || fabs(nj) < fabs(net_at(b, t, la, s, best));
+}
+
+double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                        int br, double split_k)
+{
+    double lo, hi;
+    branch_range(b, br, split_k, &lo, &hi);
+    /* colder than any balance: the surface sits at the branch's floor */
+    if ((br == VL_BRANCH_COLD || br == VL_BRANCH_ANY) && vl_balance_net(b, t, la, s, lo) < 0.0)
+        return lo;
+    /* hotter than any balance: the surface sits at the grid's top (3000 K; hotter
+     * surfaces are outside the column's range, docs/model.md section 3) */
+    if ((br == VL_BRANCH_HOT || br == VL_BRANCH_ANY) && hi >= T_MAX &&
+        vl_balance_net(b, t, la, s, hi) > 0.0)
+        return hi;
+    int j0 = (int)ceil(vl_ct_grid_index(lo)), j1 = (int)vl_ct_grid_index(hi);
+    if (j1 < j0)
+        j1 = j0;
+    int best = -1;
+    for (int j = j0; j <= j1; j += STRIDE) /* coarse, then around the best sample */
+        if (closer(b, t, la, s, j, best, j0, j1))
+            best = j;
+    if (best < 0)
+        best = j0;
+    int a = best - STRIDE > j0 ? best - STRIDE : j0, c = best + STRIDE < j1 ? best + STRIDE : j1;
+    for (int j = a; j <= c; j++)
+        if (closer(b, t, la, s, j, best, j0, j1))
+            best = j;
+    if (best <= 0 || best >= VL_CT_NT - 1)
+        return vl_ct_grid_t(best);
+    /* vertex of the parabola through the three points around the closest approach */
+    double y0 = net_at(b, t, la, s, best - 1), y1 = net_at(b, t, la, s, best),
+           y2 = net_at(b, t, la, s, best + 1);
+    double den = y0 - 2.0 * y1 + y2, off = den != 0.0 ? 0.5 * (y0 - y2) / den : 0.0;
+    off = off < -1.0 ? -1.0 : off > 1.0 ? 1.0 : off;
+    double tb = vl_ct_grid_t(best);
+    return tb + off * (off < 0.0 ? tb - vl_ct_grid_t(best - 1) : vl_ct_grid_t(best + 1) - tb);
+}

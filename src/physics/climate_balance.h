@@ -1,0 +1,84 @@
+/* climate_balance.h: the energy balance of the column climate at one instant
+ * (climate_balance.c), private to src/physics. For the atmosphere, the star and the
+ * surface of the moment it gives, on the table's surface-temperature grid and lazily,
+ * the outgoing radiation, the planetary albedo, the net flux
+ * N(T) = S (1 - A(T)) / 4 - OLR(T) and the cold-trap water, interpolated from the
+ * table's pressure nodes; between grid temperatures, C1 cubic Hermite curves. Stable
+ * equilibria are where N falls through zero. */
+#ifndef VOLEV_CLIMATE_BALANCE_H
+#define VOLEV_CLIMATE_BALANCE_H
+
+#include "climate_table.h"
+#include "volev/env.h"
+#include "volev/scenario.h"
+
+/* Surface albedo and clouds: what the balance applies to the table's points. */
+typedef struct vl_surface {
+    double ocean, land, land_fraction;   /* band-independent albedos, share of land */
+    double ice_vis, ice_nir;             /* ice albedo above / below 14 300 cm^-1 (0.7 um) */
+    double ice_cover_k, ice_free_k;      /* ice-covered below, ice-free above */
+    double melt, melt_start_k, melt_full_k; /* molten surface albedo and its ramp */
+    double cloud_fraction;               /* share of the sky under the cloud layer (wet) */
+    int fixed;                           /* 1: planetary albedo fixed at fixed_albedo */
+    double fixed_albedo;
+} vl_surface;
+
+/* What one balance depends on. */
+typedef struct vl_balance_key {
+    double p[VL_CT_NDIM];      /* water inventory, CO2, background, H2 (pressure alone), Pa */
+    double instellation;       /* W/m^2 */
+    double teff_k;             /* stellar effective temperature */
+    int wet;                   /* 1: the surface holds an ocean (or its ice) and clouds form */
+} vl_balance_key;
+
+/* A balance: cached values on the grid and the last root of each branch. */
+enum { VL_BRANCH_COLD, VL_BRANCH_WARM, VL_BRANCH_HOT, VL_BRANCH_ANY, VL_NBRANCH };
+typedef struct vl_balance {
+    vl_balance_key key;
+    int valid;
+    int lo[VL_CT_NDIM];        /* lower corner */
+    double w[VL_CT_NDIM];      /* weight of the upper corner */
+    double share[VL_NBANDS];   /* the star's band shares */
+    unsigned char have[VL_CT_NT];
+    double olr[VL_CT_NT], alb[VL_CT_NT], logf[VL_CT_NT];
+    double t_cond;             /* where the surface water has all evaporated, K */
+    double t_hot;              /* where the hot (runaway) branch begins, K */
+    double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
+    double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
+    int oom;                   /* a point could not be computed */
+} vl_balance;
+
+/* Prepare b for key (keeping cached values when the key is unchanged). */
+void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double split_k);
+
+/* Interpolated values at temperature t (C1 in t): OLR, albedo, ln f_strat, N. */
+double vl_balance_olr(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                      double temp);
+double vl_balance_albedo(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                         double temp);
+double vl_balance_logf(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                       double temp);
+double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                      double temp);
+
+/* The stable root of branch br nearest its last one (searched outward from it, then
+ * over the branch's whole range); 1 and *root_k if found, else 0. The branch ranges:
+ * cold [150 K, split), warm [split, t_hot), hot [t_hot, 3000 K], any: all. */
+int vl_balance_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                    int br, double split_k, double *root_k);
+
+/* Where |N| is least over branch br's range (the "ghost" of a vanished root). */
+double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                        int br, double split_k);
+
+/* Where the runaway branch begins: the steam point, where the saturation vapour pressure
+ * reaches the pressure of the dry gases (water becomes the main gas), not below 350 K
+ * (where a pure steam column's outgoing radiation reaches its limit) and not above the
+ * temperature at which the surface water has all evaporated. */
+#define VL_STEAM_FLOOR_K 350.0
+
+/* Surface band albedos at temperature t; ocean (0..1): how much of a wet planet's ocean
+ * is there (0: a dry planet's rock). */
+void vl_surface_albedo(const vl_surface *s, double ocean, double t_k, double a[VL_NBANDS]);
+
+#endif
