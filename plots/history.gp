@@ -11,7 +11,9 @@
 # Panels, sharing a logarithmic stellar-age axis:
 #   (a) surface water (TO)
 #   (b) partial pressures of H2O, CO2, N2, O2 and H2 (bar), one colour per species
-#   (c) surface temperature (K) over a strip coloured by climate regime
+#   (c) surface temperature (K) over a strip coloured by climate regime, and the
+#       mantle's potential temperature (dashed) while a magma ocean cools, when the run
+#       started molten (column mantle_temp_k)
 #   (d) escape fluxes (kg/s of the element): the element totals thick and solid, every
 #       escape channel of one element in the element's colour with the channel's dash;
 #       channels that stay zero are left out of the plot and of the legend
@@ -151,6 +153,15 @@ sp_low_note = (strlen(sp_low) > 0) ? sprintf("%s: below 10^{%d} bar", sp_low, in
 # (c) surface temperature (linear axis) and the regimes that occur
 stats hs_data using (column("surface_temp_k")) nooutput
 T_lo = STATS_min; T_hi = STATS_max
+# the mantle's potential temperature while it changes (a molten start)
+mtp_on = 0
+if (hs_has(hs_hdr, "mantle_temp_k")) {
+    stats hs_data using (column("mantle_temp_k")) nooutput
+    if (STATS_max > 0) {
+        mtp_on = 1
+        T_hi = (STATS_max > T_hi) ? STATS_max : T_hi
+    }
+}
 if (T_hi - T_lo < 20.0) { T_mid = 0.5 * (T_hi + T_lo); T_lo = T_mid - 10.0; T_hi = T_mid + 10.0 }
 # the regime strip takes the bottom of the panel (y2 in [0, strip_h]); the curve
 # stays above it
@@ -160,7 +171,7 @@ T_span = T_hi - T_lo
 T_ax_lo = T_lo - T_span * curve_base / (0.95 - curve_base)
 T_ax_hi = T_hi + T_span * 0.05 / (0.95 - curve_base)
 reg_on = ""
-do for [k = 0:4] {
+do for [k = 0:5] {
     stats hs_data using (column("regime") == k ? 1 : 0) nooutput
     if (STATS_sum > 0) { reg_on = reg_on . sprintf(" %d", k + 1) }
 }
@@ -405,6 +416,9 @@ plot hs_data \
         with boxxyerror lc rgb variable axes x1y2 notitle, \
      hs_data using (tclamp(column("time_yr"))):(column("surface_temp_k")) \
         with @HS_W lw 2 lc rgb c_temp title "surface temperature", \
+     for [z = 1:mtp_on] hs_data using (tclamp(column("time_yr"))): \
+        (column("regime") == 5 ? column("mantle_temp_k") : 1/0) \
+        with @HS_W lw 1.5 dt 2 lc rgb "#7A1F1F" title "mantle T (molten)", \
      keyentry with boxes fc rgb "#ffffff" title "climate regime:", \
      for [k = 1:words(reg_on)] keyentry with boxes fc rgb word(reg_rgb, nth(reg_on, k)) \
         title word(reg_names, nth(reg_on, k))

@@ -59,17 +59,18 @@ c_temp = "#000000"
 c_xuv = "#E69F00"; c_lum = "#000000"
 # one colour (and dash) per run in comparisons: run i uses word(c_runs, i), dash i
 c_runs = "#0072B2 #D55E00 #009E73 #CC79A7 #E69F00 #56B4E9 #000000 #F0E442"
-# regimes (enum vl_regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway)
-reg_names = 'dry frozen temperate "moist greenhouse" runaway'
-reg_rgb   = "#E69F00 #56B4E9 #009E73 #F0E442 #D55E00"
+# regimes (enum vl_regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway,
+# 5 magma ocean)
+reg_names = 'dry frozen temperate "moist greenhouse" runaway "magma ocean"'
+reg_rgb   = "#E69F00 #56B4E9 #009E73 #F0E442 #D55E00 #7A1F1F"
 regcol(x) = (x == 0) ? 0xE69F00 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
-            (x == 3) ? 0xF0E442 : (x == 4) ? 0xD55E00 : 0x999999
+            (x == 3) ? 0xF0E442 : (x == 4) ? 0xD55E00 : (x == 5) ? 0x7A1F1F : 0x999999
 # outcome classes of a sweep, in docs/ensembles.md order; colours follow the regime
 # each class ends in (o2_rich: purple, failed: grey)
-cls_names = "failed steam o2_rich desiccated frozen ocean_kept"
-cls_rgb   = "#999999 #D55E00 #CC79A7 #E69F00 #56B4E9 #009E73"
+cls_names = "failed steam o2_rich desiccated frozen ocean_kept molten"
+cls_rgb   = "#999999 #D55E00 #CC79A7 #E69F00 #56B4E9 #009E73 #7A1F1F"
 clscol(i) = (i == 1) ? 0x999999 : (i == 2) ? 0xD55E00 : (i == 3) ? 0xCC79A7 : \
-            (i == 4) ? 0xE69F00 : (i == 5) ? 0x56B4E9 : 0x009E73
+            (i == 4) ? 0xE69F00 : (i == 5) ? 0x56B4E9 : (i == 7) ? 0x7A1F1F : 0x009E73
 
 # decade bounds for a log axis showing at most `dec` decades below the maximum
 decfloor(mn, mx, dec) = 10.0**floor(log10(mn > mx * 10.0**(-dec) ? mn : mx * 10.0**(-dec)) - 0.02)

@@ -31,21 +31,26 @@ command -v gnuplot >/dev/null 2>&1 || {
 }
 
 out=demo-out
-rm -rf "$out/wet" "$out/dry" "$out/wet-vs-dry.png"
+rm -rf "$out/wet" "$out/dry" "$out/wide" "$out/wet-vs-dry.png" "$out/near-vs-wide.png"
 mkdir -p "$out"
 
 echo "== running scenarios/demo.cfg (wet)"
 "$bin" run scenarios/demo.cfg -o "$out/wet"
 echo "== running scenarios/demo-dry.cfg (dry)"
 "$bin" run scenarios/demo-dry.cfg -o "$out/dry"
+echo "== running scenarios/demo-wide.cfg (the wet planet on a wider orbit)"
+"$bin" run scenarios/demo-wide.cfg -o "$out/wide"
 
 echo "== rendering"
 "$bin" plot "$out/wet"
 "$bin" plot "$out/dry"
 # both runs on shared axes (the comparison figure, plots/comparison.gp)
 "$bin" plot "$out/wet" "$out/dry" -o "$out/wet-vs-dry.png" --title "Demo: wet vs dry start"
+# the two kinds of magma-ocean history: molten while the star is bright, or frozen early
+"$bin" plot "$out/wet" "$out/wide" -o "$out/near-vs-wide.png" --title "Demo: 0.110 au vs 0.25 au"
 
 for f in "$out/wet/history.png" "$out/dry/history.png" "$out/wet-vs-dry.png" \
+         "$out/near-vs-wide.png" \
          "$out/wet/summary.csv" "$out/dry/summary.csv"; do
     [ -s "$f" ] || { echo "demo.sh: expected output $f is missing or empty" >&2; exit 1; }
 done
@@ -55,6 +60,7 @@ echo "figures:"
 echo "  ${prefix}$out/wet/history.png"
 echo "  ${prefix}$out/dry/history.png"
 echo "  ${prefix}$out/wet-vs-dry.png"
+echo "  ${prefix}$out/near-vs-wide.png"
 echo "summaries:"
 echo "  ${prefix}$out/wet/summary.csv"
 echo "  ${prefix}$out/dry/summary.csv"

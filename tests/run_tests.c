@@ -4,6 +4,7 @@
 #include <stdio.h>
 
 #include "suites.h"
+#include "volev/climate.h"
 #include "volev/model.h"
 
 const char *vl_test_bin(void)
@@ -46,6 +47,12 @@ vl_model *vl_test_model(const vl_scenario *sc)
 
 int main(void)
 {
+    /* the climate tables' disk cache for the in-process runs too, so that the suites'
+     * forked tests share the points they compute (make check sets a fresh folder) */
+    const char *cache = getenv("VOLEV_CACHE_DIR");
+    vl_status st;
+    if (cache && cache[0] && vl_climate_cache_configure(cache, &st) != VL_OK)
+        fprintf(stderr, "run_tests: climate cache off: %s\n", st.msg);
     SRunner *sr = srunner_create(NULL);
 #define SUITE(name) srunner_add_suite(sr, vl_suite_##name());
 #include "suites.def"

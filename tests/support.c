@@ -180,7 +180,7 @@ void vl_test_climate_free(vl_climate *c)
 static void rates_alone(const vl_model *m, const vl_process *p, const void *params,
                         const double *y, const vl_env *env, double *dydt, double *cols)
 {
-    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    memset(dydt, 0, VL_NSTATE * sizeof dydt[0]);
     memset(cols, 0, p->ncolumns * sizeof cols[0]);
     vl_flux fx = {y, dydt, cols, 0, p->transfers, p->ntransfers, p->reactions, p->nreactions};
     vl_view v = {y, &m->planet, env};

@@ -35,9 +35,9 @@ static void only(vl_scenario *sc, const char *const *names)
 /* Present Earth: one ocean, atmospheric N2 3.887e18 kg ([C]: 5.148e18 kg of air, total
  * atmospheric mass from memory, x 0.7808 N2 by volume, NSSDC, x 28.013/28.965) and
  * co2_mol of surface CO2. */
-static void earth_state(double co2_mol, double y[VL_NRES])
+static void earth_state(double co2_mol, double y[VL_NSTATE])
 {
-    memset(y, 0, VL_NRES * sizeof y[0]);
+    memset(y, 0, VL_NSTATE * sizeof y[0]);
     y[VL_R_WATER] = VL_TO_KG;
     y[VL_R_N2] = 3.887e18;
     y[VL_R_CO2] = co2_mol * mu_co2();
@@ -47,7 +47,7 @@ static void earth_state(double co2_mol, double y[VL_NRES])
 static double rate_of(const vl_model *m, const char *name, const double *y, const vl_env *env,
                       int col)
 {
-    double dydt[VL_NRES], cols[8];
+    double dydt[VL_NSTATE], cols[8];
     vl_test_process_rates(m, name, y, env, dydt, cols);
     return cols[col];
 }
@@ -70,7 +70,7 @@ START_TEST(continental_kinetic_law)
                           "processes.weathering.temp_efold_k=17.3"};
     vl_scenario *sc = vl_test_scenario(NULL, sets, 3);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env env;
     earth_state(3.3e18, y);
     reference_env(m, y, &env);
@@ -106,7 +106,7 @@ START_TEST(rates_scale_with_planet)
     vl_scenario *sa = vl_test_scenario(NULL, small, 2);
     vl_scenario *sb = vl_test_scenario(NULL, absolute, 5);
     vl_model *ma = vl_test_model(sa), *mb = vl_test_model(sb);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env ea, eb;
     earth_state(3.3e18, y);
     y[VL_R_MANTLE_C] = 1e22; /* a source for outgassing */
@@ -133,7 +133,7 @@ START_TEST(continental_runoff_and_supply)
     const char *sets[] = {"processes.weathering.runoff=true"};
     vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env env;
     earth_state(3.3e18, y);
     reference_env(m, y, &env);
@@ -163,7 +163,7 @@ START_TEST(seafloor_law)
     const char *sets[] = {"processes.seafloor_weathering.supply_limit_factor=1e9"};
     vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env env;
     earth_state(3.3e18, y);
     reference_env(m, y, &env);
@@ -205,7 +205,7 @@ START_TEST(outgassing_heat_flow_and_lid)
     const char *sets[] = {"processes.outgassing.heat_flow_exponent=1.5"};
     vl_scenario *sc = vl_test_scenario(NULL, sets, 1);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env env;
     earth_state(3.3e18, y);
     y[VL_R_MANTLE_C] = 5.2e21;
@@ -238,7 +238,7 @@ START_TEST(recycling_split)
 {
     vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_env env;
     earth_state(3.3e18, y);
     /* ~63 bar CO2-equivalent on Earth [C]: ~7.5e21 mol of crustal carbonate (from memory)
@@ -275,7 +275,7 @@ START_TEST(dry_planet_grows_at_outgassing)
     vl_scenario *sc = vl_test_scenario(NULL, sets, 7);
     only(sc, carbon);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES], dydt[VL_NRES], cols[16];
+    double y[VL_NSTATE], dydt[VL_NSTATE], cols[16];
     vl_model_initial_state(m, y);
     double t = 4.0e9 * VL_YR;
     vl_env env;
@@ -328,7 +328,7 @@ END_TEST
 /* Share of the surface CO2 in the air for co2_mol of surface CO2 on present Earth. */
 static double air_share(const vl_model *m, double co2_mol, int regime, vl_env *env)
 {
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     earth_state(co2_mol, y);
     vl_model_env(m, vl_test_work(m), T_NOW, y, regime, env);
     return env->mass_kg[VL_GAS_CO2] / y[VL_R_CO2];
@@ -451,7 +451,7 @@ START_TEST(earth_history_carbon)
     vl_scenario *sc;
     vl_model *m;
     run_earth(NULL, 0, &hist, &s, &sc, &m); /* every default process on: conserves to 1e-8 */
-    double bar = m->planet.pa_per_kg / VL_BAR, y_now[VL_NRES];
+    double bar = m->planet.pa_per_kg / VL_BAR, y_now[VL_NSTATE];
     memcpy(y_now, s.y_final, sizeof y_now);
     /* today: 288 K (hz_fit calibration, docs/model.md) and a few hundred ppmv */
     ck_assert_msg(fabs(hist.last.t_surf_k - 288.0) < 2.0, "T = %g", hist.last.t_surf_k);
@@ -483,7 +483,7 @@ START_TEST(earth_history_carbon)
     run_earth(sets, 6, &base, &s, &sc, &m);
     /* quasi-steady state at the end: continental + seafloor weathering balance the
      * outgassing (mantle + arc return); the net tendency is small against the fluxes */
-    double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
+    double dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
     vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, base.last.regime, dydt, cols, NULL);
     double sinks = column(m, cols, "weathering_co2_kg_s") + column(m, cols, "seafloor_co2_kg_s");
     double sources = column(m, cols, "outgas_co2_kg_s") +

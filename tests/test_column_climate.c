@@ -19,7 +19,7 @@
 typedef struct {
     vl_scenario *sc;
     vl_model *m;
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     double co2_air_kg;  /* the CO2 the air holds; y[VL_R_CO2] adds the ocean's */
 } planet;
 

@@ -18,7 +18,7 @@ typedef struct {
     const vl_model *m;
     size_t nrows;
     double t[MAX_ROWS];
-    double y[MAX_ROWS][VL_NRES];
+    double y[MAX_ROWS][VL_NSTATE];
     double cols[MAX_ROWS][VL_MAX_COLUMNS];
     char events[8192];
 } record;
@@ -48,7 +48,7 @@ static int keep_event(void *ctx, double t, const char *name, const char *detail,
 }
 
 /* Run m into r; the final state into y_final. */
-static void run(const vl_model *m, record *r, double y_final[VL_NRES])
+static void run(const vl_model *m, record *r, double y_final[VL_NSTATE])
 {
     vl_status st;
     vl_run_stats s;
@@ -108,7 +108,7 @@ START_TEST(registry_order_changes_nothing)
     vl_scenario *sc = busy_scenario();
     vl_model *ref = vl_test_model(sc);
     static record a, b;
-    double ya[VL_NRES], yb[VL_NRES];
+    double ya[VL_NSTATE], yb[VL_NSTATE];
     run(ref, &a, ya);
     ck_assert_uint_gt(a.nrows, 50);
     for (unsigned seed = 1; seed <= 3; seed++) {
@@ -210,7 +210,7 @@ END_TEST
 /* Moving along a row the process did not declare is a programming error: abort. */
 START_TEST(undeclared_row_aborts)
 {
-    double y[VL_NRES] = {0}, dydt[VL_NRES] = {0};
+    double y[VL_NSTATE] = {0}, dydt[VL_NSTATE] = {0};
     y[VL_R_O2] = 1e18;
     vl_flux fx = {y, dydt, NULL, 0, o2_to_rock, 1, NULL, 0};
     vl_flux_transfer(&fx, 1, 1.0, -1);

@@ -14,9 +14,9 @@
 #define P_O2_NOW (0.2095 * 101325.0)
 
 /* Present Earth: one ocean, N2 3.887e18 kg and O2 1.2e18 kg (common practice). */
-static void earth_state(double y[VL_NRES])
+static void earth_state(double y[VL_NSTATE])
 {
-    memset(y, 0, VL_NRES * sizeof y[0]);
+    memset(y, 0, VL_NSTATE * sizeof y[0]);
     y[VL_R_WATER] = VL_TO_KG;
     y[VL_R_N2] = 3.887e18;
     y[VL_R_O2] = 1.2e18;
@@ -54,7 +54,7 @@ START_TEST(present_earth)
 {
     vl_scenario *sc;
     vl_model *m = model_with(NULL, 0, &sc);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(m, y, &env);
@@ -81,7 +81,7 @@ START_TEST(heat_flow_scaling)
     const char *sq[] = {"processes." NAME ".heat_flow_exponent=2"};
     vl_scenario *sa, *sb;
     vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(sq, 1, &sb);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(ma, y, &env);
@@ -110,7 +110,7 @@ START_TEST(oxygen_limited)
 {
     vl_scenario *sc;
     vl_model *m = model_with(NULL, 0, &sc);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(m, y, &env);
@@ -140,7 +140,7 @@ START_TEST(no_oxygen_no_ocean)
 {
     vl_scenario *sc;
     vl_model *m = model_with(NULL, 0, &sc);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(m, y, &env);
@@ -169,7 +169,7 @@ START_TEST(stagnant_lid)
     vl_scenario *sa, *sb, *sc;
     vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(stag, 1, &sb);
     vl_model *mc = model_with(stag3, 2, &sc);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(ma, y, &env);
@@ -198,7 +198,7 @@ START_TEST(scales_with_area)
                               "processes." NAME ".scale_by_surface_area=false"};
     vl_scenario *sa, *sb;
     vl_model *ma = model_with(small, 2, &sa), *mb = model_with(absolute, 3, &sb);
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
     earth_state(y);
     earth_env(ma, y, &env);

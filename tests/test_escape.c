@@ -13,7 +13,7 @@ typedef struct {
     vl_scenario *sc;
     vl_model *m;
     vl_env env;
-    double y[VL_NRES];
+    double y[VL_NSTATE];
 } fixture;
 
 /* Present Earth: 1 M_earth, 1 R_earth, 1 bar N2 atmosphere, one ocean, defaults otherwise. */
@@ -139,7 +139,7 @@ START_TEST(photolysis_follows_escape)
 {
     fixture f;
     setup_earth(&f, NULL, 0);
-    double dydt[VL_NRES];
+    double dydt[VL_NSTATE];
     vl_env env;
     vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, &env);
     /* all homopause hydrogen is water-borne here: water is lost at 18.015/2.016 times
@@ -162,7 +162,7 @@ START_TEST(photon_limit_caps)
     const char *sets[] = {"processes.photolysis.photon_limited=true",
                           "processes.photolysis.photon_efficiency=1e-12"};
     setup_earth(&f, sets, 2);
-    double dydt[VL_NRES], cols[2];
+    double dydt[VL_NSTATE], cols[2];
     vl_env env;
     vl_model_env(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, &env);
     vl_test_process_rates(f.m, "photolysis", f.y, &env, dydt, cols);
@@ -273,7 +273,7 @@ START_TEST(oxygen_jeans)
     fixture f;
     setup_earth(&f, NULL, 0);
     f.y[VL_R_O2] = 1.2e18;
-    double dydt[VL_NRES], *cols = calloc(f.m->ncolumns, sizeof *cols);
+    double dydt[VL_NSTATE], *cols = calloc(f.m->ncolumns, sizeof *cols);
     int k = -1;
     for (size_t i = 0; i < f.m->ncolumns; i++)
         if (strcmp(f.m->col_name[i], "jeans_o_kg_s") == 0)

@@ -75,9 +75,9 @@ static size_t column(const vl_model *m, const char *name)
 }
 
 /* Every gas and water well above its depletion band (kg, high-entropy). */
-static void gassy_state(const vl_model *m, double y[VL_NRES])
+static void gassy_state(const vl_model *m, double y[VL_NSTATE])
 {
-    memset(y, 0, VL_NRES * sizeof y[0]);
+    memset(y, 0, VL_NSTATE * sizeof y[0]);
     y[VL_R_WATER] = 1.3729 * VL_TO_KG;
     y[VL_R_CO2] = 0.0417 * VL_BAR / m->planet.pa_per_kg;
     /* present atmospheric N2 [C]: 5.148e18 kg of air (total atmospheric mass, from
@@ -101,7 +101,7 @@ START_TEST(tangent_plane_earth)
     vl_scenario *sc = scenario(1, 0, BG_PER_MYR);
     set(sc, "planet.radius_rearth=%.17g", 1.0);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES], dydt[VL_NRES] = {0}, *cols = calloc(m->ncolumns, sizeof *cols);
+    double y[VL_NSTATE], dydt[VL_NSTATE] = {0}, *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 1.7e9 * VL_YR;
     vl_env env;
@@ -130,7 +130,7 @@ START_TEST(erosion_of_each_gas)
 {
     vl_scenario *sc = scenario(1, 0, BG_PER_MYR);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES], dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
+    double y[VL_NSTATE], dydt[VL_NSTATE], *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 3.9e8 * VL_YR;
     vl_env env;
@@ -164,7 +164,7 @@ END_TEST
 /* N(t) recovered from the N2 column: column / (X M_N2). */
 static double rate_seen(const vl_model *m, double t, const double *y)
 {
-    double dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
+    double dydt[VL_NSTATE], *cols = calloc(m->ncolumns, sizeof *cols);
     vl_env env;
     vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, &env);
     double n = cols[column(m, "impact_n2_kg_s")] / (fraction(m, &env) * y[VL_R_N2]);
@@ -177,7 +177,7 @@ START_TEST(rate_decays_with_efold)
     double tau = DECAY_MYR * 1e6 * VL_YR, t0 = REF_AGE_YR * VL_YR, myr = 1e6 * VL_YR;
     vl_scenario *sc = scenario(1, 0, 0.0);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     gassy_state(m, y);
     double t1 = 1.37e8 * VL_YR;
     /* no background: N(t1 + tau) / N(t1) = 1/e (exponential decline, e-folding time tau) */
@@ -215,7 +215,7 @@ START_TEST(pools_hold_the_integral)
 {
     vl_scenario *sc = scenario(0, 1, BG_PER_MYR);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     vl_model_initial_state(m, y);
     /* the pools hold what the population delivers over the run: N(t) integrated from
      * run start to end (Simpson, 2e5 intervals: error ~ (h/tau)^4 ~ 1e-11 [C]) times
@@ -248,7 +248,7 @@ START_TEST(delivery_moves_from_pools)
 {
     vl_scenario *sc = scenario(1, 1, BG_PER_MYR);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES], dydt[VL_NRES], *cols = calloc(m->ncolumns, sizeof *cols);
+    double y[VL_NSTATE], dydt[VL_NSTATE], *cols = calloc(m->ncolumns, sizeof *cols);
     gassy_state(m, y);
     double t = 2.9e8 * VL_YR, n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
     vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
@@ -292,7 +292,7 @@ START_TEST(conserves_with_delivery)
     for (int alone = 1; alone >= 0; alone--) {
         vl_scenario *sc = scenario(alone, 1, BG_PER_MYR);
         vl_model *m = vl_test_model(sc);
-        double y[VL_NRES], dydt[VL_NRES];
+        double y[VL_NSTATE], dydt[VL_NSTATE];
         gassy_state(m, y);
         for (int regime = 0; regime < VL_NREGIMES; regime++) {
             vl_model_rhs(m, vl_test_work(m), 1.9e8 * VL_YR, y, regime, dydt, NULL, NULL);
@@ -315,7 +315,7 @@ START_TEST(earth_run_with_delivery)
     const char *sets[] = {"processes.impacts.enabled=true", "processes.impacts.delivery=true"};
     vl_scenario *sc = vl_test_scenario("scenarios/earth.cfg", sets, 2);
     vl_model *m = vl_test_model(sc);
-    double y0[VL_NRES];
+    double y0[VL_NSTATE];
     vl_model_initial_state(m, y0);
     ck_assert(y0[VL_R_IMPACT_WATER] > 0.0 && y0[VL_R_IMPACT_CO2] > 0.0 && y0[VL_R_IMPACT_N2] > 0.0);
     vl_run_sink sink = {NULL, NULL, NULL};

@@ -23,7 +23,7 @@ static int loss_rhs(double t, const double y[], double dydt[], void *pv)
 {
     const loss *l = pv;
     (void)t;
-    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    memset(dydt, 0, VL_NSTATE * sizeof dydt[0]);
     static const vl_reaction escape[] = {
         {"2 H2O -> 4 H(space) + 2 O(space)", 3, {VL_R_WATER, VL_R_SPACE_H, VL_R_SPACE_O},
          {-2.0, 4.0, 2.0}}};
@@ -40,7 +40,7 @@ START_TEST(rayleigh_distillation)
     double fs[3] = {0.2385, 0.5, 0.8};
     for (int i = 0; i < 3; i++) {
         loss l = {1e-3, fs[i]};
-        double y[VL_NRES] = {0};
+        double y[VL_NSTATE] = {0};
         y[VL_R_WATER] = VL_TO_KG;
         y[VL_R_D_WATER] = VL_TO_KG * vl_reservoir_element_fraction(VL_R_WATER, VL_EL_H) *
                           155.76e-6 * VL_AW_D / VL_AW_H;
@@ -75,7 +75,7 @@ START_TEST(fractionation_factors)
      * N2 background [C] */
     vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
     vl_model *m = vl_test_model(sc);
-    double y[VL_NRES] = {0};
+    double y[VL_NSTATE] = {0};
     y[VL_R_WATER] = VL_TO_KG;
     y[VL_R_N2] = 3.887e18;
     y[VL_R_CO2] = 1e17; /* some CO2, most of it in the ocean: temperate, not a snowball */

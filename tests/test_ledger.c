@@ -11,13 +11,14 @@
 #include "volev/units.h"
 
 /* A state with every reservoir filled with high-entropy amounts (kg). */
-static void busy_state(const vl_model *m, double y[VL_NRES])
+static void busy_state(const vl_model *m, double y[VL_NSTATE])
 {
     for (int r = 0; r < VL_NRES; r++)
         y[r] = 1.0e18 * (1.0 + 0.2385 * r);
     y[VL_R_WATER] = 1.3729 * VL_TO_KG;
     y[VL_R_H2] = 2.17e16;
     y[VL_R_CO2] = 0.0417 * VL_BAR / m->planet.pa_per_kg;
+    y[VL_S_MANTLE_TP] = 2000.0; /* a partly molten mantle where the scenario starts molten */
 }
 
 /* Relative element imbalance of dydt: |sum| / sum(|terms|). */
@@ -33,14 +34,14 @@ static double imbalance(const double *dydt, int el)
 }
 
 /* Evaluate the RHS with only process `only` enabled (-1: all) in regime. */
-static void rhs_with(vl_scenario *sc, int only, int regime, double dydt[VL_NRES], double *gross)
+static void rhs_with(vl_scenario *sc, int only, int regime, double dydt[VL_NSTATE], double *gross)
 {
     vl_status st;
     for (size_t i = 0; i < vl_nprocesses; i++)
         sc->proc[i].enabled = only < 0 || (size_t)only == i;
     vl_model *m = vl_model_new(sc, &st);
     ck_assert_msg(m != NULL, "%s", st.msg);
-    double y[VL_NRES];
+    double y[VL_NSTATE];
     busy_state(m, y);
     vl_model_rhs(m, vl_test_work(m), 3.1e9 * VL_YR, y, regime, dydt, NULL, NULL);
     *gross = 0.0;
@@ -56,7 +57,7 @@ START_TEST(each_process_conserves)
     sc->star.xuv_sat_ratio = 0.05; /* strong XUV: escape above the crossover flux, so oxygen drag acts */
     for (int only = -1; only < (int)vl_nprocesses; only++)
         for (int regime = 0; regime < VL_NREGIMES; regime++) {
-            double dydt[VL_NRES], gross;
+            double dydt[VL_NSTATE], gross;
             rhs_with(sc, only, regime, dydt, &gross);
             for (int el = 0; el < VL_NELEMENTS; el++)
                 /* conservation by construction: round-off only (common practice: 1e-12) */
@@ -83,11 +84,12 @@ START_TEST(each_process_moves_mass)
         vl_scenario *sc = vl_scenario_new();
         vl_status st;
         sc->star.xuv_sat_ratio = xuv[v];
+        sc->interior.magma.molten_start = 1; /* the magma-ocean processes need a melt */
         for (size_t i = 0; i < vl_nprocesses; i++) /* off-by-default processes too */
             sc->proc[i].enabled = 1;
         vl_model *m = vl_model_new(sc, &st);
         ck_assert_msg(m != NULL, "%s", st.msg);
-        double y[VL_NRES], dydt[VL_NRES], cols[VL_MAX_COLUMNS];
+        double y[VL_NSTATE], dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
         busy_state(m, y);
         for (int regime = 0; regime < VL_NREGIMES; regime++) {
             vl_model_rhs(m, vl_test_work(m), 3.1e9 * VL_YR, y, regime, dydt, cols, NULL);
@@ -141,7 +143,7 @@ END_TEST
 
 START_TEST(ramp_stops_outflow)
 {
-    double y[VL_NRES] = {0}, dydt[VL_NRES] = {0};
+    double y[VL_NSTATE] = {0}, dydt[VL_NSTATE] = {0};
     static const vl_transfer o2_out[] = {{VL_R_O2, VL_R_SPACE_O}};
     vl_flux fx = {y, dydt, NULL, 0, o2_out, 1, NULL, 0};
     y[VL_R_O2] = 0.0;
@@ -158,7 +160,7 @@ START_TEST(ramp_stops_outflow)
     ck_assert_double_eq_tol(dydt[VL_R_SPACE_O], 1.4375 * small, 1e-18);
     /* a large demand on a small store: the band is demand x drain time, so the store
      * empties over ~VL_DRAIN_TIME_S, at 2 m / tau when m is far inside the band [C] */
-    memset(dydt, 0, VL_NRES * sizeof dydt[0]);
+    memset(dydt, 0, VL_NSTATE * sizeof dydt[0]);
     y[VL_R_O2] = 1e3;
     double out = vl_flux_transfer(&fx, 0, 1e5, -1);
     double x = 1e3 / (1e5 * VL_DRAIN_TIME_S);

@@ -28,7 +28,7 @@ typedef struct {
     vl_scenario *sc;
     vl_model *m;
     vl_env env;
-    double y[VL_NRES];
+    double y[VL_NSTATE];
 } fixture;
 
 /* Present Mars (the task's test planet): 0.1074 M_earth, 0.532 R_earth, 1.524 au,
@@ -76,7 +76,7 @@ static const vl_process *run(fixture *f, const char *name, double *cols, double 
 /* Column `col` of process `name` at f->env, kg/s. */
 static double column(fixture *f, const char *name, const char *col)
 {
-    double cols[16], dydt[VL_NRES];
+    double cols[16], dydt[VL_NSTATE];
     const vl_process *p = run(f, name, cols, dydt);
     for (size_t c = 0; c < p->ncolumns; c++)
         if (strcmp(p->columns[c].name, col) == 0)
@@ -324,7 +324,7 @@ START_TEST(photon_guard_caps)
     double rp = f.sc->planet.radius_m;
     /* at most one escaping particle per absorbed 20-eV photon over the disc (docs) */
     double budget = f.env.f_xuv * VL_PI * rp * rp / (20.0 * EV);
-    double cols[16], dydt[VL_NRES];
+    double cols[16], dydt[VL_NSTATE];
     run(&f, "photochemical_escape", cols, dydt);
     double n = cols[0] / M_O + cols[1] / M_C;
     ck_assert(n <= budget * (1.0 + 1e-12));
@@ -367,7 +367,7 @@ START_TEST(columns_nonnegative_and_conserving)
             if (k == 3)
                 f.y[VL_R_O2] = 0.0;
             for (size_t i = 0; i < 4; i++) {
-                double cols[16], dydt[VL_NRES];
+                double cols[16], dydt[VL_NSTATE];
                 const vl_process *p = run(&f, names[i], cols, dydt);
                 for (size_t c = 0; c < p->ncolumns; c++)
                     ck_assert_msg(cols[c] >= 0.0 && isfinite(cols[c]), "%s %s = %g", names[i],
@@ -391,7 +391,7 @@ START_TEST(present_mars_total)
 {
     fixture f;
     setup(&f, NULL, 0);
-    double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
+    double dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
     vl_env env;
     vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_FROZEN, dydt, cols, &env);
     double o = 0.0, h = 0.0;

@@ -42,7 +42,7 @@ START_TEST(earth_upper_atmosphere)
     ck_assert(vl_scenario_override(sc, "star.xuv.model=solar_ribas", &st) == VL_OK);
     vl_model *m = vl_model_new(sc, &st);
     ck_assert_msg(m != NULL, "%s", st.msg);
-    double y[VL_NRES] = {0};
+    double y[VL_NSTATE] = {0};
     y[VL_R_WATER] = VL_TO_KG;
     y[VL_R_N2] = 3.887e18; /* present atmospheric N2 [C] */
     y[VL_R_O2] = 1.185e18; /* present atmospheric O2, from memory */

@@ -13,7 +13,7 @@ typedef struct {
     vl_scenario *sc;
     vl_model *m;
     vl_env env;
-    double y[VL_NRES];
+    double y[VL_NSTATE];
 } fixture;
 
 /* Present Earth by default: one ocean, 2.385 TO in the mantle, present N2, present heat
@@ -45,7 +45,7 @@ static void teardown(fixture *f)
 /* Columns of process `name` evaluated alone at f->env and f->y (cols must hold them). */
 static void eval(fixture *f, const char *name, double *cols)
 {
-    double dydt[VL_NRES];
+    double dydt[VL_NSTATE];
     vl_test_process_rates(f->m, name, f->y, &f->env, dydt, cols);
 }
 
@@ -267,7 +267,7 @@ START_TEST(nitrogen_burial)
     eval(&f, "nitrogen_burial", c);
     ck_assert_double_eq(c[0], 0.0);
     /* into crust_nitrogen, through the full right-hand side */
-    double dydt[VL_NRES];
+    double dydt[VL_NSTATE];
     f.y[VL_R_WATER] = VL_TO_KG;
     vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, NULL);
     ck_assert(dydt[VL_R_CRUST_N] > 0.0);
@@ -299,7 +299,7 @@ START_TEST(earth_mantle_water)
     ck_assert_msg(mantle_to > 0.5 && mantle_to < 5.0, "mantle water %g TO", mantle_to);
     /* a surface ocean remains, temperate (present Earth: one ocean, 1.39e21 kg) */
     vl_env env;
-    double dydt[VL_NRES], cols[VL_MAX_COLUMNS];
+    double dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
     vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, VL_REGIME_TEMPERATE, dydt, cols, &env);
     ck_assert_int_eq(vl_climate_classify(m->climate, vl_test_climate_work(m->climate), s.y_final[VL_R_WATER], &env),
                      VL_REGIME_TEMPERATE);

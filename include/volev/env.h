@@ -17,6 +17,7 @@ enum vl_regime {
     VL_REGIME_TEMPERATE = 2, /* liquid ocean, cold-trapped stratosphere */
     VL_REGIME_MOIST = 3,     /* moist greenhouse: wet stratosphere */
     VL_REGIME_RUNAWAY = 4,   /* runaway greenhouse: all water in the atmosphere */
+    VL_REGIME_MAGMA = 5,     /* magma ocean: a molten surface (melt above the rheological transition) */
     VL_NREGIMES
 };
 
@@ -64,6 +65,28 @@ typedef struct vl_escape {
                                  that fits the room the diffusion limit leaves */
 } vl_escape;
 
+/* The magma ocean (the melt stage, src/engine/melt_stage.c; docs/model.md section 5b).
+ * All zero for a mantle that was never molten. */
+typedef struct vl_melt {
+    double tp_k;              /* mantle potential temperature (the state's), K */
+    double melt_kg;           /* melt in the mantle */
+    double mantle_kg;         /* the silicate mantle */
+    double depth_m;           /* magma-ocean depth: down to the rheological transition */
+    double frac_surface;      /* melt fraction at the surface */
+    double open;              /* 0..1: share of the melt that exchanges with the air (1 well
+                                 above the rheological transition at the surface, 0 at it) */
+    double x_water, x_co2;    /* mass fractions dissolved in the open melt */
+    double water_kg, co2_kg;  /* dissolved in the open melt (parts of surface_water and
+                                 surface_co2) */
+    double heat_capacity_j_k; /* of the mantle, latent heat of its melting included */
+    double dmelt_dtp;         /* kg/K: melt gained per kelvin of T_p */
+    double heat_w;            /* interior (radiogenic) heating */
+    double dtp_dt;            /* K/s: the mantle's heating (cooling) while the surface is molten */
+    double dmelt_dt;          /* kg/s: growth of the melt */
+    double fe3_ratio;         /* Fe3+/total Fe the oxygen taken by the melt gives the mantle */
+    double feo_fraction;      /* FeO mass fraction of the silicate (the scenario's) */
+} vl_melt;
+
 typedef struct vl_env {
     double t_s;               /* stellar age, s */
     vl_star_state star;       /* star at t_s */
@@ -93,6 +116,9 @@ typedef struct vl_env {
     double s_runaway;         /* runaway-greenhouse threshold, in units of VL_S_EARTH */
     double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
     double liquid;            /* ice-free fraction of the ocean (0 without a liquid ocean) */
+    double net_flux_w_m2;     /* absorbed starlight less OLR at the surface temperature: ~0
+                                 at a climate equilibrium, the cooling of a magma ocean */
+    vl_melt melt;             /* the magma ocean (melt stage) */
 
     vl_upper upper;           /* upper-atmosphere stage (upper.c) */
     vl_escape escape;         /* escape-budget stage (escape.c) */

@@ -14,7 +14,7 @@ typedef struct vl_run_stats {
     long events;               /* events logged */
     long restarts;             /* stepper restarts after a failed step (stiff drains) */
     double wall_s;             /* wall-clock time */
-    double y_final[VL_NRES];
+    double y_final[VL_NSTATE];
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
     double time_in_regime_s[VL_NREGIMES];
     double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
@@ -30,7 +30,7 @@ typedef struct vl_run_stats {
 
 typedef struct vl_run_sink {
     void *ctx;
-    /* One output row. columns has m->ncolumns entries; dydt VL_NRES. */
+    /* One output row. columns has m->ncolumns entries; dydt VL_NSTATE. */
     int (*row)(void *ctx, double t_s, const double *y, const double *dydt, const vl_env *env,
                const double *columns, vl_status *st);
     /* One event: name (e.g. "runaway_onset") and free-text detail. */

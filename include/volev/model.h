@@ -58,7 +58,7 @@ void vl_work_free(vl_work *w);     /* accepts NULL */
 vl_climate_work *vl_work_climate(vl_work *w);
 
 /* Initial reservoir masses, kg, from the inventory. */
-void vl_model_initial_state(const vl_model *m, double y[VL_NRES]);
+void vl_model_initial_state(const vl_model *m, double y[VL_NSTATE]);
 
 /* Every stage at (t, y) for the given regime. */
 void vl_model_env(const vl_model *m, vl_work *w, double t_s, const double *y, int regime,

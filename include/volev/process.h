@@ -21,7 +21,7 @@
 
 /* What a process sees at one instant. */
 typedef struct vl_view {
-    const double *y;           /* state, kg (VL_NRES entries) */
+    const double *y;           /* state: VL_NRES reservoirs, kg, then VL_S_MANTLE_TP, K */
     const vl_planet *planet;   /* the run's constants */
     const vl_env *env;         /* every stage at this instant */
 } vl_view;

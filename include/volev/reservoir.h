@@ -47,6 +47,8 @@ enum vl_species {
     X(H2, "atm_h2", VL_SP_H2, 1.0e3, "atmospheric H2")                                        \
     X(O2, "atm_o2", VL_SP_O2, 1.0e3, "atmospheric O2")                                        \
     X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3, "oxygen bound in oxidised rock")              \
+    X(MELT_O, "mantle_ferric_oxygen", VL_SP_O, 1.0e3,                                         \
+      "oxygen bound in the mantle's ferric iron, taken up while it was molten")               \
     /* space: contiguous (SPACE_H..SPACE_D), read by no process (the Jacobian skips them) */ \
     X(SPACE_H, "space_h", VL_SP_H, 1.0e3, "hydrogen lost to space")                           \
     X(SPACE_C, "space_c", VL_SP_C, 1.0e3, "carbon lost to space")                             \
@@ -68,6 +70,11 @@ enum vl_reservoir {
 #undef VL_X
     VL_NRES
 };
+
+/* The state is the reservoirs, then the mantle's potential temperature (K): the thermal
+ * state of a magma ocean (docs/model.md section 5b), 0 for a run that starts solid and
+ * constant once the surface has solidified. Not a mass: outside the element ledger. */
+enum { VL_S_MANTLE_TP = VL_NRES, VL_NSTATE };
 
 /* Molar mass of a species, kg/mol, from the standard atomic weights. */
 double vl_species_molar_mass(int species);

@@ -56,6 +56,19 @@ enum vl_heat_model { VL_HEAT_RADIOGENIC, VL_HEAT_EXPONENTIAL, VL_HEAT_POWER_LAW 
 enum vl_tectonics { VL_TECTONICS_MOBILE, VL_TECTONICS_STAGNANT };
 #define VL_TECTONICS_CHOICES "mobile_lid|stagnant_lid"
 
+/* A molten start (docs/model.md section 5b). */
+typedef struct vl_magma_ocean_params {
+    int molten_start;          /* the run starts with a magma ocean */
+    double start_tp_k;         /* mantle potential temperature at the start, K */
+    double rho_kg_m3;          /* mantle density */
+    double cp_j_kg_k;          /* silicate heat capacity */
+    double alpha_k;            /* thermal expansivity, 1/K */
+    double latent_j_kg;        /* latent heat of silicate melting */
+    double phi_rheo;           /* melt fraction of the rheological transition */
+    double core_radius_frac;   /* core radius over planet radius */
+    double feo_fraction;       /* FeO mass fraction of the silicate */
+} vl_magma_ocean_params;
+
 typedef struct vl_interior_params {
     int heat_model;            /* enum vl_heat_model */
     double heat_flow_w;        /* present (reference-age) heat flow, W */
@@ -64,6 +77,7 @@ typedef struct vl_interior_params {
     double power_exp;          /* power_law: Q ~ (t/t_ref)^-n */
     double share[4];           /* radiogenic: present heat shares of U-238, U-235, Th-232, K-40 */
     int tectonics;             /* enum vl_tectonics */
+    vl_magma_ocean_params magma;
 } vl_interior_params;
 
 typedef struct vl_inventory_params {

@@ -35,6 +35,7 @@ enum vl_outcome {
     VL_OUT_FIRST_RUNAWAY,  /* age the planet first was in runaway, yr (none: NaN) */
     VL_OUT_FIRST_MOIST,    /* age it first was in the moist greenhouse, yr */
     VL_OUT_FIRST_FREEZE,   /* age it first was frozen, yr */
+    VL_OUT_MAGMA_TIME,     /* time with a magma ocean, yr */
     VL_NOUT
 };
 extern const char *const vl_outcome_name[VL_NOUT];
@@ -48,6 +49,7 @@ enum vl_outcome_class {
     VL_CLASS_DESICCATED,   /* ends dry */
     VL_CLASS_FROZEN,       /* ends frozen */
     VL_CLASS_OCEAN_KEPT,   /* ends temperate with a liquid ocean */
+    VL_CLASS_MOLTEN,       /* ends with a magma ocean (checked right after failed) */
     VL_NCLASS
 };
 extern const char *const vl_class_name[VL_NCLASS];

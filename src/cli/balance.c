@@ -113,7 +113,7 @@ int vl_cli_balance(int argc, char **argv)
             vl_fail(&st, VL_ERR_USAGE, NULL, 0,
                     "balance: --age-yr %.6g is outside the run's ages [%.6g, %.6g] yr", age_yr,
                     rp->start_s / VL_YR, rp->end_s / VL_YR);
-        double y[VL_NRES];
+        double y[VL_NSTATE];
         vl_model_initial_state(m, y);
         int wet = y[VL_R_WATER] >= sc->climate.dry_threshold_kg;
         vl_env env;

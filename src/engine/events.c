@@ -13,7 +13,7 @@ vl_signature vl_events_signature(const vl_ode *ode, double t, const double *y, i
     vl_env env;
     vl_signature s = {0, 0};
     if (cols) {
-        double dydt[VL_NRES];
+        double dydt[VL_NSTATE];
         vl_model_rhs(m, ode->w, t, y, regime, dydt, cols, &env);
     } else {
         vl_model_env(m, ode->w, t, y, regime, &env);
@@ -65,7 +65,7 @@ int vl_events_locate(const vl_ode *ode, vl_stepper *sub, double t0, const double
                      vl_status *st)
 {
     const vl_run_params *rp = &ode->m->sc->run;
-    double ta = t0, ya[VL_NRES], ym[VL_NRES];
+    double ta = t0, ya[VL_NSTATE], ym[VL_NSTATE];
     memcpy(ya, y0, sizeof ya);
     while (*t1 - ta > rp->event_tol_s && *t1 - ta > 1e-12 * *t1) {
         double tm = ta + 0.5 * (*t1 - ta), t = ta, h = 0.1 * (tm - ta);

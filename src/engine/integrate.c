@@ -34,7 +34,7 @@ typedef struct {
     vl_run_stats *stats;
     vl_ode *ode;
     vl_stepper *main_s, *sub;
-    double t, h, y[VL_NRES];
+    double t, h, y[VL_NSTATE];
     unsigned long armed;      /* reservoirs watched for exhaustion */
     double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
 } runner_t;
@@ -42,7 +42,7 @@ typedef struct {
 /* Emit an output row at (t, y) under the run's regime. */
 static int emit_row(runner_t *r, double t, const double *y, vl_status *st)
 {
-    double dydt[VL_NRES];
+    double dydt[VL_NSTATE];
     vl_env env;
     double *cols = calloc(r->m->ncolumns ? r->m->ncolumns : 1, sizeof *cols);
     if (!cols)
@@ -64,9 +64,17 @@ static int emit_event(runner_t *r, double t, const char *name, const char *detai
 }
 
 static const char *const onset_name[VL_NREGIMES] = {
-    "ocean_lost", "freeze", "temperate_onset", "moist_greenhouse_onset", "runaway_onset"};
+    "ocean_lost", "freeze", "temperate_onset", "moist_greenhouse_onset", "runaway_onset",
+    "surface_melted"};
 static const char *const end_name[VL_NREGIMES] = {
-    "water_returned", "thaw", "temperate_end", "moist_greenhouse_end", "runaway_end"};
+    "water_returned", "thaw", "temperate_end", "moist_greenhouse_end", "runaway_end",
+    "solidified"};
+
+/* Whether the surface holds liquid water or ice in regime r (an ocean can form). */
+static int has_ocean(int r)
+{
+    return r == VL_REGIME_FROZEN || r == VL_REGIME_TEMPERATE || r == VL_REGIME_MOIST;
+}
 
 /* Log the regime change old -> new: the end of the old regime, then the new one's onset
  * (temperate has no named onset or end: it is the reference state). */
@@ -79,6 +87,9 @@ static int log_regime_change(runner_t *r, double t, int old, int new, vl_status 
         rc = emit_event(r, t, end_name[old], detail, st);
     if (rc == VL_OK && new != VL_REGIME_TEMPERATE)
         rc = emit_event(r, t, onset_name[new], detail, st);
+    /* the steam of a molten or runaway surface rains out into an ocean */
+    if (rc == VL_OK && (old == VL_REGIME_MAGMA || old == VL_REGIME_RUNAWAY) && has_ocean(new))
+        rc = emit_event(r, t, "ocean_condensed", detail, st);
     return rc;
 }
 
@@ -178,7 +189,7 @@ static int advance(runner_t *r, double t1, vl_status *st)
 {
     int rc = VL_OK;
     while (r->t < t1 && rc == VL_OK) {
-        double t0 = r->t, y0[VL_NRES];
+        double t0 = r->t, y0[VL_NSTATE];
         memcpy(y0, r->y, sizeof y0);
         rc = step(r, t1, st);
         if (rc != VL_OK)

@@ -16,7 +16,7 @@ typedef struct {
     vl_work *w;
     int regime;
     long rhs_calls;
-    double f0[VL_NRES], f1[VL_NRES], yt[VL_NRES]; /* Jacobian scratch */
+    double f0[VL_NSTATE], f1[VL_NSTATE], yt[VL_NSTATE]; /* Jacobian scratch */
 } vl_ode;
 
 /* A GSL driver owning step, control and evolve (msbdf reaches its control through the

@@ -183,11 +183,11 @@ void vl_work_free(vl_work *w)
 
 vl_climate_work *vl_work_climate(vl_work *w) { return w->climate; }
 
-void vl_model_initial_state(const vl_model *m, double y[VL_NRES])
+void vl_model_initial_state(const vl_model *m, double y[VL_NSTATE])
 {
     const vl_inventory_params *in = &m->sc->inventory;
     double kg_per_pa = 1.0 / m->planet.pa_per_kg;
-    memset(y, 0, VL_NRES * sizeof y[0]);
+    memset(y, 0, VL_NSTATE * sizeof y[0]);
     y[VL_R_WATER] = in->surface_water_kg;
     y[VL_R_MANTLE_WATER] = in->mantle_water_kg;
     y[VL_R_CO2] = in->co2_pa * kg_per_pa;
@@ -197,6 +197,8 @@ void vl_model_initial_state(const vl_model *m, double y[VL_NRES])
     y[VL_R_CARBONATE] = in->carbonate_pa * kg_per_pa;
     y[VL_R_MANTLE_C] = in->mantle_co2_pa * kg_per_pa;
     y[VL_R_MANTLE_N] = in->mantle_n2_pa * kg_per_pa;
+    if (m->sc->interior.magma.molten_start)
+        y[VL_S_MANTLE_TP] = m->sc->interior.magma.start_tp_k;
     for (size_t i = 0; i < m->nproc; i++)
         if (m->proc[i]->initial)
             m->proc[i]->initial(m->params[i], &m->planet, y);

@@ -71,7 +71,8 @@ static double cached_atm_co2(vl_work *w, int pass, double surface, double ocean_
  * climate is then evaluated again by the caller. Continuous in y for a fixed regime. */
 static void split_surface_co2(const vl_model *m, vl_work *w, const double *y, vl_env *env)
 {
-    double surface = pos(y[VL_R_CO2]), water = pos(y[VL_R_WATER]);
+    double surface = pos(y[VL_R_CO2]) - env->melt.co2_kg;
+    double water = pos(y[VL_R_WATER]) - env->melt.water_kg;
     double ocean_m3 = water / VL_OCEAN_DENSITY_KG_M3;
     vl_ocean_air air = {0.0, 0.0, m->planet.pa_per_kg};
     static const int others[3][2] = {
@@ -115,14 +116,16 @@ void vl_model_env(const vl_model *m, vl_work *w, double t_s, const double *y, in
     env->heat_flow_rel = vl_interior_heat_flow_rel(&sc->interior, t_s);
     env->g = m->planet.g;
     env->area_m2 = m->planet.area_m2;
-    env->mass_kg[VL_GAS_CO2] = pos(y[VL_R_CO2]);
+    vl_melt_stage_state(m, y, env);
+    env->mass_kg[VL_GAS_CO2] = pos(y[VL_R_CO2]) - env->melt.co2_kg;
     env->mass_kg[VL_GAS_N2] = pos(y[VL_R_N2]);
     env->mass_kg[VL_GAS_O2] = pos(y[VL_R_O2]);
     env->mass_kg[VL_GAS_H2] = pos(y[VL_R_H2]);
     env->regime = regime;
     if (vl_ocean_holds_carbon(regime) && y[VL_R_WATER] > 0.0)
         split_surface_co2(m, w, y, env);
-    vl_climate_eval(m->climate, w->climate, pos(y[VL_R_WATER]), env);
+    vl_climate_eval(m->climate, w->climate, pos(y[VL_R_WATER]) - env->melt.water_kg, env);
+    vl_melt_stage_heat(env);
     finish_atmosphere(m, env);
     vl_upper_eval(&sc->planet, env);
     escape_stage(m, y, env);
@@ -150,10 +153,13 @@ void vl_model_rhs(const vl_model *m, vl_work *w, double t_s, const double *y, in
             s += w->rows[m->sum_order[k]][r];
         dydt[r] = s;
     }
+    dydt[VL_S_MANTLE_TP] = e->melt.dtp_dt;
 }
 
 int vl_model_classify(const vl_model *m, vl_work *w, const double *y, const vl_env *env)
 {
-    double water = y[VL_R_WATER] > 0.0 ? y[VL_R_WATER] : 0.0;
+    if (vl_melt_molten(m, env))
+        return VL_REGIME_MAGMA;
+    double water = pos(y[VL_R_WATER]) - env->melt.water_kg;
     return vl_climate_classify(m->climate, w->climate, water, env);
 }

@@ -1,7 +1,7 @@
 /* stepper.c: one history's ODE integrator (integrate_internal.h): GSL's multistep BDF
  * (gsl_odeiv2_step_msbdf, stiff-capable) over the model's right-hand side with a
- * finite-difference Jacobian, per-reservoir absolute scales (floor / 1e3) and the run's
- * tolerances. */
+ * finite-difference Jacobian, per-reservoir absolute scales (floor / 1e3; the mantle's
+ * potential temperature: TP_ABS_K) and the run's tolerances. */
 #include <float.h>
 #include <math.h>
 #include <string.h>
@@ -10,6 +10,14 @@
 
 #include "integrate_internal.h"
 #include "volev/units.h"
+
+/* Absolute accuracy asked of the mantle's potential temperature, K, and the size it
+ * counts as for the Jacobian's increments. */
+#define TP_ABS_K 1e-3
+#define TP_SIZE_K 1.0
+
+/* Size of state component j below which its Jacobian increment stops shrinking. */
+static double component_size(int j) { return j < VL_NRES ? vl_reservoir_floor(j) : TP_SIZE_K; }
 
 int vl_stepper_finite(const double *v, size_t n)
 {
@@ -24,7 +32,7 @@ static int rhs(double t, const double y[], double f[], void *pv)
     vl_ode *c = pv;
     c->rhs_calls++;
     vl_model_rhs(c->m, c->w, t, y, c->regime, f, NULL, NULL);
-    return vl_stepper_finite(f, VL_NRES) ? GSL_SUCCESS : GSL_EBADFUNC;
+    return vl_stepper_finite(f, VL_NSTATE) ? GSL_SUCCESS : GSL_EBADFUNC;
 }
 
 /* Forward-difference Jacobian; increments scale with each reservoir's floor band. */
@@ -35,35 +43,37 @@ static int jac(double t, const double y[], double *dfdy, double dfdt[], void *pv
     if (rhs(t, y, c->f0, c) != GSL_SUCCESS)
         return GSL_EBADFUNC;
     memcpy(c->yt, y, sizeof c->yt);
-    for (int j = 0; j < VL_NRES; j++) {
-        if (j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) { /* no process reads space */
-            for (int i = 0; i < VL_NRES; i++)
-                dfdy[i * VL_NRES + j] = 0.0;
+    for (int j = 0; j < VL_NSTATE; j++) {
+        /* no process reads space; a mantle that never was molten has no temperature */
+        if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && y[j] == 0.0)) {
+            for (int i = 0; i < VL_NSTATE; i++)
+                dfdy[i * VL_NSTATE + j] = 0.0;
             continue;
         }
-        double h = sq * fmax(fabs(y[j]), vl_reservoir_floor(j));
+        double h = sq * fmax(fabs(y[j]), component_size(j));
         c->yt[j] = y[j] + h;
         if (rhs(t, c->yt, c->f1, c) != GSL_SUCCESS)
             return GSL_EBADFUNC;
         c->yt[j] = y[j];
-        for (int i = 0; i < VL_NRES; i++)
-            dfdy[i * VL_NRES + j] = (c->f1[i] - c->f0[i]) / h;
+        for (int i = 0; i < VL_NSTATE; i++)
+            dfdy[i * VL_NSTATE + j] = (c->f1[i] - c->f0[i]) / h;
     }
     /* backward in time, so a tabulated star is never asked beyond the run's end */
     double ht = sq * fmax(fabs(t), VL_YR);
     if (rhs(t - ht, y, c->f1, c) != GSL_SUCCESS)
         return GSL_EBADFUNC;
-    for (int i = 0; i < VL_NRES; i++)
+    for (int i = 0; i < VL_NSTATE; i++)
         dfdt[i] = (c->f0[i] - c->f1[i]) / ht;
     return GSL_SUCCESS;
 }
 
 int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp)
 {
-    double scale[VL_NRES];
+    double scale[VL_NSTATE];
     for (int i = 0; i < VL_NRES; i++)
         scale[i] = vl_reservoir_floor(i) / 1e3;
-    s->sys = (gsl_odeiv2_system){rhs, jac, VL_NRES, ode};
+    scale[VL_S_MANTLE_TP] = TP_ABS_K / rp->abs_tol_kg;
+    s->sys = (gsl_odeiv2_system){rhs, jac, VL_NSTATE, ode};
     s->drv = gsl_odeiv2_driver_alloc_scaled_new(&s->sys, gsl_odeiv2_step_msbdf, VL_YR,
                                                 rp->abs_tol_kg, rp->rel_tol, 1.0, 0.0, scale);
     if (!s->drv)
@@ -97,7 +107,7 @@ int vl_stepper_advance_to(vl_stepper *s, double *t, double t1, double *h, double
 {
     while (*t < t1) {
         int rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
-        if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NRES))
+        if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE))
             return failed(st, *t, rc);
         if (steps)
             (*steps)++;
@@ -108,10 +118,10 @@ int vl_stepper_advance_to(vl_stepper *s, double *t, double t1, double *h, double
 int vl_stepper_step(vl_stepper *s, double *t, double t1, double *h, double *y, long *restarts,
                     vl_status *st)
 {
-    double t0 = *t, y0[VL_NRES];
+    double t0 = *t, y0[VL_NSTATE];
     memcpy(y0, y, sizeof y0);
     int rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
-    for (int retry = 0; retry < 8 && (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NRES));
+    for (int retry = 0; retry < 8 && (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE));
          retry++) {
         *t = t0;
         memcpy(y, y0, sizeof y0);
@@ -120,7 +130,7 @@ int vl_stepper_step(vl_stepper *s, double *t, double t1, double *h, double *y, l
         (*restarts)++;
         rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
     }
-    if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NRES))
+    if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE))
         return failed(st, t0, rc);
     return VL_OK;
 }

@@ -11,11 +11,11 @@ const char *const vl_outcome_name[VL_NOUT] = {
     "final_water_to", "water_lost_to",  "o2_bar",         "co2_bar",
     "surface_temp_k", "surface_pressure_bar", "dh_enrichment", "runaway_time_yr",
     "moist_time_yr",  "desiccation_yr", "first_runaway_yr", "first_moist_yr",
-    "first_freeze_yr"};
+    "first_freeze_yr", "magma_time_yr"};
 const char *const vl_outcome_unit[VL_NOUT] = {"TO", "TO", "bar", "bar", "K", "bar", "ratio",
-                                              "yr", "yr", "yr", "yr", "yr", "yr"};
+                                              "yr", "yr", "yr", "yr", "yr", "yr", "yr"};
 const char *const vl_class_name[VL_NCLASS] = {"failed", "steam", "o2_rich", "desiccated",
-                                              "frozen", "ocean_kept"};
+                                              "frozen", "ocean_kept", "molten"};
 
 /* The outcomes of a member from its run: the quantities derived from the final state
  * come from vl_summary_derive (schema.h), as in the run's summary.csv; the regime
@@ -41,6 +41,7 @@ int vl_sweep_outcomes(const vl_model *m, const vl_scenario *sc, const vl_run_sta
     res->out[VL_OUT_FIRST_RUNAWAY] = tr->first[VL_REGIME_RUNAWAY] / VL_YR;
     res->out[VL_OUT_FIRST_MOIST] = tr->first[VL_REGIME_MOIST] / VL_YR;
     res->out[VL_OUT_FIRST_FREEZE] = tr->first[VL_REGIME_FROZEN] / VL_YR;
+    res->out[VL_OUT_MAGMA_TIME] = s->time_in_regime_s[VL_REGIME_MAGMA] / VL_YR;
     int rc = VL_OK;
     for (int o = 0; o < VL_NOUT; o++) /* defined outcomes must be finite */
         if (isinf(res->out[o]))
@@ -54,6 +55,8 @@ int vl_sweep_classify(const vl_sweep *sw, const vl_member *res)
 {
     if (res->status != VL_OK)
         return VL_CLASS_FAILED;
+    if (res->regime == VL_REGIME_MAGMA)
+        return VL_CLASS_MOLTEN;
     if (res->regime == VL_REGIME_RUNAWAY || res->regime == VL_REGIME_MOIST)
         return VL_CLASS_STEAM;
     if (res->out[VL_OUT_O2] >= sw->o2_rich_bar)

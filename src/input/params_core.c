@@ -22,6 +22,7 @@
 
 #define RATIO_ONLY "star.xuv.model=ratio"
 #define HZ_ONLY "climate.model=hz_fit"
+#define MO_ONLY "planet.interior.magma_ocean.molten_start=true"
 #define COLUMN_ONLY "climate.model=column"
 #define COOLING_ONLY "escape.radiative_cooling=true"
 #define DRAG_ONLY "escape.oxygen_drag=true"
@@ -140,6 +141,36 @@ const vl_param vl_core_params[] = {
            interior.tectonics,
            "mobile lid (plate tectonics: subduction, spreading) or stagnant lid (no subduction)",
            "docs/cycles.md", NULL),
+
+    /* ---- interior: a molten start (docs/model.md section 5b) ---- */
+    BOOL("planet.interior.magma_ocean.molten_start", 0, interior.magma.molten_start,
+         "start with a magma ocean: the mantle at start_temp_k, the surface inventory shared "
+         "between the melt and the air", "", NULL),
+    REAL("planet.interior.magma_ocean.start_temp_k", "K", 1.0, 3000.0, 1700.0, 3000.0,
+         interior.magma.start_tp_k, "mantle potential temperature (surface of the adiabat) at the start",
+         "post-giant-impact mantles of ~3000-4000 K, Lebrun et al. 2013, JGR Planets 118:1155, from memory",
+         MO_ONLY),
+    REAL("planet.interior.magma_ocean.density_kg_m3", "kg/m^3", 1.0, 4000.0, 2000.0, 8000.0,
+         interior.magma.rho_kg_m3, "mean density of the silicate mantle (pressure = density x g x depth)",
+         "Earth's mantle 3300-5500 kg/m^3 (PREM, Dziewonski & Anderson 1981), from memory", MO_ONLY),
+    REAL("planet.interior.magma_ocean.heat_capacity_j_kg_k", "J/(kg K)", 1.0, 1200.0, 500.0, 3000.0,
+         interior.magma.cp_j_kg_k, "heat capacity of the silicate (melt and solid)",
+         "1200 J/(kg K), Lebrun et al. 2013, from memory", MO_ONLY),
+    REAL("planet.interior.magma_ocean.expansivity_per_k", "1/K", 1.0, 3e-5, 1e-6, 1e-3,
+         interior.magma.alpha_k, "thermal expansivity (slope of the adiabat: d ln T/dp = alpha/(rho c_p))",
+         "order of silicate melts, from memory", MO_ONLY),
+    REAL("planet.interior.magma_ocean.latent_heat_j_kg", "J/kg", 1.0, 4e5, 0.0, 2e6,
+         interior.magma.latent_j_kg, "latent heat of silicate melting",
+         "4e5 J/kg, Solomatov 2000 / Lebrun et al. 2013, from memory", MO_ONLY),
+    REAL("planet.interior.magma_ocean.rheological_melt_fraction", "", 1.0, 0.4, 0.05, 0.95,
+         interior.magma.phi_rheo, "melt fraction below which the surface behaves as a solid",
+         "0.4, Lebrun et al. 2013", MO_ONLY),
+    REAL("planet.interior.magma_ocean.core_radius_fraction", "", 1.0, 0.547, 0.0, 0.9,
+         interior.magma.core_radius_frac, "core radius over planet radius",
+         "Earth 3480 / 6371 km (PREM)", MO_ONLY),
+    REAL("planet.interior.magma_ocean.feo_mass_fraction", "", 1.0, 0.0805, 0.0, 0.5,
+         interior.magma.feo_fraction, "FeO mass fraction of the silicate (its oxygen capacity)",
+         "bulk silicate Earth 8.05 wt%, McDonough & Sun 1995, Chem. Geol. 120:223", MO_ONLY),
 
     /* ---- inventory: initial amounts; bar = surface pressure the gas would exert alone ---- */
     REAL("inventory.surface_water_to", "TO", VL_TO_KG, 1.0, 0.0, 1e4, inventory.surface_water_kg,

@@ -210,6 +210,10 @@ static int check_consistency(const vl_scenario *sc, vl_status *st)
     if (sc->star.luminosity_model == VL_LUM_TABLE && !sc->star.track_file[0])
         return fail_param(sc, lum, st,
                           "star.luminosity_model is table but star.track_file is not set");
+    if (sc->interior.magma.molten_start && sc->climate.model != VL_CLIMATE_COLUMN)
+        return fail_param(sc, (size_t)vl_scenario_find_key("planet.interior.magma_ocean.molten_start"),
+                          st, "a molten start needs climate.model = column (the hot surface's "
+                              "outgoing radiation comes from the column)");
     return VL_OK;
 }
 

@@ -44,8 +44,17 @@ static double get_H_LIMIT(const vl_row *r) { return r->env->escape.h_limit; }
 /* the surface CO2 less the atmospheric part the ocean partition left in env */
 static double get_OCEAN_CO2(const vl_row *r)
 {
-    return clamp0(clamp0(r->y[VL_R_CO2]) - r->env->mass_kg[VL_GAS_CO2]);
+    return clamp0(clamp0(r->y[VL_R_CO2]) - r->env->mass_kg[VL_GAS_CO2] - r->env->melt.co2_kg);
 }
+static double get_MANTLE_TEMP(const vl_row *r) { return r->y[VL_S_MANTLE_TP]; }
+static double get_MELT_FRACTION(const vl_row *r)
+{
+    return r->env->melt.mantle_kg > 0.0 ? r->env->melt.melt_kg / r->env->melt.mantle_kg : 0.0;
+}
+static double get_MAGMA_DEPTH(const vl_row *r) { return r->env->melt.depth_m * 1e-3; }
+static double get_MELT_WATER(const vl_row *r) { return clamp0(r->env->melt.water_kg); }
+static double get_MELT_CO2(const vl_row *r) { return clamp0(r->env->melt.co2_kg); }
+static double get_MANTLE_FE3(const vl_row *r) { return r->env->melt.fe3_ratio; }
 
 const vl_series_column vl_series_columns[VL_NSERIES] = {
 #define VL_SERIES(id, name, unit, kind, meaning) {name, unit, VL_COL_##kind, meaning, get_##id},

@@ -34,6 +34,7 @@ static const char *const regime_names[VL_NREGIMES] = {
     [VL_REGIME_TEMPERATE] = "temperate",
     [VL_REGIME_MOIST] = "moist_greenhouse",
     [VL_REGIME_RUNAWAY] = "runaway",
+    [VL_REGIME_MAGMA] = "magma_ocean",
 };
 
 vl_climate *vl_climate_new(const vl_scenario *sc, vl_status *st)

@@ -101,13 +101,17 @@ static void column_eval(const void *state, void *work, double water_kg, vl_env *
      * has all evaporated: the balance turns sea into rock at that temperature) */
     int wet = env->regime != VL_REGIME_DRY;
     vl_balance *b = balance_of(c, w, wet, water_kg, env);
-    double t = branch_temp(c, w, b, env->regime);
+    /* a molten surface is at the mantle's potential temperature (the melt stage); its net
+     * flux cools the mantle */
+    double t = env->regime == VL_REGIME_MAGMA ? fmin(fmax(env->melt.tp_k, 150.0), 3000.0)
+                                              : branch_temp(c, w, b, env->regime);
     if (b->oom) { /* out of memory: a NaN state stops the integrator with a message */
         env->t_surf_k = env->t_balance_k = env->f_strat = NAN;
         return;
     }
     env->t_surf_k = env->t_balance_k = t;
     env->f_strat = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
+    env->net_flux_w_m2 = vl_balance_net(b, c->table, &w->la, &c->surface, t);
     env->s_runaway = env->s_moist = NAN; /* thresholds: only the balance curves compute them */
     vl_dry_air air;
     vl_climate_dry_air(env, &air);

@@ -116,7 +116,7 @@ static const char *model_once(const vl_scenario *sc)
     const char *why = clean(m != NULL, &st, "vl_model_new");
     if (!m)
         return why;
-    double y[VL_NRES], dydt[VL_NRES];
+    double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_model_initial_state(m, y);
     for (int r = 0; r < VL_NRES && !why; r++)
         if (!isfinite(y[r]))
