@@ -20,6 +20,8 @@
  * everything but what the crystals took (the magma_freezing process). */
 #include <math.h>
 
+#include "volev/smooth.h"
+
 #include "model_internal.h"
 #include "volev/magma.h"
 
@@ -27,13 +29,6 @@
 #define OPEN_WIDTH 0.05
 
 static double pos(double v) { return v > 0.0 ? v : 0.0; }
-
-static double smoothstep(double x, double lo, double hi)
-{
-    double u = (x - lo) / (hi - lo);
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    return u * u * (3.0 - 2.0 * u);
-}
 
 void vl_melt_params(const vl_magma_ocean_params *mo, vl_magma_params *mp)
 {
@@ -83,7 +78,7 @@ void vl_melt_stage_state(const vl_model *m, const double *y, vl_env *env)
     ml->frac_surface = s.melt_frac_surface;
     ml->dmelt_dtp = s.dmelt_dtp_kg_k;
     ml->heat_capacity_j_k = s.heat_capacity_j_k;
-    ml->open = smoothstep(s.melt_frac_surface, mo->phi_rheo, mo->phi_rheo + OPEN_WIDTH);
+    ml->open = vl_smoothstep(s.melt_frac_surface, mo->phi_rheo, mo->phi_rheo + OPEN_WIDTH);
     double open_melt = ml->open * s.melt_kg, pa = m->planet.pa_per_kg;
     double water = pos(y[VL_R_WATER]), co2 = pos(y[VL_R_CO2]);
     double air_w = air_share(water, open_melt, pa, vl_magma_h2o_solubility);

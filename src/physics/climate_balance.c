@@ -13,6 +13,8 @@
 #include "volev/co2.h"
 
 #include <math.h>
+
+#include "volev/smooth.h"
 #include <string.h>
 
 #include "volev/profile.h"
@@ -26,19 +28,10 @@
 #define WINDOW 6  /* cells searched around the last root before a whole-range scan */
 #define STRIDE 6  /* grid points between the samples of a whole-range scan */
 
-static double smoothstep(double x, double lo, double hi)
-{
-    if (hi <= lo)
-        return x >= hi ? 1.0 : 0.0;
-    double u = (x - lo) / (hi - lo);
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    return u * u * (3.0 - 2.0 * u);
-}
-
 void vl_surface_albedo(const vl_surface *s, double ocean, double t, double a[VL_NBANDS])
 {
-    double w_melt = smoothstep(t, s->melt_start_k, s->melt_full_k);
-    double w_ice = ocean * (1.0 - smoothstep(t, s->ice_cover_k, s->ice_free_k));
+    double w_melt = vl_smoothstep(t, s->melt_start_k, s->melt_full_k);
+    double w_ice = ocean * (1.0 - vl_smoothstep(t, s->ice_cover_k, s->ice_free_k));
     double sea = ocean * (1.0 - s->land_fraction);
     double open = sea * s->ocean + (1.0 - sea) * s->land;
     for (int b = 0; b < VL_NBANDS; b++) {
@@ -113,7 +106,7 @@ void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double s
  * sea to rock, and the clouds that the ocean feeds go). */
 static double ocean_left(const vl_balance *b, double t)
 {
-    return b->key.wet ? 1.0 - smoothstep(t, b->t_cond - 10.0, b->t_cond) : 0.0;
+    return b->key.wet ? 1.0 - vl_smoothstep(t, b->t_cond - 10.0, b->t_cond) : 0.0;
 }
 
 /* The values of one node point at grid temperature j. */

@@ -17,6 +17,8 @@
  * the regime change. A dry planet (less water than climate.dry_threshold_to) takes the
  * stable root nearest its last one over the whole range. */
 #include <math.h>
+
+#include "volev/smooth.h"
 #include <stdlib.h>
 #include <string.h>
 
@@ -38,15 +40,6 @@ typedef struct {
     vl_ct_lookaside la;
     vl_balance bal[2];         /* [wet] */
 } column_work;
-
-static double smoothstep(double x, double lo, double hi)
-{
-    if (hi <= lo)
-        return x >= hi ? 1.0 : 0.0;
-    double u = (x - lo) / (hi - lo);
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    return u * u * (3.0 - 2.0 * u);
-}
 
 static int wet_regime(int regime)
 {
@@ -118,7 +111,7 @@ static void column_eval(const void *state, void *work, double water_kg, vl_env *
     vl_climate_partition(water_kg, 0, &air, env); /* saturated, at most all of it */
     env->liquid = 0.0;
     if (wet_regime(env->regime) && t < VL_WATER_TC_K) /* the ice-free share of the ocean */
-        env->liquid = smoothstep(t, c->cp.ice_cover_k, c->cp.ice_free_k);
+        env->liquid = vl_smoothstep(t, c->cp.ice_cover_k, c->cp.ice_free_k);
 }
 
 /* 1 and the root temperature if branch br of balance b has a root. */
