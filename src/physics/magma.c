@@ -41,10 +41,10 @@ typedef struct {
     double t0, a, c;
 } curve;
 
-/* Solidus: Hirschmann 2000 (G3 1, 2000GC000070, eq. 1; fitted to 0-10 GPa) and Andrault
+/* Solidus: Hirschmann 2000 (G3 1, 2000GC000070; fitted to 0-10 GPa) and Andrault
  * et al. 2011 (EPSL 304:251; chondritic mantle, to 135 GPa; from memory). */
 static const curve solidus = {1120.661, 132.899, -5.104, 2045.0, 92.0, 1.3};
-/* Liquidus: Katz, Spiegelman & Langmuir 2003 (G3 4:1073, eq. 10, from memory; low
+/* Liquidus: Katz, Spiegelman & Langmuir 2003 (G3 4:1073, from memory; low
  * pressures) and Fiquet et al. 2010 (Science 329:1516, to 140 GPa; from memory). */
 static const curve liquidus = {1780.0, 45.0, -2.0, 1940.0, 29.0, 1.9};
 
