@@ -1,15 +1,21 @@
 /* escape.c: the escape-budget stage (escape.h).
  *
  * Diffusion limit (Hunten 1973, J. Atmos. Sci. 30:1481), through the actual background:
- *   phi_H = 2 f_T b g (m_bg - m_c) / (k T)   [H atoms m^-2 s^-1],
- *   f_T = f_strat + x_H2 (total hydrogen above the homopause, H2 units). The background is
- *   the molecular gases (N2, CO2, O2; mean mass m_mol) and, above the cold trap, the O of
- *   dissociated water with share w_O = f_strat (a steam upper atmosphere is atomic O);
- *   m_bg = (1 - w_O) m_mol + w_O m_O, the carrier H2 in the molecular part and H in the
- *   O part, m_c = (1 - w_O) m_H2 + w_O m_H, and Blanc's law for the mixture
- *   1/b = (1 - w_O)/b(H2-air) + w_O/b(H-O), with b(H2-air) = 1.89e19 (T/293 K)^0.75
- *   cm^-1 s^-1 (Marrero & Mason 1972, CRC table) and b(H-O) = 4.8e17 T^0.75 cm^-1 s^-1
- *   (Zahnle & Kasting 1986, from memory).
+ *   phi_H = 2 f_T / (1 + 2 w_O f_T) b g (m_bg - m_c) / (k T)   [H atoms m^-2 s^-1],
+ *   f_T = f_strat + x_H2 (total hydrogen above the homopause, H2 units, a mole fraction of
+ *   all the molecules). The background is the molecular gases (N2, CO2, O2; mean mass
+ *   m_mol) and, above the cold trap, the O of dissociated water with share w_O = f_strat
+ *   (a steam upper atmosphere is atomic O); m_bg = (1 - w_O) m_mol + w_O m_O, the carrier
+ *   H2 in the molecular part and H in the O part, m_c = (1 - w_O) m_H2 + w_O m_H, and
+ *   Blanc's law for the mixture 1/b = (1 - w_O)/b(H2-air) + w_O/b(H-O), with b(H2-air) =
+ *   1.89e19 (T/293 K)^0.75 cm^-1 s^-1 (Marrero & Mason 1972, CRC table) and b(H-O) =
+ *   4.8e17 T^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory).
+ *   Hunten's factor f/(1 + f) (f the carrier's ratio to the heavy background) is the
+ *   carrier's mole fraction among all particles. f_T already is a mole fraction, so the
+ *   molecular part needs no factor; dissociating the water-borne share w_O adds
+ *   2 w_O f_T particles (H2O -> 2 H + O) per molecule, hence 1/(1 + 2 w_O f_T): in a
+ *   steam upper atmosphere (w_O = f_T = 1) the H atoms are f/(1 + f) = 2/3 of the
+ *   particles (f = H/O = 2), not 2.
  * Jeans limit (Jeans 1925; Chamberlain & Hunten 1987): the Jeans flux of H from an
  *   exobase density in diffusive equilibrium above the homopause,
  *   n_H = 2 f_T n_tb exp(-(r_exo - r_tb)/H_H), H_H = k T_exo/(m_H g_exo), times
@@ -79,7 +85,10 @@ static double diffusion_limit(const vl_escape_params *p, const vl_env *env, doub
     double m_c = (1.0 - w) * 2.0 * m_h + w * m_h;
     double b = 1.0 / ((1.0 - w) / b_h2_air(t) + w / b_h_o(t));
     double dm = m_bg - m_c;
-    return dm > 0.0 ? 2.0 * f_t * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
+    /* H atoms (in carriers) per particle: the molecular f_T, diluted by the particles the
+     * dissociated water-borne share adds (see file comment) */
+    double x_h = 2.0 * f_t / (1.0 + 2.0 * w * f_t);
+    return dm > 0.0 ? x_h * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
 }
 
 /* Deuterium fractionation of diffusion-limited escape (from memory):
