@@ -22,6 +22,10 @@
  *   (r_exo/R_p)^2 per unit surface. Below the critical escape parameter lambda_c the flow
  *   turns hydrodynamic: the exobase cap blends smoothly (over lambda_c -+ 0.5) from
  *   min(Jeans, energy limit) to the energy limit.
+ * Deuterium (docs/escape.md): diffusion limit f_dl = (b_D/b_H)(m_bg - m_cD)/(m_bg - m_cH)
+ *   with the carriers HD/H2 (molecular part) and D/H (atomic part), b ~ mu^-1/2 (Zahnle &
+ *   Kasting 1986; Yung et al. 1988, from memory); Jeans limit f_J = the per-particle
+ *   Jeans flux ratio at the exobase.
  * Energy limit (Watson, Donahue & Walker 1981, Icarus 48:150; Erkaev et al. 2007,
  *   A&A 472:329): Mdot = eps pi R_XUV^2 R_p F_XUV / (G M_p K),
  *   K = 1 - 3/(2 xi) + 1/(2 xi^3), xi = R_Roche / R_XUV, R_Roche = a (M_p / 3 M_*)^(1/3);
@@ -91,17 +95,31 @@ static double diffusion_limit(const vl_escape_params *p, const vl_env *env, doub
     return dm > 0.0 ? x_h * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
 }
 
-/* Deuterium fractionation of diffusion-limited escape (from memory):
- * f = (b_D/b_H)(m_bg - m_D)/(m_bg - m_H), with b ~ 1/sqrt(reduced mass). */
-static double diffusion_fractionation(const vl_env *env)
+/* Binary diffusion coefficient of a carrier of mass m_kg through a background whose
+ * coefficient for a carrier of mass m_ref_kg is b_ref: b ~ mu^-1/2 at fixed collision
+ * cross section (from memory), mu the reduced mass with the background m_bg_kg. */
+static double b_isotope(double b_ref, double m_ref_kg, double m_kg, double m_bg_kg)
+{
+    double mu_ref = m_ref_kg * m_bg_kg / (m_ref_kg + m_bg_kg);
+    double mu = m_kg * m_bg_kg / (m_kg + m_bg_kg);
+    return b_ref * sqrt(mu_ref / mu);
+}
+
+double vl_escape_diffusion_fractionation(double m_mol_kg, double w_o, double t_k)
 {
     double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU, m_o = VL_AW_O * VL_AMU;
-    double w = fmin(fmax(env->f_strat, 0.0), 1.0);
-    double m_bg = (1.0 - w) * env->m_background_kg + w * m_o;
-    if (!(m_bg > m_d))
-        return 1.0;
-    double mu_h = m_h * m_bg / (m_h + m_bg), mu_d = m_d * m_bg / (m_d + m_bg);
-    return sqrt(mu_h / mu_d) * (m_bg - m_d) / (m_bg - m_h);
+    double m_h2 = 2.0 * m_h, m_hd = m_h + m_d;
+    double w = fmin(fmax(w_o, 0.0), 1.0);
+    double m_bg = (1.0 - w) * m_mol_kg + w * m_o;
+    double m_ch = (1.0 - w) * m_h2 + w * m_h, m_cd = (1.0 - w) * m_hd + w * m_d;
+    if (!(m_bg > m_cd))
+        return 0.0; /* D's carrier no lighter than the background: it stays (continuous) */
+    double b_mol = b_h2_air(t_k), b_at = b_h_o(t_k);
+    double b_h = 1.0 / ((1.0 - w) / b_mol + w / b_at);
+    double b_d = 1.0 / ((1.0 - w) / b_isotope(b_mol, m_h2, m_hd, m_mol_kg) +
+                        w / b_isotope(b_at, m_h, m_d, m_o));
+    double f = (b_d / b_h) * (m_bg - m_cd) / (m_bg - m_ch);
+    return f > 1.0 ? 1.0 : f;
 }
 
 /* Deuterium fractionation of Jeans escape: the Jeans flux per particle of D over H at
@@ -149,7 +167,8 @@ void vl_escape_limits(const vl_escape_params *p, const vl_planet *pl, vl_env *en
     double f_t = env->f_strat + env->x[VL_GAS_H2];
     e->h_diffusion = diffusion_limit(p, env, f_t);
     jeans_limit(p, pl, env, f_t);
-    e->f_dl = diffusion_fractionation(env);
+    e->f_dl = vl_escape_diffusion_fractionation(env->m_background_kg, env->f_strat,
+                                                p->homopause_temp_k);
     e->f_jeans = jeans_fractionation(e->lambda_h);
     e->water_share = f_t > 0.0 ? env->f_strat / f_t : 0.0;
 }
