@@ -25,7 +25,8 @@
  * Deuterium (docs/escape.md): diffusion limit f_dl = (b_D/b_H)(m_bg - m_cD)/(m_bg - m_cH)
  *   with the carriers HD/H2 (molecular part) and D/H (atomic part), b ~ mu^-1/2 (Zahnle &
  *   Kasting 1986; Yung et al. 1988, from memory); Jeans limit f_J = the per-particle
- *   Jeans flux ratio at the exobase.
+ *   Jeans flux ratio at the exobase times the diffusive separation between homopause and
+ *   exobase, exp(-(r_exo - r_tb)(m_D - m_H) g_exo/(k T_exo)).
  * Energy limit (Watson, Donahue & Walker 1981, Icarus 48:150; Erkaev et al. 2007,
  *   A&A 472:329): Mdot = eps pi R_XUV^2 R_p F_XUV / (G M_p K),
  *   K = 1 - 3/(2 xi) + 1/(2 xi^3), xi = R_Roche / R_XUV, R_Roche = a (M_p / 3 M_*)^(1/3);
@@ -122,12 +123,20 @@ double vl_escape_diffusion_fractionation(double m_mol_kg, double w_o, double t_k
     return f > 1.0 ? 1.0 : f;
 }
 
+double vl_escape_jeans_separation(const vl_upper *u)
+{
+    double dr = fmax(u->r_exo_m - u->r_tb_m, 0.0);
+    double x = dr * (VL_AW_D - VL_AW_H) * VL_AMU * u->g_exo / (VL_K_BOLTZMANN * u->t_exo_k);
+    return x > 0.0 ? exp(-x) : 1.0; /* also 1 for 0/0 (no thermosphere, no temperature) */
+}
+
 /* Deuterium fractionation of Jeans escape: the Jeans flux per particle of D over H at
- * the exobase, sqrt(m_H/m_D) (1 + l_D) e^-l_D / ((1 + l_H) e^-l_H), l_D = l_H m_D/m_H. */
-static double jeans_fractionation(double lambda_h)
+ * the exobase, sqrt(m_H/m_D) (1 + l_D) e^-l_D / ((1 + l_H) e^-l_H), l_D = l_H m_D/m_H,
+ * times the exobase's D/H over the homopause's (vl_escape_jeans_separation). */
+static double jeans_fractionation(double lambda_h, double separation)
 {
     double r = VL_AW_D / VL_AW_H, ld = lambda_h * r;
-    return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld);
+    return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld) * separation;
 }
 
 /* Hydrodynamic weight at escape parameter lambda: 0 above lambda_c + 0.5, 1 below
@@ -169,7 +178,7 @@ void vl_escape_limits(const vl_escape_params *p, const vl_planet *pl, vl_env *en
     jeans_limit(p, pl, env, f_t);
     e->f_dl = vl_escape_diffusion_fractionation(env->m_background_kg, env->f_strat,
                                                 p->homopause_temp_k);
-    e->f_jeans = jeans_fractionation(e->lambda_h);
+    e->f_jeans = jeans_fractionation(e->lambda_h, vl_escape_jeans_separation(&env->upper));
     e->water_share = f_t > 0.0 ? env->f_strat / f_t : 0.0;
 }
 
