@@ -23,7 +23,7 @@ static int loss_rhs(double t, const double y[], double dydt[], void *pv)
 {
     const loss *l = pv;
     (void)t;
-    memset(dydt, 0, VL_NSTATE * sizeof dydt[0]);
+    memset(dydt, 0, VL_NRES * sizeof dydt[0]); /* the system below has VL_NRES equations */
     static const vl_reaction escape[] = {
         {"2 H2O -> 4 H(space) + 2 O(space)", 3, {VL_R_WATER, VL_R_SPACE_H, VL_R_SPACE_O},
          {-2.0, 4.0, 2.0}}};
