@@ -95,10 +95,11 @@ static size_t shuffled(const vl_scenario *sc, unsigned seed, const vl_process **
 
 /* A young M-dwarf planet (the wet demo, shortened) with an Earth-like dipole: thermal
  * escape with oxygen drag, every non-thermal channel, both hydrogen demands sharing the
- * diffusion room, and the carbon and nitrogen cycles all act. */
+ * diffusion room, and the carbon and nitrogen cycles all act. 500 Myr: its steam upper
+ * atmosphere is diffusion-limited (no room for non-thermal hydrogen) until ~420 Myr. */
 static vl_scenario *busy_scenario(void)
 {
-    const char *sets[] = {"run.end_yr=3e8", "run.log_points=60", "run.linear_points=20",
+    const char *sets[] = {"run.end_yr=5e8", "run.log_points=60", "run.linear_points=20",
                           "planet.dipole_moment_earth=1"};
     return vl_test_scenario("scenarios/demo.cfg", sets, 4);
 }

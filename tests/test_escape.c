@@ -105,6 +105,32 @@ START_TEST(diffusion_limit_earth)
 }
 END_TEST
 
+START_TEST(diffusion_limit_saturates)
+{
+    fixture f;
+    setup_earth(&f, NULL, 0);
+    double m_n2 = vl_species_molar_mass(VL_SP_N2) / VL_AVOGADRO;
+    /* as many H2 molecules as N2 (x_H2 = 1/2, f = H2/N2 = 1), no water-borne O: Hunten
+     * 1973's limit for a non-trace gas, b f/(1 + f)/H_a (1 - m_H2/m_a), in the present-
+     * Earth form 2.5e13 f/(1 + f) H2 cm^-2 s^-1 (Catling & Kasting 2017, from memory),
+     * half what the trace-gas form 2.5e13 f gives; twice that in H atoms */
+    f.env.f_strat = 1e-12;
+    f.env.x[VL_GAS_H2] = 0.5;
+    f.env.m_background_kg = m_n2;
+    budget_without_drag(&f);
+    double half = f.env.escape.h_diffusion;
+    ck_assert_rel(half, 2.0 * 2.5e17 * 1.0 / (1.0 + 1.0), 0.2);
+    /* f_T is already the mole fraction x = f/(1 + f): a further 1/(1 + x) would make it
+     * 2/3 of this, outside the 20 %; nearly pure H2 (x = 0.99, f = 99) gets within 1 %
+     * of the saturated flux 2.5e13 f/(1 + f) -> 2.5e13 per H2, never above it */
+    f.env.x[VL_GAS_H2] = 0.99;
+    budget_without_drag(&f);
+    ck_assert_rel(f.env.escape.h_diffusion, 2.0 * half * 0.99, 1e-9);
+    ck_assert(f.env.escape.h_diffusion < 2.0 * half);
+    teardown(&f);
+}
+END_TEST
+
 START_TEST(crossover_flux_earth)
 {
     fixture f;
@@ -190,11 +216,14 @@ START_TEST(diffusion_through_background)
     ck_assert_rel(f.env.escape.h_diffusion / in_n2, (44.009 - 2.016) / (28.014 - 2.016), 1e-9);
     (void)m_co2;
     /* a steam upper atmosphere (f_strat = 1): atomic H through atomic O, b(H-O) =
-     * 4.8e17 T^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory), 250 K [C] */
+     * 4.8e17 T^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory), 250 K [C]; water
+     * dissociated into 2 H + O makes H a major gas, H/O = f = 2, whose mole fraction is
+     * f/(1 + f) = 2/3 (Hunten 1973's 1/(1 + f) for a non-trace gas). This expectation was
+     * 2 (two H atoms per molecule of steam, the trace-gas formula) before issue 16 */
     f.env.f_strat = 1.0;
     budget_without_drag(&f);
     double b = 4.8e19 * pow(250.0, 0.75);
-    double want = 2.0 * 1.0 * b * f.env.g * (VL_AW_O - VL_AW_H) * VL_AMU / (VL_K_BOLTZMANN * 250.0);
+    double want = 2.0 / 3.0 * b * f.env.g * (VL_AW_O - VL_AW_H) * VL_AMU / (VL_K_BOLTZMANN * 250.0);
     ck_assert_rel(f.env.escape.h_diffusion, want, 1e-9);
     teardown(&f);
 }
@@ -295,6 +324,7 @@ Suite *vl_suite_escape(void)
     tcase_add_test(tc, energy_limited_earth);
     tcase_add_test(tc, roche_factor_raises_loss);
     tcase_add_test(tc, diffusion_limit_earth);
+    tcase_add_test(tc, diffusion_limit_saturates);
     tcase_add_test(tc, crossover_flux_earth);
     tcase_add_test(tc, photolysis_follows_escape);
     tcase_add_test(tc, photon_limit_caps);

@@ -17,8 +17,9 @@
 void vl_escape_eval(const vl_escape_params *p, const vl_planet *pl, vl_env *env);
 
 /* The limits: energy-limited mass flux, diffusion limit, Jeans limit with the
- * hydrodynamic weights, the fractionation factors of the diffusion and Jeans limits and
- * the water-borne share of the homopause hydrogen. */
+ * hydrodynamic weights, the fractionation factors of the diffusion and Jeans limits
+ * (vl_escape_diffusion_fractionation; the Jeans flux ratio times
+ * vl_escape_jeans_separation) and the water-borne share of the homopause hydrogen. */
 void vl_escape_limits(const vl_escape_params *p, const vl_planet *pl, vl_env *env);
 
 /* The energy shared between hydrogen and the oxygen it drags (p->drag; Hunten, Pepin &
@@ -38,6 +39,22 @@ void vl_escape_h_flux(vl_escape *e, double h_el);
  * the least-of-the-limits rule of vl_escape_h_flux (h_el: the energy-limited H flux), so
  * the factor is continuous where the binding limit changes. */
 void vl_escape_d_fractionation(vl_escape *e, double h_el, double f_el);
+
+/* Deuterium fractionation factor of diffusion-limited escape: (b_D/b_H)(m_bg - m_cD) /
+ * (m_bg - m_cH), the escaping D/H over the homopause's. The carriers are H2 and HD in
+ * the molecular background (mean mass m_mol_kg) and H and D in the atomic O of
+ * dissociated water, blended with that O's share w_o (clipped to [0, 1]) as the
+ * diffusion limit blends them: m_bg = (1 - w) m_mol + w m_O, m_cH = (1 - w) m_H2 + w m_H,
+ * m_cD = (1 - w) m_HD + w m_D, and b by Blanc's law with b ~ mu^-1/2 (t_k: the
+ * homopause temperature of the b's). In [0, 1], continuous; 0 once m_bg <= m_cD. */
+double vl_escape_diffusion_fractionation(double m_mol_kg, double w_o, double t_k);
+
+/* Diffusive separation of D from H between the homopause and the exobase: the D/H at
+ * the exobase over the homopause's for isotopes in diffusive equilibrium with their
+ * own scale heights H_i = k T_exo/(m_i g_exo) over r_exo - r_tb (u's fields),
+ * exp(-(r_exo - r_tb)(m_D - m_H) g_exo/(k T_exo)); the same for HD/H2 (equal mass
+ * difference). In (0, 1]; 1 without a thermosphere. */
+double vl_escape_jeans_separation(const vl_upper *u);
 
 /* Drag fractionation factor (Hunten, Pepin & Walker 1987): (m_c - m_D)/(m_c - m_H)
  * clipped to [0, 1]; m_c the crossover mass, kg. */

@@ -1,21 +1,32 @@
 /* escape.c: the escape-budget stage (escape.h).
  *
  * Diffusion limit (Hunten 1973, J. Atmos. Sci. 30:1481), through the actual background:
- *   phi_H = 2 f_T b g (m_bg - m_c) / (k T)   [H atoms m^-2 s^-1],
- *   f_T = f_strat + x_H2 (total hydrogen above the homopause, H2 units). The background is
- *   the molecular gases (N2, CO2, O2; mean mass m_mol) and, above the cold trap, the O of
- *   dissociated water with share w_O = f_strat (a steam upper atmosphere is atomic O);
- *   m_bg = (1 - w_O) m_mol + w_O m_O, the carrier H2 in the molecular part and H in the
- *   O part, m_c = (1 - w_O) m_H2 + w_O m_H, and Blanc's law for the mixture
- *   1/b = (1 - w_O)/b(H2-air) + w_O/b(H-O), with b(H2-air) = 1.89e19 (T/293 K)^0.75
- *   cm^-1 s^-1 (Marrero & Mason 1972, CRC table) and b(H-O) = 4.8e17 T^0.75 cm^-1 s^-1
- *   (Zahnle & Kasting 1986, from memory).
+ *   phi_H = 2 f_T / (1 + 2 w_O f_T) b g (m_bg - m_c) / (k T)   [H atoms m^-2 s^-1],
+ *   f_T = f_strat + x_H2 (total hydrogen above the homopause, H2 units, a mole fraction of
+ *   all the molecules). The background is the molecular gases (N2, CO2, O2; mean mass
+ *   m_mol) and, above the cold trap, the O of dissociated water with share w_O = f_strat
+ *   (a steam upper atmosphere is atomic O); m_bg = (1 - w_O) m_mol + w_O m_O, the carrier
+ *   H2 in the molecular part and H in the O part, m_c = (1 - w_O) m_H2 + w_O m_H, and
+ *   Blanc's law for the mixture 1/b = (1 - w_O)/b(H2-air) + w_O/b(H-O), with b(H2-air) =
+ *   1.89e19 (T/293 K)^0.75 cm^-1 s^-1 (Marrero & Mason 1972, CRC table) and b(H-O) =
+ *   4.8e17 T^0.75 cm^-1 s^-1 (Zahnle & Kasting 1986, from memory).
+ *   Hunten's factor f/(1 + f) (f the carrier's ratio to the heavy background) is the
+ *   carrier's mole fraction among all particles. f_T already is a mole fraction, so the
+ *   molecular part needs no factor; dissociating the water-borne share w_O adds
+ *   2 w_O f_T particles (H2O -> 2 H + O) per molecule, hence 1/(1 + 2 w_O f_T): in a
+ *   steam upper atmosphere (w_O = f_T = 1) the H atoms are f/(1 + f) = 2/3 of the
+ *   particles (f = H/O = 2), not 2.
  * Jeans limit (Jeans 1925; Chamberlain & Hunten 1987): the Jeans flux of H from an
  *   exobase density in diffusive equilibrium above the homopause,
  *   n_H = 2 f_T n_tb exp(-(r_exo - r_tb)/H_H), H_H = k T_exo/(m_H g_exo), times
  *   (r_exo/R_p)^2 per unit surface. Below the critical escape parameter lambda_c the flow
  *   turns hydrodynamic: the exobase cap blends smoothly (over lambda_c -+ 0.5) from
  *   min(Jeans, energy limit) to the energy limit.
+ * Deuterium (docs/escape.md): diffusion limit f_dl = (b_D/b_H)(m_bg - m_cD)/(m_bg - m_cH)
+ *   with the carriers HD/H2 (molecular part) and D/H (atomic part), b ~ mu^-1/2 (Zahnle &
+ *   Kasting 1986; Yung et al. 1988, from memory); Jeans limit f_J = the per-particle
+ *   Jeans flux ratio at the exobase times the diffusive separation between homopause and
+ *   exobase, exp(-(r_exo - r_tb)(m_D - m_H) g_exo/(k T_exo)).
  * Energy limit (Watson, Donahue & Walker 1981, Icarus 48:150; Erkaev et al. 2007,
  *   A&A 472:329): Mdot = eps pi R_XUV^2 R_p F_XUV / (G M_p K),
  *   K = 1 - 3/(2 xi) + 1/(2 xi^3), xi = R_Roche / R_XUV, R_Roche = a (M_p / 3 M_*)^(1/3);
@@ -79,28 +90,53 @@ static double diffusion_limit(const vl_escape_params *p, const vl_env *env, doub
     double m_c = (1.0 - w) * 2.0 * m_h + w * m_h;
     double b = 1.0 / ((1.0 - w) / b_h2_air(t) + w / b_h_o(t));
     double dm = m_bg - m_c;
-    return dm > 0.0 ? 2.0 * f_t * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
+    /* H atoms (in carriers) per particle: the molecular f_T, diluted by the particles the
+     * dissociated water-borne share adds (see file comment) */
+    double x_h = 2.0 * f_t / (1.0 + 2.0 * w * f_t);
+    return dm > 0.0 ? x_h * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
 }
 
-/* Deuterium fractionation of diffusion-limited escape (from memory):
- * f = (b_D/b_H)(m_bg - m_D)/(m_bg - m_H), with b ~ 1/sqrt(reduced mass). */
-static double diffusion_fractionation(const vl_env *env)
+/* Binary diffusion coefficient of a carrier of mass m_kg through a background whose
+ * coefficient for a carrier of mass m_ref_kg is b_ref: b ~ mu^-1/2 at fixed collision
+ * cross section (from memory), mu the reduced mass with the background m_bg_kg. */
+static double b_isotope(double b_ref, double m_ref_kg, double m_kg, double m_bg_kg)
+{
+    double mu_ref = m_ref_kg * m_bg_kg / (m_ref_kg + m_bg_kg);
+    double mu = m_kg * m_bg_kg / (m_kg + m_bg_kg);
+    return b_ref * sqrt(mu_ref / mu);
+}
+
+double vl_escape_diffusion_fractionation(double m_mol_kg, double w_o, double t_k)
 {
     double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU, m_o = VL_AW_O * VL_AMU;
-    double w = fmin(fmax(env->f_strat, 0.0), 1.0);
-    double m_bg = (1.0 - w) * env->m_background_kg + w * m_o;
-    if (!(m_bg > m_d))
-        return 1.0;
-    double mu_h = m_h * m_bg / (m_h + m_bg), mu_d = m_d * m_bg / (m_d + m_bg);
-    return sqrt(mu_h / mu_d) * (m_bg - m_d) / (m_bg - m_h);
+    double m_h2 = 2.0 * m_h, m_hd = m_h + m_d;
+    double w = fmin(fmax(w_o, 0.0), 1.0);
+    double m_bg = (1.0 - w) * m_mol_kg + w * m_o;
+    double m_ch = (1.0 - w) * m_h2 + w * m_h, m_cd = (1.0 - w) * m_hd + w * m_d;
+    if (!(m_bg > m_cd))
+        return 0.0; /* D's carrier no lighter than the background: it stays (continuous) */
+    double b_mol = b_h2_air(t_k), b_at = b_h_o(t_k);
+    double b_h = 1.0 / ((1.0 - w) / b_mol + w / b_at);
+    double b_d = 1.0 / ((1.0 - w) / b_isotope(b_mol, m_h2, m_hd, m_mol_kg) +
+                        w / b_isotope(b_at, m_h, m_d, m_o));
+    double f = (b_d / b_h) * (m_bg - m_cd) / (m_bg - m_ch);
+    return f > 1.0 ? 1.0 : f;
+}
+
+double vl_escape_jeans_separation(const vl_upper *u)
+{
+    double dr = fmax(u->r_exo_m - u->r_tb_m, 0.0);
+    double x = dr * (VL_AW_D - VL_AW_H) * VL_AMU * u->g_exo / (VL_K_BOLTZMANN * u->t_exo_k);
+    return x > 0.0 ? exp(-x) : 1.0; /* also 1 for 0/0 (no thermosphere, no temperature) */
 }
 
 /* Deuterium fractionation of Jeans escape: the Jeans flux per particle of D over H at
- * the exobase, sqrt(m_H/m_D) (1 + l_D) e^-l_D / ((1 + l_H) e^-l_H), l_D = l_H m_D/m_H. */
-static double jeans_fractionation(double lambda_h)
+ * the exobase, sqrt(m_H/m_D) (1 + l_D) e^-l_D / ((1 + l_H) e^-l_H), l_D = l_H m_D/m_H,
+ * times the exobase's D/H over the homopause's (vl_escape_jeans_separation). */
+static double jeans_fractionation(double lambda_h, double separation)
 {
     double r = VL_AW_D / VL_AW_H, ld = lambda_h * r;
-    return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld);
+    return sqrt(1.0 / r) * (1.0 + ld) / (1.0 + lambda_h) * exp(lambda_h - ld) * separation;
 }
 
 /* Hydrodynamic weight at escape parameter lambda: 0 above lambda_c + 0.5, 1 below
@@ -140,8 +176,9 @@ void vl_escape_limits(const vl_escape_params *p, const vl_planet *pl, vl_env *en
     double f_t = env->f_strat + env->x[VL_GAS_H2];
     e->h_diffusion = diffusion_limit(p, env, f_t);
     jeans_limit(p, pl, env, f_t);
-    e->f_dl = diffusion_fractionation(env);
-    e->f_jeans = jeans_fractionation(e->lambda_h);
+    e->f_dl = vl_escape_diffusion_fractionation(env->m_background_kg, env->f_strat,
+                                                p->homopause_temp_k);
+    e->f_jeans = jeans_fractionation(e->lambda_h, vl_escape_jeans_separation(&env->upper));
     e->water_share = f_t > 0.0 ? env->f_strat / f_t : 0.0;
 }
 
