@@ -100,12 +100,14 @@ limit, present Earth, maximum CO2 greenhouse, cold trap); nothing here was fitte
   windows between the CO2 bands let the hot surface cool too well. With the measured
   albedo, 3.3 bar of N2 and 30 ppmv of water the same column gives about 700 K
   (tests/test_column_climate.c). Its N2 follows the shared Earth-scaled rule and is
-  several times too small: the shared inventory does not explain Venus's nitrogen. The
-  D/H ratio in the table is that of a vanishing residual (the last 1e-146 TO of
-  water, distilled by fractionating escape): it has no physical meaning. The enrichment
+  several times too small: the shared inventory does not explain Venus's nitrogen. Its
+  D/H comes out near 190 times the start, close to the ~120 ± 40 measured, now that
+  diffusion-limited escape fractionates through H2/HD carriers (factor ~0.8; docs/model.md
+  section 5a) — but it is the D/H of a vanishing residual (the last 1e-140 TO of water,
+  distilled by fractionating escape), so the agreement says little: the enrichment
   measured today is thought to be a steady state between late, strongly fractionating
-  non-thermal loss and a small supply of water (outgassing, comets), which the default
-  scenario does not have (juvenile water outgassing is 0).
+  non-thermal loss and a small supply of water (outgassing, comets; Grinspoon 1993),
+  which the default scenario does not have (juvenile water outgassing is 0; issue 16).
 - **Earth** keeps its ocean, draws the starting 63 bar of CO2 into carbonates within
   ~0.1 Gyr and ends temperate near 288 K with a few hundred ppmv of CO2 — largely by
   construction: the climate is calibrated to present Earth and the weathering
