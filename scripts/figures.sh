@@ -1,7 +1,9 @@
 #!/bin/sh
 # figures.sh BIN -- render one figure of every kind from the bundled scenarios into
 # docs/figures/ (PNG, for docs/figures.md), with the commands docs/figures.md shows.
-# Takes about a minute on 2 cores (two sweeps of the invented demo planet).
+# Took about a minute on 2 cores with the grey column; with the non-grey column the two
+# sweeps of the invented demo planet compute many table points (~7 and over 15 minutes
+# with a cold cache, docs/performance.md section 7; faster once the cache holds them).
 set -eu
 [ "$#" -eq 1 ] || { echo "usage: sh scripts/figures.sh path/to/volev" >&2; exit 2; }
 bin=$1
