@@ -2,7 +2,7 @@
  * much of the mantle is molten at a potential temperature, the solubility of H2O, CO2
  * and N2 in the melt, and how much oxygen the melt's iron can take. Pure functions, no
  * state; SI units (Pa, K, kg, m) unless a name says otherwise. Equations, sources and
- * validity ranges: docs/magma-draft.md. */
+ * validity ranges: docs/model.md section 5b. */
 #ifndef VOLEV_MAGMA_H
 #define VOLEV_MAGMA_H
 

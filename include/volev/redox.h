@@ -4,7 +4,7 @@
  * fugacity. Pure functions, no state. Units as the names say: temperature in K,
  * pressure and fugacity in bar (standard state 1 bar), logarithms base 10. Ideal gases;
  * valid 1000-2000 K (the buffers' fits are extrapolated above ~1500 K). Equations,
- * sources and what is left out: docs/redox-draft.md.
+ * sources and what is left out: docs/model.md section 4 (volcanic_reductants).
  *
  * Invalid input (any argument non-finite, t_k <= 0, p_bar < 0) gives NAN, never a
  * partial number; vl_redox_volcanic_ratios writes NAN to both outputs then. */
