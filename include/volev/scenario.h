@@ -4,6 +4,7 @@
 #define VOLEV_SCENARIO_H
 
 #include <stdio.h>
+#include "volev/magma.h"
 #include "volev/params.h"
 #include "volev/status.h"
 
@@ -60,12 +61,8 @@ enum vl_tectonics { VL_TECTONICS_MOBILE, VL_TECTONICS_STAGNANT };
 typedef struct vl_magma_ocean_params {
     int molten_start;          /* the run starts with a magma ocean */
     double start_tp_k;         /* mantle potential temperature at the start, K */
-    double rho_kg_m3;          /* mantle density */
-    double cp_j_kg_k;          /* silicate heat capacity */
-    double alpha_k;            /* thermal expansivity, 1/K */
-    double latent_j_kg;        /* latent heat of silicate melting */
-    double phi_rheo;           /* melt fraction of the rheological transition */
-    double core_radius_frac;   /* core radius over planet radius */
+    vl_magma_params mantle;    /* what magma.h needs: density, c_p, expansivity, latent
+                                  heat, rheological transition, core size */
     double feo_fraction;       /* FeO mass fraction of the silicate */
 } vl_magma_ocean_params;
 

@@ -30,16 +30,6 @@
 
 static double pos(double v) { return v > 0.0 ? v : 0.0; }
 
-void vl_melt_params(const vl_magma_ocean_params *mo, vl_magma_params *mp)
-{
-    mp->rho_kg_m3 = mo->rho_kg_m3;
-    mp->cp_j_kg_k = mo->cp_j_kg_k;
-    mp->alpha_k = mo->alpha_k;
-    mp->latent_j_kg = mo->latent_j_kg;
-    mp->phi_rheo = mo->phi_rheo;
-    mp->core_radius_frac = mo->core_radius_frac;
-}
-
 /* The air's part of total_kg of a volatile shared with melt_kg of open melt that
  * dissolves solubility(p) per kg at the partial pressure p = M pa_per_kg: the root of
  * M + s(M pa_per_kg) melt - total, which rises monotonically in M (bisection to the
@@ -66,11 +56,9 @@ void vl_melt_stage_state(const vl_model *m, const double *y, vl_env *env)
     double tp = y[VL_S_MANTLE_TP];
     if (!mo->molten_start || !(tp > 0.0))
         return;
-    vl_magma_params mp;
     vl_magma_state s;
-    vl_melt_params(mo, &mp);
-    if (vl_magma_state_at(&mp, tp, m->planet.radius_m, m->planet.g, &s) != 0)
-        return; /* a non-finite T_p: the stepper rejects the step on the NaN rates */
+    if (vl_magma_state_at(&mo->mantle, tp, m->planet.radius_m, m->planet.g, &s) != 0)
+        return; /* invalid parameters only, which the scenario's bounds exclude */
     ml->tp_k = tp;
     ml->melt_kg = s.melt_kg;
     ml->mantle_kg = s.mantle_kg;
@@ -78,7 +66,8 @@ void vl_melt_stage_state(const vl_model *m, const double *y, vl_env *env)
     ml->frac_surface = s.melt_frac_surface;
     ml->dmelt_dtp = s.dmelt_dtp_kg_k;
     ml->heat_capacity_j_k = s.heat_capacity_j_k;
-    ml->open = vl_smoothstep(s.melt_frac_surface, mo->phi_rheo, mo->phi_rheo + OPEN_WIDTH);
+    double phi_r = mo->mantle.phi_rheo;
+    ml->open = vl_smoothstep(s.melt_frac_surface, phi_r, phi_r + OPEN_WIDTH);
     double open_melt = ml->open * s.melt_kg, pa = m->planet.pa_per_kg;
     double water = pos(y[VL_R_WATER]), co2 = pos(y[VL_R_CO2]);
     double air_w = air_share(water, open_melt, pa, vl_magma_h2o_solubility);
@@ -103,5 +92,5 @@ void vl_melt_stage_heat(vl_env *env)
 
 int vl_melt_molten(const vl_model *m, const vl_env *env)
 {
-    return env->melt.tp_k > 0.0 && env->melt.frac_surface > m->sc->interior.magma.phi_rheo;
+    return env->melt.tp_k > 0.0 && env->melt.frac_surface > m->sc->interior.magma.mantle.phi_rheo;
 }

@@ -22,8 +22,6 @@ struct vl_work {
 
 /* The magma-ocean stage (melt_stage.c): the melt and the volatiles it holds from the
  * state (before the climate), then the mantle's heating from the climate's net flux. */
-struct vl_magma_params;
-void vl_melt_params(const vl_magma_ocean_params *mo, struct vl_magma_params *mp);
 void vl_melt_stage_state(const vl_model *m, const double *y, vl_env *env);
 void vl_melt_stage_heat(vl_env *env);
 /* 1 if the surface is molten: T_p above the rheological transition at the surface. */
