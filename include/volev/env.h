@@ -116,8 +116,9 @@ typedef struct vl_env {
     double s_runaway;         /* runaway-greenhouse threshold, in units of VL_S_EARTH */
     double s_moist;           /* moist-greenhouse threshold, in units of VL_S_EARTH */
     double liquid;            /* ice-free fraction of the ocean (0 without a liquid ocean) */
-    double net_flux_w_m2;     /* absorbed starlight less OLR at the surface temperature: ~0
-                                 at a climate equilibrium, the cooling of a magma ocean */
+    double net_flux_w_m2;     /* absorbed starlight less OLR at a molten surface (the magma
+                                 ocean's cooling; the column climate, regime magma_ocean
+                                 only: 0 otherwise) */
     vl_melt melt;             /* the magma ocean (melt stage) */
 
     vl_upper upper;           /* upper-atmosphere stage (upper.c) */

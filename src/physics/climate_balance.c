@@ -353,14 +353,20 @@ static int closer(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_sur
     return best < 0 || fabs(nj) < fabs(net_at(b, t, la, s, best));
 }
 
+int vl_balance_below_floor(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la,
+                           const vl_surface *s)
+{
+    return vl_balance_net(b, t, la, s, b->t_floor) < 0.0;
+}
+
 double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                         int br, double split_k)
 {
     double lo, hi;
     branch_range(b, br, split_k, &lo, &hi);
-    /* colder than any balance: the surface sits at the branch's floor */
-    if ((br == VL_BRANCH_COLD || br == VL_BRANCH_ANY) && vl_balance_net(b, t, la, s, lo) < 0.0)
-        return lo;
+    /* colder than any balance: the surface sits at the floor (the low end of both) */
+    if ((br == VL_BRANCH_COLD || br == VL_BRANCH_ANY) && vl_balance_below_floor(b, t, la, s))
+        return b->t_floor;
     /* hotter than any balance: the surface sits at the grid's top (3000 K; hotter
      * surfaces are outside the column's range, docs/model.md section 3) */
     if ((br == VL_BRANCH_HOT || br == VL_BRANCH_ANY) && hi >= T_MAX &&

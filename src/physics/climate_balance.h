@@ -63,11 +63,19 @@ double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl
 
 /* The stable root of branch br nearest its last one (searched outward from it, then
  * over the branch's whole range); 1 and *root_k if found, else 0. The branch ranges:
- * cold [150 K, split), warm [split, t_hot), hot [t_hot, 3000 K], any: all. */
+ * cold [floor, split + 5 K], warm [split - 5 K, t_hot], hot [t_hot, 3000 K], any:
+ * [floor, 3000 K]; the floor is CO2's frost point at its pressure, at least 150 K. */
 int vl_balance_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                     int br, double split_k, double *root_k);
 
-/* Where |N| is least over branch br's range (the "ghost" of a vanished root). */
+/* 1 if the balance cools even at its floor: no cold equilibrium, the surface is held
+ * there (by the latent heat of CO2 frost, or at the grid's lower end). */
+int vl_balance_below_floor(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la,
+                           const vl_surface *s);
+
+/* The "ghost" of a vanished root: the floor where the branch cools even there (cold,
+ * any), 3000 K where the hot branch heats even there, else where |N| is least next to
+ * a falling crossing over the branch's range. */
 double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                         int br, double split_k);
 

@@ -94,17 +94,19 @@ static void column_eval(const void *state, void *work, double water_kg, vl_env *
      * has all evaporated: the balance turns sea into rock at that temperature) */
     int wet = env->regime != VL_REGIME_DRY;
     vl_balance *b = balance_of(c, w, wet, water_kg, env);
-    /* a molten surface is at the mantle's potential temperature (the melt stage); its net
-     * flux cools the mantle */
-    double t = env->regime == VL_REGIME_MAGMA ? fmin(fmax(env->melt.tp_k, 150.0), 3000.0)
-                                              : branch_temp(c, w, b, env->regime);
+    /* a molten surface is at the mantle's potential temperature (the melt stage), within
+     * the table's range; its net flux cools the mantle */
+    int molten = env->regime == VL_REGIME_MAGMA;
+    double t = molten ? fmin(fmax(env->melt.tp_k, vl_ct_grid_t(0)), vl_ct_grid_t(VL_CT_NT - 1))
+                      : branch_temp(c, w, b, env->regime);
     if (b->oom) { /* out of memory: a NaN state stops the integrator with a message */
         env->t_surf_k = env->t_balance_k = env->f_strat = NAN;
         return;
     }
     env->t_surf_k = env->t_balance_k = t;
     env->f_strat = exp(vl_balance_logf(b, c->table, &w->la, &c->surface, t));
-    env->net_flux_w_m2 = vl_balance_net(b, c->table, &w->la, &c->surface, t);
+    if (molten) /* elsewhere the surface sits at (or near) a balance: not needed */
+        env->net_flux_w_m2 = vl_balance_net(b, c->table, &w->la, &c->surface, t);
     env->s_runaway = env->s_moist = NAN; /* thresholds: only the balance curves compute them */
     vl_dry_air air;
     vl_climate_dry_air(env, &air);
@@ -118,13 +120,6 @@ static void column_eval(const void *state, void *work, double water_kg, vl_env *
 static int has_root(const column *c, column_work *w, vl_balance *b, int br, double *r)
 {
     return vl_balance_root(b, c->table, &w->la, &c->surface, br, c->split_k, r);
-}
-
-/* 1 if balance b cools even at its floor (CO2's frost point or the grid's lower end): a
- * frozen surface sits there, held by the latent heat of CO2 frost, and stays frozen. */
-static int below_floor(const column *c, column_work *w, vl_balance *b)
-{
-    return vl_balance_net(b, c->table, &w->la, &c->surface, b->t_floor) < 0.0;
 }
 
 /* Warm-branch regime from its root's stratospheric water. */
@@ -143,7 +138,8 @@ static int column_classify(const void *state, void *work, double water_kg, const
     vl_balance *wet = balance_of(c, w, 1, water_kg, env);
     double r;
     if (env->regime == VL_REGIME_FROZEN &&
-        (has_root(c, w, wet, VL_BRANCH_COLD, &r) || below_floor(c, w, wet)))
+        (has_root(c, w, wet, VL_BRANCH_COLD, &r) ||
+         vl_balance_below_floor(wet, c->table, &w->la, &c->surface))) /* held at the floor */
         return VL_REGIME_FROZEN;
     if (env->regime == VL_REGIME_RUNAWAY && has_root(c, w, wet, VL_BRANCH_HOT, &r))
         return VL_REGIME_RUNAWAY;

@@ -6,7 +6,9 @@
  * Eggler & Raeburn 1993, J. Geol. 101:245):
  *   R = (H2/H2O) F_H2O + (CO/CO2) F_CO2        mol H2-equivalents per second,
  * F the volcanic H2O and CO2 fluxes (recycled water included: all the water that passes
- * through the melts), scaled by the interior heat flow as outgassing's are. CO counts as
+ * through the melts), scaled by (Q/Q0)^m and, under a stagnant lid, by a factor (not
+ * by outgassing's separate stagnant-lid exponent: the volcanic rates are not one shared
+ * stage yet, docs/model.md section 4), and by the planet's mass. CO counts as
  * H2 through the water-gas shift CO + H2O -> CO2 + H2 that photochemistry completes
  * (no CO reservoir is tracked). The mantle that gave the reductant keeps the oxygen:
  *   H2O (surface) -> H2 (air) + O (oxidised rock),
