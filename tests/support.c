@@ -10,6 +10,7 @@
 
 #include "suites.h"
 #include "volev/climate.h"
+#include "volev/integrate.h"
 #include "volev/model.h"
 
 /* DIR/REL into path (of size n); fails the test if it does not fit. */
@@ -200,4 +201,27 @@ const vl_process *vl_test_process_rates(const vl_model *m, const char *name, con
     ck_assert_msg(k >= 0, "no process %s", name);
     rates_alone(m, vl_processes[k], m->sc->proc[k].params, y, env, dydt, cols);
     return vl_processes[k];
+}
+
+static int keep_env(void *ctx, double t, const double *y, const double *dydt, const vl_env *env,
+                    const double *columns, vl_status *st)
+{
+    (void)t, (void)y, (void)dydt, (void)columns, (void)st;
+    *(vl_env *)ctx = *env;
+    return VL_OK;
+}
+
+void vl_test_final_env(const char *rel, const char *const *sets, size_t n, vl_env *last,
+                       double *y_final)
+{
+    vl_scenario *sc = vl_test_scenario(rel, sets, n);
+    vl_model *m = vl_test_model(sc);
+    vl_run_sink sink = {last, keep_env, NULL};
+    vl_run_stats s;
+    vl_status st;
+    ck_assert_msg(vl_integrate(m, &sink, &s, &st) == VL_OK, "%s: %s", rel, st.msg);
+    if (y_final)
+        memcpy(y_final, s.y_final, sizeof s.y_final);
+    vl_test_model_free(m);
+    vl_scenario_free(sc);
 }

@@ -116,6 +116,6 @@ const vl_process vl_process_crust_oxidation = {
     .refs = "Parsons 1981; Bach & Edwards 2003; Gale et al. 2013; Canfield 1998",
     VL_PROCESS_TABLES(table, params, columns),
     VL_PROCESS_TRANSFERS(transfers),
-    .default_enabled = 0,
+    .default_enabled = 1,
     .rates = rates,
 };

@@ -48,6 +48,6 @@ const vl_process vl_process_h2_oxidation = {
     .refs = "Kasting 1993; Novelli et al. 1999; Catling & Kasting 2017",
     VL_PROCESS_TABLES(table, params, columns),
     VL_PROCESS_REACTIONS(reactions),
-    .default_enabled = 0,
+    .default_enabled = 1,
     .rates = rates,
 };

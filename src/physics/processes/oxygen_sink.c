@@ -37,6 +37,6 @@ const vl_process vl_process_oxygen_sink = {
     .refs = "Holland 2002, GCA 66:3811 (sink magnitude)",
     VL_PROCESS_TABLES(table, params, columns),
     VL_PROCESS_TRANSFERS(transfers),
-    .default_enabled = 1,
+    .default_enabled = 0,
     .rates = rates,
 };

@@ -93,6 +93,6 @@ const vl_process vl_process_volcanic_reductants = {
     .refs = "Holland 1984; Kasting, Eggler & Raeburn 1993; Frost 1991",
     VL_PROCESS_TABLES(table, params, columns),
     VL_PROCESS_REACTIONS(reactions),
-    .default_enabled = 0,
+    .default_enabled = 1,
     .rates = rates,
 };
