@@ -3,7 +3,8 @@
  * 0.9, a 10-Gyr run around a late M dwarf -- around the Earth reference and the invented
  * demo planet. Each must complete, or stop with a clear message and no output; a
  * completed run's series.csv, events.csv and summary.csv must hold no NaN, no infinity
- * and no negative number. The expectations are the issue's, not results. */
+ * and no negative number (but in the signed quantities of the redox ledger). The
+ * expectations are the issue's, not results. */
 #include <ctype.h>
 #include <math.h>
 #include <stdio.h>
@@ -15,16 +16,66 @@
 
 static char tmp[256];
 
-/* Every field of every data line of text that reads as a number is finite and >= 0;
- * also no literal nan/inf anywhere. Returns a description of the first offender. */
+/* The quantities of the redox ledger are signed by definition (oxidant > 0, reductant
+ * < 0: docs/model.md section 1): the series columns surface_oxidant_kg and
+ * redox_<process>_kg_s, and the summary rows redox_* and total_redox_*. */
+static int signed_name(const char *name, size_t len)
+{
+    static const char *const prefixes[] = {"redox_", "total_redox_", "surface_oxidant_kg,"};
+    char buf[128];
+    snprintf(buf, sizeof buf, "%.*s,", (int)len, name);
+    for (size_t i = 0; i < sizeof prefixes / sizeof prefixes[0]; i++)
+        if (strncmp(buf, prefixes[i], strlen(prefixes[i])) == 0)
+            return 1;
+    return 0;
+}
+
+/* The name of field i of the CSV line at head (its first line), as a pointer and length. */
+static const char *field_at(const char *head, size_t i, size_t *len)
+{
+    for (; i > 0 && head; i--) {
+        head = strpbrk(head, ",\n");
+        head = head && *head == ',' ? head + 1 : NULL;
+    }
+    *len = head ? strcspn(head, ",\n") : 0;
+    return head;
+}
+
+/* Whether field i of the data line p is a signed redox quantity: its column's header
+ * name, or (summary.csv's name,value,unit rows) the row's name. */
+static int signed_field(const char *head, const char *p, size_t i)
+{
+    size_t len;
+    const char *h = field_at(head, i, &len);
+    return (h && signed_name(h, len)) || signed_name(p, strcspn(p, ",\n"));
+}
+
+/* Whether the text of one field (lowered in place) is NaN, infinite, or a negative
+ * number where negative_ok is 0. */
+static int bad_field(char *buf, int negative_ok)
+{
+    char *end;
+    double v = strtod(buf, &end);
+    int numeric = end != buf && *end == '\0';
+    for (char *c = buf; *c; c++)
+        *c = (char)tolower((unsigned char)*c);
+    return (numeric && (!isfinite(v) || (v < 0.0 && !negative_ok))) || strcmp(buf, "nan") == 0 ||
+           strcmp(buf, "inf") == 0 || strcmp(buf, "-nan") == 0;
+}
+
+/* Every field of every data line of text that reads as a number is finite and >= 0
+ * (a signed redox quantity may be negative); also no literal nan/inf anywhere. Returns
+ * a description of the first offender. */
 static const char *scan(const char *text, char *why, size_t n)
 {
-    const char *p = text;
+    const char *p = text, *head = NULL;
     int line = 0;
     while (*p) {
         line++;
         const char *nl = strchr(p, '\n');
-        size_t len = nl ? (size_t)(nl - p) : strlen(p);
+        size_t len = nl ? (size_t)(nl - p) : strlen(p), i = 0;
+        if (*p != '#' && !head)
+            head = p;
         if (*p != '#') {
             const char *f = p;
             while (f < p + len) {
@@ -35,17 +86,12 @@ static const char *scan(const char *text, char *why, size_t n)
                 size_t k = flen < sizeof buf - 1 ? flen : sizeof buf - 1;
                 memcpy(buf, f, k);
                 buf[k] = '\0';
-                char *end;
-                double v = strtod(buf, &end);
-                int numeric = end != buf && *end == '\0';
-                for (char *c = buf; *c; c++)
-                    *c = (char)tolower((unsigned char)*c);
-                if ((numeric && (!isfinite(v) || v < 0.0)) || strcmp(buf, "nan") == 0 ||
-                    strcmp(buf, "inf") == 0 || strcmp(buf, "-nan") == 0) {
+                if (bad_field(buf, signed_field(head, p, i))) {
                     snprintf(why, n, "line %d: field '%s'", line, buf);
                     return why;
                 }
                 f += flen + 1;
+                i++;
             }
         }
         if (!nl)

@@ -97,7 +97,7 @@ START_TEST(each_process_moves_mass)
                 if (fabs(cols[c]) > best[c])
                     best[c] = fabs(cols[c]);
         }
-        ncol = m->ncolumns;
+        ncol = m->nflux; /* the processes' own mass fluxes, not the redox columns */
         col_proc = m->col_proc;
         vl_test_model_free(keep);
         vl_scenario_free(sc_keep);

@@ -5,6 +5,7 @@
 
 #include "volev/env.h"
 #include "volev/model.h"
+#include "volev/redox_ledger.h"
 
 #define VL_MAX_COLUMNS 128
 
@@ -16,10 +17,12 @@ typedef struct vl_run_stats {
     double wall_s;             /* wall-clock time */
     double y_final[VL_NSTATE];
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
+    vl_redox_state redox0, redox1; /* the redox ledger at the start and the end */
     double time_in_regime_s[VL_NREGIMES];
     double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
-    double channel_kg[VL_MAX_COLUMNS]; /* time integral of each process flux column, kg
-                                          (trapezoid over accepted steps) */
+    double channel_kg[VL_MAX_COLUMNS]; /* time integral of each output column, kg (of mass,
+                                          or of O-equivalent for a redox column; trapezoid
+                                          over accepted steps) */
     vl_env env_last;           /* every stage at the last output row (the run's end once
                                   it succeeded) */
     double water_dh_last;      /* D/H of the surface water after the last accepted step

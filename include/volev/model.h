@@ -19,6 +19,14 @@
 #include "volev/scenario.h"
 #include "volev/star.h"
 
+/* Longest name of a redox column, "redox_<process>_kg_s", with its NUL. */
+#define VL_REDOX_NAME_MAX 64
+
+/* The output columns of a model: every process's flux columns (kg/s, in list order),
+ * then one redox column "redox_<process>_kg_s" for each process whose declarations can
+ * change the surface's redox content (redox_ledger.h; in list order): that process's
+ * tendency of the surface's content, kg O-equivalent/s, signed (positive: an oxidant
+ * source for the surface). */
 struct vl_model {
     const vl_scenario *sc;     /* borrowed: the stages' parameters */
     vl_planet planet;          /* the run's constants */
@@ -31,9 +39,14 @@ struct vl_model {
                                   order in which tendencies and hydrogen demands are
                                   added up, so that no total depends on the list's order */
     size_t *col_base;          /* owned; first output column of each process */
-    size_t ncolumns;           /* process flux columns in all */
-    const char **col_name;     /* owned array of borrowed names */
+    size_t ncolumns;           /* output columns in all: the flux columns, then the redox
+                                  columns */
+    size_t nflux;              /* the processes' flux columns (kg/s, one-way, >= 0): the
+                                  first nflux columns */
+    const char **col_name;     /* owned array of names (the flux columns' borrowed from
+                                  their process, the redox columns' in redox_names) */
     size_t *col_proc;          /* owned; index into proc of each column */
+    char (*redox_names)[VL_REDOX_NAME_MAX]; /* owned; the redox columns' names */
 };
 
 typedef struct vl_model vl_model;

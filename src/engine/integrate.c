@@ -216,6 +216,7 @@ static int run_loop(runner_t *r, vl_status *st)
     r->t = rp->start_s;
     vl_model_initial_state(r->m, r->y);
     vl_ledger_totals(r->y, r->stats->totals0);
+    vl_redox_pools(r->y, &r->stats->redox0);
     r->ode->regime = vl_events_settle(r->ode, r->t, r->y, VL_REGIME_TEMPERATE);
     r->armed = vl_events_rearm(r->y, 0);
     int rc = emit_event(r, r->t, "start", vl_regime_name(r->ode->regime), st);
@@ -229,6 +230,7 @@ static int run_loop(runner_t *r, vl_status *st)
         rc = emit_event(r, r->t, "end", vl_regime_name(r->ode->regime), st);
     memcpy(r->stats->y_final, r->y, sizeof r->y);
     vl_ledger_totals(r->y, r->stats->totals1);
+    vl_redox_pools(r->y, &r->stats->redox1);
     free(tout);
     return rc;
 }
@@ -274,7 +276,7 @@ int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats
     memset(stats, 0, sizeof *stats);
     stats->min_mass_kg = HUGE_VAL;
     if (m->ncolumns > VL_MAX_COLUMNS)
-        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "more than %d flux columns", VL_MAX_COLUMNS);
+        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "more than %d output columns", VL_MAX_COLUMNS);
     vl_ode *ode = calloc(1, sizeof *ode);
     int rc;
     if (!ode) {

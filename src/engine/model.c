@@ -4,10 +4,12 @@
 #include "volev/model.h"
 
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "model_internal.h"
+#include "volev/redox_ledger.h"
 #include "volev/units.h"
 
 /* A track with an xuv_lsun column replaces star.xuv.*: setting those keys is an error,
@@ -53,16 +55,38 @@ static void sort_by_name(vl_model *m)
         }
 }
 
-/* The output columns: each process's, in list order. */
+/* The redox columns (model.h): one per process that can change the surface's redox
+ * content, named into m->redox_names, from column n on; returns the column count. */
+static size_t redox_columns(vl_model *m, size_t n)
+{
+    size_t k = 0;
+    for (size_t i = 0; i < m->nproc; i++)
+        if (vl_redox_touches_surface(m->proc[i])) {
+            if (m->col_name) {
+                snprintf(m->redox_names[k], sizeof m->redox_names[k], "redox_%s_kg_s",
+                         m->proc[i]->name);
+                m->col_name[n + k] = m->redox_names[k];
+                m->col_proc[n + k] = i;
+            }
+            k++;
+        }
+    return k;
+}
+
+/* The output columns: each process's flux columns in list order, then the redox
+ * columns. */
 static int lay_out_columns(vl_model *m)
 {
     size_t n = 0;
     for (size_t i = 0; i < m->nproc; i++)
         n += m->proc[i]->ncolumns;
-    m->ncolumns = n;
-    m->col_name = calloc(n ? n : 1, sizeof *m->col_name);
-    m->col_proc = calloc(n ? n : 1, sizeof *m->col_proc);
-    if (!m->col_name || !m->col_proc)
+    size_t nredox = redox_columns(m, n);
+    m->nflux = n;
+    m->ncolumns = n + nredox;
+    m->col_name = calloc(m->ncolumns ? m->ncolumns : 1, sizeof *m->col_name);
+    m->col_proc = calloc(m->ncolumns ? m->ncolumns : 1, sizeof *m->col_proc);
+    m->redox_names = calloc(nredox ? nredox : 1, sizeof *m->redox_names);
+    if (!m->col_name || !m->col_proc || !m->redox_names)
         return 0;
     n = 0;
     for (size_t i = 0; i < m->nproc; i++) {
@@ -72,6 +96,7 @@ static int lay_out_columns(vl_model *m)
             m->col_proc[n] = i;
         }
     }
+    redox_columns(m, n);
     return 1;
 }
 
@@ -149,6 +174,7 @@ void vl_model_free(vl_model *m)
     free(m->col_base);
     free(m->col_name);
     free(m->col_proc);
+    free(m->redox_names);
     free(m);
 }
 

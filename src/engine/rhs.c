@@ -7,6 +7,7 @@
 #include "volev/escape.h"
 #include "volev/interior.h"
 #include "volev/ocean.h"
+#include "volev/redox_ledger.h"
 #include "volev/units.h"
 #include "volev/upper.h"
 
@@ -154,6 +155,9 @@ void vl_model_rhs(const vl_model *m, vl_work *w, double t_s, const double *y, in
         dydt[r] = s;
     }
     dydt[VL_S_MANTLE_TP] = e->melt.dtp_dt;
+    if (columns) /* each redox column: its process's row seen by the surface */
+        for (size_t c = m->nflux; c < m->ncolumns; c++)
+            columns[c] = vl_redox_surface_rate(w->rows[m->col_proc[c]]);
 }
 
 int vl_model_classify(const vl_model *m, vl_work *w, const double *y, const vl_env *env)

@@ -2,6 +2,7 @@
  * unit and meaning, as markdown (`volev columns`, docs/columns.md). */
 #include "output_internal.h"
 #include "volev/process.h"
+#include "volev/redox_ledger.h"
 #include "volev/schema.h"
 
 /* series.csv: the fixed columns, the reservoir masses, every process's fluxes. */
@@ -27,6 +28,16 @@ static void series_reference(FILE *out)
         for (size_t c = 0; c < vl_processes[k]->ncolumns; c++)
             fprintf(out, "| `%s` | %s | %s |\n", vl_processes[k]->columns[c].name,
                     vl_processes[k]->name, vl_processes[k]->columns[c].meaning);
+    fprintf(out, "\nThen one redox column per process the scenario switches on whose declared "
+                 "transfers or reactions can change the redox content of the air and ocean "
+                 "(kg O-equivalent/s, signed: positive when the process is an oxidant source "
+                 "for the surface; docs/model.md section 1), in the same order:\n\n");
+    fprintf(out, "| column | process | meaning |\n|---|---|---|\n");
+    for (size_t k = 0; k < vl_nprocesses; k++)
+        if (vl_redox_touches_surface(vl_processes[k]))
+            fprintf(out, "| `redox_%s_kg_s` | %s | the process's tendency of "
+                         "`surface_oxidant_kg` |\n",
+                    vl_processes[k]->name, vl_processes[k]->name);
 }
 
 const vl_event_column vl_event_columns[VL_NEVENT_COLUMNS] = {

@@ -6,6 +6,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "volev/redox_ledger.h"
 #include "volev/schema.h"
 #include "volev/units.h"
 
@@ -55,6 +56,13 @@ static double get_MAGMA_DEPTH(const vl_row *r) { return r->env->melt.depth_m * 1
 static double get_MELT_WATER(const vl_row *r) { return clamp0(r->env->melt.water_kg); }
 static double get_MELT_CO2(const vl_row *r) { return clamp0(r->env->melt.co2_kg); }
 static double get_MANTLE_FE3(const vl_row *r) { return r->env->melt.fe3_ratio; }
+/* the raw state (an overshoot below zero included): the ledger's own number */
+static double get_SURFACE_OXIDANT(const vl_row *r)
+{
+    vl_redox_state s;
+    vl_redox_pools(r->y, &s);
+    return s.pool[VL_POOL_SURFACE];
+}
 
 const vl_series_column vl_series_columns[VL_NSERIES] = {
 #define VL_SERIES(id, name, unit, kind, meaning) {name, unit, VL_COL_##kind, meaning, get_##id},
@@ -86,7 +94,7 @@ int vl_series_write_header(FILE *f, const vl_model *m)
             fprintf(f, "# %s: %s\n", vl_series_columns[id].name, codes);
         }
     fprintf(f, "# p_*_bar: partial pressures (mole fraction x surface pressure); *_to: "
-               "terrestrial oceans of %.4g kg; *_kg_s: process fluxes; every column's unit "
+               "terrestrial oceans of %.4g kg; *_kg_s: process fluxes (redox_*_kg_s: kg O-equivalent/s, signed); every column's unit "
                "and meaning: volev columns (docs/columns.md)\n",
             VL_TO_KG);
     for (int id = 0; id < VL_NSERIES; id++)
@@ -110,7 +118,7 @@ int vl_series_write_row(FILE *f, const vl_row *r)
     }
     for (int q = 0; q < VL_NRES; q++)
         fprintf(f, ",%.10g", clamp0(r->y[q]));
-    for (size_t c = 0; c < r->m->ncolumns; c++)
-        fprintf(f, ",%.10g", clamp0(r->columns[c]));
+    for (size_t c = 0; c < r->m->ncolumns; c++) /* the redox columns are signed */
+        fprintf(f, ",%.10g", c < r->m->nflux ? clamp0(r->columns[c]) : r->columns[c]);
     return fputc('\n', f) == EOF ? -1 : 0;
 }

@@ -7,6 +7,7 @@
 
 #include "output_internal.h"
 #include "volev/output.h"
+#include "volev/redox_ledger.h"
 #include "volev/schema.h"
 #include "volev/units.h"
 
@@ -58,6 +59,8 @@ typedef struct {
 } ctx;
 
 enum { REAL10, SCI3, COUNT, SECONDS };
+
+#define REDOX_UNIT "kg O-eq"
 
 /* One row (fixed: value) or a group of rows (group) of summary.csv; for a group, name
  * is the pattern shown in the column reference. */
@@ -122,7 +125,10 @@ static int channel_totals(FILE *f, const ctx *c)
         size_t len = strlen(col);
         int tail = len > 5 && strcmp(col + len - 5, "_kg_s") == 0;
         snprintf(name, sizeof name, "total_%.*s", (int)(tail ? len - 5 : len), col);
-        rc = row(f, name, "kg", REAL10, clamp0(c->s->channel_kg[k]));
+        if (k < c->m->nflux)
+            rc = row(f, name, "kg", REAL10, clamp0(c->s->channel_kg[k]));
+        else /* a redox column: signed, in O-equivalent */
+            rc = row(f, name, REDOX_UNIT, REAL10, c->s->channel_kg[k]);
     }
     return rc;
 }
@@ -137,6 +143,30 @@ static int residuals(FILE *f, const ctx *c)
         rc = row(f, name, "relative", SCI3, t0 > 0.0 ? d / t0 : d);
     }
     return rc;
+}
+
+/* the redox ledger (redox_ledger.h): pools from the first and the last state */
+static double redox_surface0(const ctx *c) { return c->s->redox0.pool[VL_POOL_SURFACE]; }
+static double redox_surface1(const ctx *c) { return c->s->redox1.pool[VL_POOL_SURFACE]; }
+static double redox_change(const ctx *c, int pool)
+{
+    return c->s->redox1.pool[pool] - c->s->redox0.pool[pool];
+}
+static double redox_to_space(const ctx *c) { return -redox_change(c, VL_POOL_SPACE); }
+static double redox_to_rock(const ctx *c) { return redox_change(c, VL_POOL_ROCK); }
+static double redox_residual(const ctx *c)
+{
+    return vl_redox_residual(&c->s->redox0, &c->s->redox1);
+}
+/* the surface's change against the sum of the redox columns' trapezoid integrals, over
+ * the ledger's gross scale */
+static double redox_attribution(const ctx *c)
+{
+    double sum = 0.0;
+    for (size_t k = c->m->nflux; k < c->m->ncolumns; k++)
+        sum += c->s->channel_kg[k];
+    return vl_redox_relative(redox_change(c, VL_POOL_SURFACE) - sum, &c->s->redox0,
+                             &c->s->redox1);
 }
 
 static double water(const ctx *c) { return c->d->surface_water_to; }
@@ -180,11 +210,27 @@ static const item items[] = {
      NULL, first_events},
     {"time_<regime>", "yr", REAL10, "time spent in each regime", NULL, regime_times},
     {"total_<flux>", "kg", REAL10,
-     "time integral of each process flux column <flux>_kg_s (trapezoid over accepted steps)",
+     "time integral of each process flux column <flux>_kg_s (trapezoid over accepted steps); for a redox column redox_<process>_kg_s, total_redox_<process> in kg O-eq, signed",
      NULL, channel_totals},
     {"residual_<element>", "relative", SCI3,
      "|final - initial| / initial inventory of the element over every reservoir, space included",
      NULL, residuals},
+    {"redox_surface_initial", REDOX_UNIT, REAL10,
+     "redox content of the air and ocean at the start, oxygen equivalents relative to H2O, CO2 and N2 (positive: free oxidant; docs/model.md section 1)",
+     redox_surface0, NULL},
+    {"redox_surface_final", REDOX_UNIT, REAL10, "the same at the end", redox_surface1, NULL},
+    {"redox_to_space", REDOX_UNIT, REAL10,
+     "oxidant the surface gained from escape: minus the change of the escaped reservoirs' content (hydrogen lost leaves oxidant behind, oxygen lost takes it)",
+     redox_to_space, NULL},
+    {"redox_to_rock", REDOX_UNIT, REAL10,
+     "oxidant taken up by crust, mantle and undelivered impactors: the change of their content",
+     redox_to_rock, NULL},
+    {"redox_residual", "relative", SCI3,
+     "|change of surface + space + rock content| / gross, gross = the sum over every reservoir of |its content| at the start plus at the end (the absolute change when gross is 0): exact from the states, round-off only",
+     redox_residual, NULL},
+    {"redox_attribution_residual", "relative", SCI3,
+     "|change of the surface's content - sum of the total_redox_<process> rows| / the same gross: the trapezoid quadrature error of the per-process attribution (not round-off)",
+     redox_attribution, NULL},
     {"reservoir_overshoot", "kg", REAL10,
      "deepest integrator overshoot of a reservoir below zero seen in a row", overshoot, NULL},
     {"rhs_evaluations", "count", COUNT, "right-hand-side evaluations, Jacobians included",
