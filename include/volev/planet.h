@@ -19,6 +19,7 @@ typedef struct vl_planet {
     int tectonics;             /* enum vl_tectonics */
     double run_start_s;        /* stellar age at the start of the run */
     double run_end_s;          /* stellar age at its end */
+    double initial_dh;         /* D/H atom ratio of the initial inventory */
 } vl_planet;
 
 /* The constants of sc. */

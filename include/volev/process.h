@@ -48,8 +48,10 @@ typedef struct vl_process {
     const vl_reaction *reactions;
     size_t nreactions;
     int default_enabled;
-    /* Optional: add to the initial state (kg) after the inventory, e.g. a pool that the
-     * process will draw from during the run. */
+    /* Optional: add to the initial state (kg) after the inventory (its deuterium
+     * included), e.g. a pool that the process will draw from during the run. A hook
+     * that adds to a hydrogen reservoir adds its deuterium too (vl_reservoir_deuterium_kg;
+     * pl->initial_dh is the inventory's D/H). */
     void (*initial)(const void *params, const vl_planet *pl, double *y);
     /* Optional: cross-check parameters against the scenario at load time. */
     int (*check)(const void *params, const vl_scenario *sc, vl_status *st);

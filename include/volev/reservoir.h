@@ -98,5 +98,8 @@ int vl_reservoir_deuterium(int r);
  * companion; NAN once r is below its depletion floor (an exhausted reservoir's ratio is
  * numerical noise: undefined). */
 double vl_reservoir_dh(const double *y, int r);
+/* Deuterium (kg) that goes with kg of reservoir r at D/H atom ratio dh: kg of its
+ * hydrogen x dh x m_D / m_H (0 for a reservoir without hydrogen). */
+double vl_reservoir_deuterium_kg(int r, double kg, double dh);
 
 #endif

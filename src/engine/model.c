@@ -225,14 +225,14 @@ void vl_model_initial_state(const vl_model *m, double y[VL_NSTATE])
     y[VL_R_MANTLE_N] = in->mantle_n2_pa * kg_per_pa;
     if (m->sc->interior.magma.molten_start)
         y[VL_S_MANTLE_TP] = m->sc->interior.magma.start_tp_k;
-    for (size_t i = 0; i < m->nproc; i++)
-        if (m->proc[i]->initial)
-            m->proc[i]->initial(m->params[i], &m->planet, y);
     /* deuterium at the initial D/H in every hydrogen reservoir: kg D = kg H x R m_D/m_H */
     for (int r = 0; r < VL_NRES; r++) {
         int d = vl_reservoir_deuterium(r);
         if (d >= 0)
-            y[d] = y[r] * vl_reservoir_element_fraction(r, VL_EL_H) * in->initial_dh *
-                   VL_AW_D / VL_AW_H;
+            y[d] = vl_reservoir_deuterium_kg(r, y[r], in->initial_dh);
     }
+    /* then what the processes add, with its own deuterium (process.h) */
+    for (size_t i = 0; i < m->nproc; i++)
+        if (m->proc[i]->initial)
+            m->proc[i]->initial(m->params[i], &m->planet, y);
 }

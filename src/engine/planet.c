@@ -18,4 +18,5 @@ void vl_planet_from_scenario(const vl_scenario *sc, vl_planet *pl)
     pl->tectonics = sc->interior.tectonics;
     pl->run_start_s = sc->run.start_s;
     pl->run_end_s = sc->run.end_s;
+    pl->initial_dh = sc->inventory.initial_dh;
 }

@@ -71,6 +71,11 @@ int vl_reservoir_deuterium(int r)
     }
 }
 
+double vl_reservoir_deuterium_kg(int r, double kg, double dh)
+{
+    return kg * vl_reservoir_element_fraction(r, VL_EL_H) * dh * VL_AW_D / VL_AW_H;
+}
+
 double vl_reservoir_dh(const double *y, int r)
 {
     int d = vl_reservoir_deuterium(r);

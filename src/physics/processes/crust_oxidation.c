@@ -16,11 +16,9 @@
 #include <math.h>
 #include <stddef.h>
 
+#include "oxidation.h"
 #include "volev/process.h"
 #include "volev/units.h"
-
-/* Molar mass of FeO, kg/mol: 55.845 + 15.999 g/mol (IUPAC 2021 standard atomic weights). */
-#define M_FEO 71.844e-3
 
 typedef struct {
     double production_m2_s; /* P0 */
@@ -102,11 +100,10 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
     const vl_env *env = v->env;
     const params *p = pv;
-    double po2 = env->p_pa[VL_GAS_O2] > 0.0 ? env->p_pa[VL_GAS_O2] : 0.0;
     double liquid = env->liquid > 0.0 ? env->liquid : 0.0;
-    double supply = production(p, v->planet, env) * p->depth_m * p->density * p->feo_fraction *
-                    p->oxidised_share / (4.0 * M_FEO);
-    double mol_s = supply * liquid * po2 / (po2 + p->p_half_pa);
+    double supply = production(p, v->planet, env) * p->depth_m * p->density *
+                    vl_oxidation_feo_o2(p->feo_fraction, p->oxidised_share);
+    double mol_s = supply * liquid * vl_oxidation_o2_share(env->p_pa[VL_GAS_O2], p->p_half_pa);
     vl_flux_transfer(fx, O2_TO_OX_ROCK, mol_s * vl_species_molar_mass(VL_SP_O2), 0);
 }
 

@@ -9,7 +9,8 @@
  * N2, O2, H2 by plain transfers to the space reservoirs. With delivery on, every impact
  * also brings fixed masses of water, CO2 and N2 drawn from the impactor_* reservoirs,
  * which the initial hook fills with the integral of N(t) x mass over the run, so the
- * element ledger stays closed. */
+ * element ledger stays closed; the delivered water's D/H is water_dh_ratio times the
+ * inventory's (chondrites near ocean water, comets up to a few times it). */
 #include <math.h>
 #include <stddef.h>
 
@@ -25,6 +26,7 @@ typedef struct {
     double water_kg;     /* water per impact */
     double co2_kg;       /* CO2 per impact */
     double n2_kg;        /* N2 per impact */
+    double water_dh_ratio; /* D/H of the delivered water over the inventory's */
 } params;
 
 #define PER_MYR (1.0 / (1e6 * VL_YR))
@@ -68,6 +70,12 @@ static const vl_param table[] = {
     R("n2_per_impact_kg", "kg", 1.0, 1.0e13, 0.0, 1e22, n2_kg,
       "nitrogen delivered by each impact, as N2",
       "100 ppm N of a 1e17 kg impactor, chondritic order of magnitude, from memory",
+      NEEDS_DELIVERY),
+    R("water_dh_ratio", "", 1.0, 1.0, 0.0, 100.0, water_dh_ratio,
+      "D/H of the delivered water over the inventory's (inventory.initial_dh)",
+      "1: carbonaceous chondrites near ocean water (VSMOW 1.5576e-4); Jupiter-family "
+      "comets 1-3.4x (103P 1.61e-4, Hartogh et al. 2011, Nature 478:218; 67P 5.3e-4, "
+      "Altwegg et al. 2015, Science 347:1261952); Oort-cloud comets ~2x, from memory",
       NEEDS_DELIVERY),
 };
 
@@ -170,7 +178,8 @@ static int check(const void *pv, const vl_scenario *sc, vl_status *st)
     return VL_OK;
 }
 
-/* Fill the impactor reservoirs with what the population delivers from run start to end. */
+/* Fill the impactor reservoirs with what the population delivers from run start to end,
+ * the water's deuterium at water_dh_ratio times the inventory's D/H. */
 static void initial(const void *pv, const vl_planet *pl, double *y)
 {
     const params *p = pv;
@@ -178,6 +187,8 @@ static void initial(const void *pv, const vl_planet *pl, double *y)
         return;
     double n = impacts_between(p, pl->run_start_s, pl->run_end_s);
     y[VL_R_IMPACT_WATER] += n * p->water_kg;
+    y[VL_R_D_IMPACT_WATER] += vl_reservoir_deuterium_kg(VL_R_IMPACT_WATER, n * p->water_kg,
+                                                        p->water_dh_ratio * pl->initial_dh);
     y[VL_R_IMPACT_CO2] += n * p->co2_kg;
     y[VL_R_IMPACT_N2] += n * p->n2_kg;
 }

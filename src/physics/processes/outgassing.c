@@ -10,7 +10,14 @@
  * the planet's mass (mantle volume, and so melt production at a given relative heat
  * flow, taken proportional to it: the per-unit-mass rule the reference scenarios use,
  * docs/cycles.md). CO2 returned at arcs from subducted carbonate is the
- * carbonate_recycling process (docs/cycles.md). */
+ * carbonate_recycling process (docs/cycles.md).
+ * Water: a fixed flux h2o_tmol_yr (water_source = fixed), or (water_source = mantle_melt)
+ * the water the melt carries out of the mantle,
+ *   W = s rho V_melt (x_m / F) f_deg,      x_m = M_mantle_water / (share M_p),
+ * with s the heat-flow scale above (mass scaling included), V_melt the reference melt
+ * production, F the degree of melting (water is incompatible: the melt holds x_m / F)
+ * and f_deg the share of the melt's water that escapes to the surface; the deuterium
+ * goes along at the mantle's D/H through the transfer. */
 #include <math.h>
 #include <stddef.h>
 
@@ -23,11 +30,21 @@ typedef struct {
     double stagnant_factor;                /* f_sl */
     double stagnant_exponent;              /* m_sl */
     int per_mass;                          /* scale V0 by M_p / M_earth */
+    int water_source;                      /* WATER_FIXED or WATER_MELT */
+    double melt_m3_s;                      /* V_melt at the reference age, per Earth mass */
+    double melt_density;                   /* rho, kg/m^3 */
+    double melt_fraction;                  /* F */
+    double degassed_share;                 /* f_deg */
+    double mantle_share;                   /* mantle mass over planet mass */
 } params;
+
+enum { WATER_FIXED, WATER_MELT };
 
 #define TMOL_YR (1e12 / VL_YR)
 #define MOBILE "planet.interior.tectonics=mobile_lid"
 #define STAGNANT "planet.interior.tectonics=stagnant_lid"
+#define MELT "processes.outgassing.water_source=mantle_melt"
+#define FIXED "processes.outgassing.water_source=fixed"
 #define R(k, unit, si, d, lo, hi, f, doc, ref, needs) \
     VL_PARAM_ROW(params, VL_PT_REAL, k, unit, si, d, lo, hi, f, doc, ref, needs)
 
@@ -43,7 +60,32 @@ static const vl_param table[] = {
       "N2 outgassing at the reference age", "order of the mantle N flux, from memory", NULL),
     R("h2o_tmol_yr", "Tmol/yr", TMOL_YR, 0.0, 0.0, 1e6, h2o_mol_s,
       "net (juvenile) H2O outgassing at the reference age",
-      "0: arc water is recycled; net mantle exchange arrives with the interior cycles", NULL),
+      "0: arc water is recycled; net mantle exchange arrives with the interior cycles", FIXED),
+    {"water_source", VL_PT_CHOICE, "", 1.0, WATER_FIXED, 0.0, 0.0, "fixed|mantle_melt", NULL,
+     offsetof(params, water_source),
+     "fixed: water at h2o_tmol_yr; mantle_melt: the melt carries the mantle's water, in "
+     "proportion to its concentration (the mantle_water reservoir)",
+     "fixed keeps the bundled scenarios' results; the melt law is common practice "
+     "(e.g. Cowan & Abbot 2014, ApJ 781:27, for ridges)", NULL, 0},
+    R("melt_km3_yr", "km^3/yr", 1e9 / VL_YR, 21.0, 0.0, 1e5, melt_m3_s,
+      "V_melt: magma produced per year at the reference age of the heat flow (per Earth "
+      "mass when scale_by_planet_mass)",
+      "new oceanic crust ~3 km^2/yr x ~7 km = ~21 km^3/yr; Crisp 1984, JVGR 20:177: ~21 "
+      "km^3/yr at ridges of 26-34 km^3/yr in all, from memory", MELT),
+    R("melt_density_kg_m3", "kg/m^3", 1.0, 2900.0, 1000.0, 6000.0, melt_density,
+      "rho: density of the magma produced (as rock)", "basalt 2.9 g/cm^3, common practice",
+      MELT),
+    R("melt_fraction", "", 1.0, 0.1, 1e-3, 1.0, melt_fraction,
+      "F: mean degree of melting of the source; the melt holds the source's water / F",
+      "mid-ocean-ridge basalt ~8-10 % melting (Klein & Langmuir 1987, JGR 92:8089), from "
+      "memory; water is about as incompatible as Ce (Michael 1995, EPSL 131:301), from memory",
+      MELT),
+    R("water_degassed_share", "", 1.0, 0.9, 0.0, 1.0, degassed_share,
+      "f_deg: share of the melt's water that reaches the surface",
+      "Cowan & Abbot 2014, ApJ 781:27, nominal degassing fraction 0.9, from memory", MELT),
+    R("mantle_mass_share", "", 1.0, 0.67, 0.01, 1.0, mantle_share,
+      "mantle mass over planet mass (sets x_m = mantle water / mantle mass)",
+      "Earth's mantle 4.0e24 kg (from memory) over 5.9722e24 kg [C]", MELT),
     R("heat_flow_exponent", "", 1.0, 1.0, 0.0, 3.0, exponent,
       "m in V ~ (Q/Q0)^m (mobile lid)", "Lehmer et al. 2020: m = 1-2", MOBILE),
     R("stagnant_lid_factor", "", 1.0, 0.1, 0.0, 1.0, stagnant_factor,
@@ -86,6 +128,15 @@ static double heat_scale(const params *p, const vl_planet *pl, const vl_env *env
     return pow(q, p->exponent);
 }
 
+/* Water degassed by the melt, kg/s, at heat scale s (mass scaling included). */
+static double melt_water(const params *p, const vl_planet *pl, const double *y, double s)
+{
+    double x_m = (y[VL_R_MANTLE_WATER] > 0.0 ? y[VL_R_MANTLE_WATER] : 0.0) /
+                 (p->mantle_share * pl->mass_kg);
+    return s * p->melt_m3_s * p->melt_density * (x_m / p->melt_fraction) * p->degassed_share;
+}
+
+/* Mantle-derived CO2, N2 and water at the heat-flow scale of the tectonic mode. */
 static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
     const vl_env *env = v->env;
@@ -96,8 +147,10 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
         s *= pl->mass_kg / VL_M_EARTH;
     vl_flux_transfer(fx, MANTLE_C_TO_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);
     vl_flux_transfer(fx, MANTLE_N_TO_N2, s * p->n2_mol_s * vl_species_molar_mass(VL_SP_N2), 1);
-    vl_flux_transfer(fx, MANTLE_WATER_TO_WATER,
-                 s * p->h2o_mol_s * vl_species_molar_mass(VL_SP_H2O), 2);
+    double water = p->water_source == WATER_MELT
+                       ? melt_water(p, pl, v->y, s)
+                       : s * p->h2o_mol_s * vl_species_molar_mass(VL_SP_H2O);
+    vl_flux_transfer(fx, MANTLE_WATER_TO_WATER, water, 2);
 }
 
 const vl_process vl_process_outgassing = {
