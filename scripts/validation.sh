@@ -34,7 +34,8 @@ row() { # planet dir
     pc=$(last "$d" p_co2_bar)
     pn=$(last "$d" p_n2_bar)
     po=$(last "$d" p_o2_bar)
-    printf '%s|%s|%s|%s|%s|%s|%s|%s|%s\n' \
+    ph=$(last "$d" p_h2_bar)
+    printf '%s|%s|%s|%s|%s|%s|%s|%s|%s|%s|%s|%s\n' \
         "$(fmt "$ps" '%.3g bar')" \
         "$(awk -v c="$pc" -v n="$pn" -v o="$po" -v s="$ps" 'BEGIN { printf "CO2 %.3g %%, N2 %.3g %%, O2 %.2g %%", 100*c/s, 100*n/s, 100*o/s }')" \
         "$(fmt "$(sum "$d" final_surface_water_to TO)" '%.3g TO')" \
@@ -43,7 +44,10 @@ row() { # planet dir
         "$(fmt "$(last "$d" h_escape_kg_s)" '%.2g kg/s')" \
         "$(fmt "$(last "$d" o_escape_kg_s)" '%.2g kg/s')" \
         "$(fmt "$(sum "$d" final_co2_mole_fraction)" '%.3g ppmv')" \
-        "$(last "$d" regime)"
+        "$(last "$d" regime)" \
+        "$(awk -v h="$ph" -v s="$ps" 'BEGIN { printf "%.2g ppmv", 1e6*h/s }')" \
+        "$(fmt "$po" '%.3g bar')" \
+        "$(awk -v a="$(sum "$d" redox_to_space)" -v b="$(sum "$d" redox_to_rock)" -v r="$(sum "$d" redox_residual)" 'BEGIN { printf "%.3g / %.3g kg (residual %.1g)", a, b, r }')"
 }
 
 venus=$(row venus)
@@ -80,40 +84,64 @@ printf '| H escape today | %s | H+ 7.1e24 s^-1 = 0.012 kg/s (Fedorov et al. 2011
 printf '| O escape today | %s | O+ 2.7e24 s^-1 = 0.072 kg/s (Fedorov et al. 2011) | %s | polar O+ net ~1e25 s^-1 = 0.27 kg/s (Seki et al. 2001) | %s | (in the H + O total) |\n' "$(col "$venus" 7)" "$(col "$earth" 7)" "$(col "$mars" 7)"
 printf '| CO2 mole fraction | %s | 96.5 %% | %s | 280 ppmv pre-industrial | %s | ~95 %% |\n' "$(col "$venus" 8)" "$(col "$earth" 8)" "$(col "$mars" 8)"
 printf '| regime at the end | %s | dry | %s | temperate | %s | frozen, dry-ish |\n' "$(col "$venus" 9)" "$(col "$earth" 9)" "$(col "$mars" 9)"
+printf '| H2 mole fraction | %s | (not measured near the surface) | %s | 0.53 ppmv (Novelli et al. 1999; biological and industrial sources) | %s | 15 ppmv (Krasnopolsky & Feldman 2001) [C] |\n' "$(col "$venus" 10)" "$(col "$earth" 10)" "$(col "$mars" 10)"
+printf '| O2 | %s | < 1 ppmv above the clouds (from memory) | %s | 0.21 bar (biological) | %s | 0.13 %% = 8e-6 bar (Owen et al. 1977, from memory) |\n' "$(col "$venus" 11)" "$(col "$earth" 11)" "$(col "$mars" 11)"
+printf '| oxidant gained from escape / taken by rock (kg O-equivalent; redox ledger) | %s | | %s | | %s | |\n' "$(col "$venus" 12)" "$(col "$earth" 12)" "$(col "$mars" 12)"
 printf '\n(regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway)\n\n'
 cat <<'TAIL'
 ## Discussion of the misses
 
 The climate is the non-grey column of docs/model.md section 3, calibrated once (steam
-limit, present Earth, maximum CO2 greenhouse, cold trap); nothing here was fitted.
+limit, present Earth, maximum CO2 greenhouse, cold trap); the redox processes are on
+with their defaults (docs/model.md section 4: supply-limited O2 sinks, volcanic
+reductants, photochemical H2, no first-order O2 sink); the one redox calibration is
+photochemical_h2's deposited share, set on present Mars's 15 ppmv of H2 (the [C] row).
+Nothing here was fitted.
 
 - **Venus** loses its ocean in a runaway (its surface near 2300 K while the whole
   ocean fills the air, cooling as the water escapes) that lasts until the water is
   gone, about 0.5 Gyr after the start, and keeps its CO2 in the air: the divergence
-  is reproduced, and its surface pressure, from the
-  shared carbon inventory plus stagnant-lid outgassing, is close to the measured
-  92 bar. Its surface comes out about 90 K too cold. Two causes, both visible in the
-  model: the computed Bond albedo (Rayleigh scattering of 90 bar of CO2 plus the
-  Earth-like cloud layer) is 0.64, not the measured 0.76 of Venus's sulphuric-acid
-  clouds, which alone would make it hotter; but with the shared N2 rule (under 1 bar
-  instead of ~3) and no water vapour left (Venus keeps ~30 ppmv) the near-infrared
-  windows between the CO2 bands let the hot surface cool too well. With the measured
-  albedo, 3.3 bar of N2 and 30 ppmv of water the same column gives about 700 K
-  (tests/test_column_climate.c). Its N2 follows the shared Earth-scaled rule and is
-  several times too small: the shared inventory does not explain Venus's nitrogen. Its
-  D/H comes out near 190 times the start, close to the ~120 ± 40 measured, now that
-  diffusion-limited escape fractionates through H2/HD carriers (factor ~0.8; docs/model.md
-  section 5a) — but it is the D/H of a vanishing residual (the last 1e-140 TO of water,
-  distilled by fractionating escape), so the agreement says little: the enrichment
-  measured today is thought to be a steady state between late, strongly fractionating
-  non-thermal loss and a small supply of water (outgassing, comets; Grinspoon 1993),
-  which the default scenario does not have (juvenile water outgassing is 0; issue 16).
+  from Earth is reproduced. But it keeps the oxygen of that ocean, nearly 200 bar of
+  O2, against almost none measured: the largest miss. The supply-limited sinks take
+  under 1 % of it (the ledger row: 8e18 of 8.7e20 kg): the crust is oxidised only
+  under an ocean, erosion needs running water, the reduced volcanic gases need water
+  to carry them, and oxygen escape under the young Sun's XUV is small. That an
+  Earth-like ocean's oxygen cannot be removed this way is also the conclusion of Warren
+  & Kite (2023, PNAS 120:e2209751120, from memory), who allow an early Venus at most a
+  few hundred metres of water on these grounds; the shared rule gives Venus 2.7 km.
+  What the model lacks for it: the re-melting of a surface held above the solidus by a
+  steam atmosphere (Hamano et al. 2013), whose magma would take up the oxygen
+  (magma_oxidation). Started molten (`planet.interior.magma_ocean.molten_start =
+  true`) the same Venus keeps about 30 bar of O2 instead. Its CO2 partial pressure,
+  from the shared carbon inventory plus stagnant-lid outgassing, is near the measured
+  92 bar. Its surface comes out about 80 K too cold: the computed Bond albedo
+  (Rayleigh scattering plus the Earth-like cloud layer) is 0.64, not the measured
+  0.76 of Venus's sulphuric-acid clouds, which alone would make it hotter; but with
+  the shared N2 rule (under 1 bar instead of ~3) and no water vapour left (Venus
+  keeps ~30 ppmv) the near-infrared windows let the hot surface cool too well; with
+  the measured albedo, 3.3 bar of N2 and 30 ppmv of water the same column gives about
+  700 K (tests/test_column_climate.c). Its N2 follows the shared Earth-scaled rule and
+  is several times too small. Its D/H comes out near 140 times the start, within the
+  ~120 ± 40 measured, but it is the D/H of a vanishing residual (the last traces of
+  water, distilled by fractionating escape), so the agreement says little. With a late
+  water supply (`processes.outgassing.water_source = "mantle_melt"` with mantle water,
+  or cometary delivery with `processes.impacts.water_dh_ratio`, docs/cycles.md) the
+  water settles where supply and escape balance, at the supply's D/H over the escape's
+  fractionation factor: 2–5 times the start in the runs tried, because the model's late
+  Venus loses its hydrogen by weakly fractionating diffusion-limited escape (f ≈ 0.8);
+  the measured enrichment in steady state needs f of a few hundredths (the
+  non-thermal, strongly fractionating loss Grinspoon 1993 invokes), which the model's
+  Venus does not reach. The same runs keep far more water than Venus's ~30 ppmv.
 - **Earth** keeps its ocean, draws the starting 63 bar of CO2 into carbonates within
   ~0.1 Gyr and ends temperate near 288 K with a few hundred ppmv of CO2 — largely by
   construction: the climate is calibrated to present Earth and the weathering
-  reference to today's outgassing. Its hydrogen escape today, set by the cold trap the
-  column computes, is within a factor of two of the ~3 kg/s of Catling & Zahnle (2009).
-  Its background is all "N2" (the whole present dry air), so its composition misses O2
+  reference to today's outgassing. It is a lifeless Earth: no biological O2 burns its
+  volcanic H2, so ~100 ppmv of H2 builds up and its hydrogen escape today is ~40 kg/s,
+  balancing the volcanic reductants as on any anoxic planet (Catling & Kasting 2017),
+  and it loses ~8 % of its ocean over 4.5 Gyr. The same processes in present air
+  (today's 21 % O2 given, tests/test_photochem_h2.c) predict 3.5 kg/s of hydrogen escape
+  against ~3 kg/s (Catling & Zahnle 2009) and 1.1 ppmv of H2 against 0.53. Its
+  background is all "N2" (the whole present dry air), so its composition misses O2
   (biological, not modelled).
 - **Mars** ends frozen with about 2 bar of CO2, hundreds of times the measured 6 mbar.
   With the non-grey column no amount of CO2 warms the young Mars above freezing (the
@@ -128,11 +156,18 @@ limit, present Earth, maximum CO2 greenhouse, cold trap); nothing here was fitte
   formation under a cold climate, and impact erosion (off by default). The shared
   inventory rule also starts Mars with 9 bar, more than most published estimates of its
   early atmosphere. Nitrogen escape (a present rate applied without any dependence on
-  the N2 abundance) removes all N2, while Mars keeps ~2.7 %. Mars keeps almost all of
-  its starting 0.1 TO of water as ice (measured: a few thousandths of a TO in the polar
-  caps and the shallow subsurface): with a cold trap and little H2 its thermal
-  hydrogen escape is small, so its D/H stays near the start instead of ~6x.
-  Under the grey column of the previous version Mars was instead warmed falsely by its
+  the N2 abundance) removes all N2, while Mars keeps ~2.7 %. Its photochemical H2
+  (36 ppmv today in this thick, warmer air; 15 ppmv in present Mars's own air, the
+  calibration) carries hydrogen past the cold trap, and its hydrogen escape today,
+  2.2 kg/s, is of the measured order. But its D/H stays at the start instead of ~6x:
+  the shared rule gives Mars 0.1 TO of water, about a kilometre over the planet, of
+  which escape at these rates removes about 1 % in 4.5 Gyr, whereas a five-fold
+  enrichment with the escape's fractionation (~0.4) needs over 90 % of the
+  exchangeable water lost (Rayleigh). What the model lacks for it: the sequestration
+  of most of Mars's water in its crust (hydrated minerals; Scheller et al. 2021,
+  Science 372:56, from memory) and below the surface, which leaves a small
+  exchangeable reservoir — the polar caps, ~20 m — to be distilled.
+  Under the grey column of an earlier version Mars was instead warmed falsely by its
   CO2 and weathered it away early, ending near 0.05 bar: a closer number for a wrong
   reason.
 

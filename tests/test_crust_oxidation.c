@@ -214,13 +214,13 @@ START_TEST(scales_with_area)
 }
 END_TEST
 
-/* A new process must not change existing runs: off unless the scenario switches it on. */
-START_TEST(off_by_default)
+/* A supply-limited sink of the issue: on by default (docs/model.md section 4). */
+START_TEST(on_by_default)
 {
     vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
     int k = vl_process_find(NAME);
     ck_assert_int_ge(k, 0);
-    ck_assert_int_eq(sc->proc[k].enabled, 0);
+    ck_assert_int_eq(sc->proc[k].enabled, 1);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -235,7 +235,7 @@ Suite *vl_suite_crust_oxidation(void)
     tcase_add_test(t, no_oxygen_no_ocean);
     tcase_add_test(t, stagnant_lid);
     tcase_add_test(t, scales_with_area);
-    tcase_add_test(t, off_by_default);
+    tcase_add_test(t, on_by_default);
     suite_add_tcase(s, t);
     return s;
 }

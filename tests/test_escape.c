@@ -163,8 +163,12 @@ END_TEST
 
 START_TEST(photolysis_follows_escape)
 {
+    /* the water's other redox processes off: photolysis alone turns water into escaping
+     * hydrogen and O2 */
+    static const char *const sets[] = {"processes.photochemical_h2.enabled=false",
+                                       "processes.volcanic_reductants.enabled=false"};
     fixture f;
-    setup_earth(&f, NULL, 0);
+    setup_earth(&f, sets, 2);
     double dydt[VL_NSTATE];
     vl_env env;
     vl_model_rhs(f.m, vl_test_work(f.m), 4.57e9 * VL_YR, f.y, VL_REGIME_TEMPERATE, dydt, NULL, &env);

@@ -77,6 +77,35 @@ START_TEST(present_earth_h2_and_escape)
 }
 END_TEST
 
+START_TEST(deposition_and_supply)
+{
+    /* the design's switches (docs/model.md section 4): oxidant deposited only on a
+     * frozen or dry surface, none over an ocean or under a greenhouse; no H2 without
+     * water vapour (no reaction runs without its reactant, common practice) */
+    vl_scenario *sc = vl_test_scenario("tests/data/mars_today.cfg", mars_sets, 4);
+    vl_model *m = vl_test_model(sc);
+    double y[VL_NSTATE] = {0}, dydt[VL_NSTATE], cols[2];
+    y[VL_R_WATER] = 2.1e-3 * VL_TO_KG;
+    y[VL_R_CO2] = 2.5e16;
+    vl_env env;
+    vl_model_env(m, vl_test_work(m), 4.57e9 * VL_YR, y, VL_REGIME_FROZEN, &env);
+    ck_assert(env.x[VL_GAS_H2O] > 0.0);
+    static const int regimes[] = {VL_REGIME_FROZEN, VL_REGIME_DRY, VL_REGIME_TEMPERATE,
+                                  VL_REGIME_MOIST, VL_REGIME_RUNAWAY};
+    for (int k = 0; k < 5; k++) {
+        env.regime = regimes[k];
+        vl_test_process_rates(m, "photochemical_h2", y, &env, dydt, cols);
+        ck_assert(cols[0] > 0.0 && dydt[VL_R_H2] > 0.0);
+        ck_assert_msg((cols[1] > 0.0) == (k < 2), "regime %d deposits %g", regimes[k], cols[1]);
+    }
+    env.x[VL_GAS_H2O] = 0.0;
+    vl_test_process_rates(m, "photochemical_h2", y, &env, dydt, cols);
+    ck_assert(cols[0] == 0.0 && dydt[VL_R_WATER] == 0.0);
+    vl_test_model_free(m);
+    vl_scenario_free(sc);
+}
+END_TEST
+
 Suite *vl_suite_photochem_h2(void)
 {
     Suite *s = suite_create("photochem_h2");
@@ -85,6 +114,7 @@ Suite *vl_suite_photochem_h2(void)
     tcase_add_test(tc, present_mars_h2);
     tcase_add_test(tc, present_mars_fractionation);
     tcase_add_test(tc, present_earth_h2_and_escape);
+    tcase_add_test(tc, deposition_and_supply);
     suite_add_tcase(s, tc);
     return s;
 }

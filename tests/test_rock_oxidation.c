@@ -33,11 +33,13 @@ static vl_model *model_with(const char *const *sets, size_t n, vl_scenario **sc)
     return vl_test_model(*sc);
 }
 
-/* Present Earth's environment: present heat flow and O2, temperate. */
+/* Present Earth's environment: present heat flow and O2, temperate, an ice-free ocean
+ * (runoff everywhere on land). */
 static void earth_env(const vl_model *m, const double *y, vl_env *env)
 {
     vl_model_env(m, vl_test_work(m), T_NOW, y, VL_REGIME_TEMPERATE, env);
     env->heat_flow_rel = 1.0;
+    env->liquid = 1.0;
     env->p_pa[VL_GAS_O2] = P_O2_NOW;
 }
 
@@ -138,7 +140,7 @@ START_TEST(scales_with_land)
 }
 END_TEST
 
-/* Nothing in a magma ocean (no solid land); uplift follows the heat flow and the lid. */
+/* Nothing in a magma ocean (no solid land) or without liquid water; uplift follows the heat flow and the lid. */
 START_TEST(magma_and_tectonics)
 {
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
@@ -159,6 +161,16 @@ START_TEST(magma_and_tectonics)
     ck_assert_rel(uptake(mb, y, &env, dydt) / mobile, 0.1, 1e-12);
     env.regime = VL_REGIME_MAGMA;
     ck_assert_double_eq(uptake(ma, y, &env, dydt), 0.0);
+    /* no running water, no erosion (common practice): nothing on a frozen planet, half
+     * with half the ocean ice-free */
+    env.regime = VL_REGIME_FROZEN;
+    env.liquid = 0.0;
+    ck_assert_double_eq(uptake(ma, y, &env, dydt), 0.0);
+    env.regime = VL_REGIME_TEMPERATE;
+    env.liquid = 1.0;
+    double open = uptake(ma, y, &env, dydt);
+    env.liquid = 0.5;
+    ck_assert_rel(uptake(ma, y, &env, dydt) / open, 0.5, 1e-12);
     vl_test_model_free(ma);
     vl_test_model_free(mb);
     vl_scenario_free(sa);
@@ -166,13 +178,16 @@ START_TEST(magma_and_tectonics)
 }
 END_TEST
 
-/* A new process must not change existing runs: off unless the scenario switches it on. */
-START_TEST(off_by_default)
+/* The issue's supply-limited sinks are on by default and the first-order oxygen_sink off
+ * (docs/model.md section 4). */
+START_TEST(on_by_default)
 {
     vl_scenario *sc = vl_test_scenario(NULL, NULL, 0);
-    int k = vl_process_find(NAME);
+    int k = vl_process_find(NAME), first_order = vl_process_find("oxygen_sink");
     ck_assert_int_ge(k, 0);
-    ck_assert_int_eq(sc->proc[k].enabled, 0);
+    ck_assert_int_ge(first_order, 0);
+    ck_assert_int_eq(sc->proc[k].enabled, 1);
+    ck_assert_int_eq(sc->proc[first_order].enabled, 0);
     vl_scenario_free(sc);
 }
 END_TEST
@@ -185,7 +200,7 @@ Suite *vl_suite_rock_oxidation(void)
     tcase_add_test(t, oxygen_limited);
     tcase_add_test(t, scales_with_land);
     tcase_add_test(t, magma_and_tectonics);
-    tcase_add_test(t, off_by_default);
+    tcase_add_test(t, on_by_default);
     suite_add_tcase(s, t);
     return s;
 }

@@ -23,7 +23,7 @@
 #include "volev/water.h"
 
 #define T_MIN 150.0
-#define OVERLAP_K 5.0 /* half-width of the cold/warm branch overlap, K */
+#define OVERLAP_K 5.0 /* half-width of the overlap of neighbouring branches, K */
 #define T_MAX 3000.0
 #define WINDOW 6  /* cells searched around the last root before a whole-range scan */
 #define STRIDE 6  /* grid points between the samples of a whole-range scan */
@@ -226,11 +226,17 @@ double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl
 /* Temperature range of branch br. */
 static void branch_range(const vl_balance *b, int br, double split_k, double *lo, double *hi)
 {
-    /* the cold and warm branches overlap by 2 OVERLAP_K around the split, so that a root
-     * that moves across it keeps its regime until it is clear of the other side
-     * (hysteresis: no chattering of freeze and thaw events around the split) */
-    *lo = br == VL_BRANCH_WARM ? split_k - OVERLAP_K : br == VL_BRANCH_HOT ? b->t_hot : b->t_floor;
-    *hi = br == VL_BRANCH_COLD ? split_k + OVERLAP_K : br == VL_BRANCH_WARM ? b->t_hot : T_MAX;
+    /* neighbouring branches overlap by 2 OVERLAP_K around their boundary (the cold and
+     * warm ones around the split, the warm and hot ones around the steam point), so that
+     * a root that moves across it keeps its regime until it is clear of the other side
+     * (hysteresis: no chattering of freeze and thaw, or of runaway onset and end, where
+     * an equilibrium sits on the boundary) */
+    *lo = br == VL_BRANCH_WARM  ? split_k - OVERLAP_K
+          : br == VL_BRANCH_HOT ? b->t_hot - OVERLAP_K
+                                : b->t_floor;
+    *hi = br == VL_BRANCH_COLD   ? split_k + OVERLAP_K
+          : br == VL_BRANCH_WARM ? b->t_hot + OVERLAP_K
+                                 : T_MAX;
     *lo = fmax(*lo, b->t_floor);
     if (*hi < *lo)
         *hi = *lo;

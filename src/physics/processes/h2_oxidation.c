@@ -1,8 +1,13 @@
 /* h2_oxidation.c: hydrogen oxidised back to water by the air's oxygen,
  *   2 H2 + O2 -> 2 H2O,
- * photochemically (through OH) at the rate n_H2 / tau, limited by the scarcer of the two
- * in their 2:1 proportion: rate = (n_H2 / tau) n_O2 / (n_O2 + n_H2 / 2). In an oxygen-rich
- * air H2 lives about tau; in an anoxic one it accumulates until escape removes it
+ * photochemically, limited by the scarcer of the two: where O2 is in excess H2 lives tau_H
+ * (its oxidation by OH), where H2 is in excess O2 lives tau_O (its reactions with H, CO
+ * and the other reduced radicals of an anoxic air), and the two limits are joined
+ * harmonically,
+ *   a = n_H2 / tau_H,  b = 2 n_O2 / tau_O,  rate = a b / (a + b)   mol H2/s
+ * (with tau_O = tau_H this is (n_H2/tau_H) n_O2 / (n_O2 + n_H2/2)). In an oxygen-rich
+ * air H2 lives about tau_H; in an anoxic one O2 lives about tau_O and H2 accumulates
+ * until escape removes it
  * (Kasting 1993, Science 259:920; Catling & Kasting 2017). With volcanic_reductants this
  * is the supply-limited volcanic sink of abiotic O2 (docs/model.md section 4). */
 #include <stddef.h>
@@ -11,7 +16,8 @@
 #include "volev/units.h"
 
 typedef struct {
-    double lifetime_s; /* tau */
+    double lifetime_s; /* tau_H */
+    double o2_lifetime_s; /* tau_O */
 } params;
 
 static const vl_param table[] = {
@@ -20,6 +26,11 @@ static const vl_param table[] = {
      "e-folding time of atmospheric H2 against oxidation where O2 is in excess",
      "abiotic (OH) lifetime of H2 in present air ~10 yr: Novelli et al. 1999, JGR 104:30427 "
      "give ~2 yr in all, a quarter of the loss to OH (from memory)", NULL, 0},
+    {"o2_lifetime_yr", VL_PT_REAL, "yr", VL_YR, 0.1, 1e-6, 1e9, NULL, NULL,
+     offsetof(params, o2_lifetime_s),
+     "e-folding time of atmospheric O2 against reduction where H2 is in excess",
+     "from memory: photochemical O2 in an anoxic air lives days to months (Kasting 1993, "
+     "Science 259:920; Kasting & Catling 2003, ARA&A 41:429)", NULL, 0},
 };
 
 static const vl_flux_column columns[] = {
@@ -38,7 +49,8 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
     double n_o2 = v->y[VL_R_O2] / vl_species_molar_mass(VL_SP_O2);
     if (!(n_h2 > 0.0) || !(n_o2 > 0.0))
         return;
-    double h2_s = n_h2 / p->lifetime_s * n_o2 / (n_o2 + 0.5 * n_h2); /* mol H2/s */
+    double a = n_h2 / p->lifetime_s, b = 2.0 * n_o2 / p->o2_lifetime_s;
+    double h2_s = a * b / (a + b); /* mol H2/s */
     vl_flux_react(fx, OXIDISE, 0.5 * h2_s, 0);
 }
 

@@ -9,8 +9,9 @@
  * with E the mass of rock eroded per second, Q/Q0 = env->heat_flow_rel, w_FeO the FeO
  * mass fraction of the exposed rock, s_ox the share of it oxidised on weathering, w_S
  * its sulfide sulfur and p_half the O2 pressure that halves the uptake. E0 is for a
- * planet of Earth's surface area; by default it scales with the planet's area. Nothing
- * in the magma-ocean regime (no solid land). The oxygen goes to oxidised_rock (the
+ * planet of Earth's surface area; by default it scales with the planet's area. Erosion
+ * needs running water: E is scaled by the ice-free share of the ocean (env->liquid, 0 on a
+ * frozen, dry or runaway planet and in the magma-ocean regime). The oxygen goes to oxidised_rock (the
  * sulfate's oxygen included: the model has no sulfate reservoir). Equations and
  * references: docs/model.md section 4. */
 #include <math.h>
@@ -98,16 +99,17 @@ static double erosion(const params *p, const vl_planet *pl, const vl_env *env)
     return e;
 }
 
-/* Moves F (mol O2/s, as kg/s) from atmospheric O2 into oxidised rock; none in a magma ocean. */
+/* Moves F (mol O2/s, as kg/s) from atmospheric O2 into oxidised rock; none without liquid
+ * water (no runoff, no erosion) or in a magma ocean. */
 static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
     const vl_env *env = v->env;
     const params *p = pv;
-    if (env->regime == VL_REGIME_MAGMA)
+    if (env->regime == VL_REGIME_MAGMA || !(env->liquid > 0.0))
         return;
     double per_kg = vl_oxidation_feo_o2(p->feo_fraction, p->oxidised_share) +
                     vl_oxidation_sulfide_o2(p->sulfide_s);
-    double mol_s = erosion(p, v->planet, env) * per_kg *
+    double mol_s = erosion(p, v->planet, env) * env->liquid * per_kg *
                    vl_oxidation_o2_share(env->p_pa[VL_GAS_O2], p->p_half_pa);
     vl_flux_transfer(fx, O2_TO_OX_ROCK, mol_s * vl_species_molar_mass(VL_SP_O2), 0);
 }
@@ -119,6 +121,6 @@ const vl_process vl_process_rock_oxidation = {
     .refs = "Milliman & Syvitski 1992; Rudnick & Gao 2003; Daines, Mills & Lenton 2017",
     VL_PROCESS_TABLES(table, params, columns),
     VL_PROCESS_TRANSFERS(transfers),
-    .default_enabled = 0,
+    .default_enabled = 1,
     .rates = rates,
 };
