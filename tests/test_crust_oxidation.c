@@ -1,64 +1,24 @@
 /* test_crust_oxidation.c: the supply-limited O2 sink of fresh oceanic crust altered by
  * seawater (docs/model.md section 4): the present-Earth rate against the published
  * magnitude, the heat-flow and tectonic scaling, the O2 limitation, no uptake without
- * O2 or an open ocean, per-area scaling, off by default. */
+ * O2 or an open ocean, per-area scaling, on by default. */
 #include <string.h>
 
+#include "o2_sink_support.h"
 #include "suites.h"
 #include "volev/model.h"
 #include "volev/units.h"
 
-#define T_NOW (4.57e9 * VL_YR)
 #define NAME "crust_oxidation"
-/* present Earth's O2: mole fraction 0.2095 x 1.01325 bar (common practice) */
-#define P_O2_NOW (0.2095 * 101325.0)
-
-/* Present Earth: one ocean, N2 3.887e18 kg and O2 1.2e18 kg (common practice). */
-static void earth_state(double y[VL_NSTATE])
-{
-    memset(y, 0, VL_NSTATE * sizeof y[0]);
-    y[VL_R_WATER] = VL_TO_KG;
-    y[VL_R_N2] = 3.887e18;
-    y[VL_R_O2] = 1.2e18;
-}
-
-/* The model of the default scenario with the overrides sets[0..n), the process on. */
-static vl_model *model_with(const char *const *sets, size_t n, vl_scenario **sc)
-{
-    const char *all[8] = {"processes." NAME ".enabled=true"};
-    ck_assert(n < 8);
-    for (size_t i = 0; i < n; i++)
-        all[i + 1] = sets[i];
-    *sc = vl_test_scenario(NULL, all, n + 1);
-    return vl_test_model(*sc);
-}
-
-/* Present Earth's environment: present heat flow and O2, an ice-free ocean. */
-static void earth_env(const vl_model *m, const double *y, vl_env *env)
-{
-    vl_model_env(m, vl_test_work(m), T_NOW, y, VL_REGIME_TEMPERATE, env);
-    env->heat_flow_rel = 1.0;
-    env->p_pa[VL_GAS_O2] = P_O2_NOW;
-    env->liquid = 1.0;
-}
-
-/* The process's O2 uptake alone at (y, env), mol O2 per year; its tendencies in dydt. */
-static double uptake(const vl_model *m, const double *y, const vl_env *env, double *dydt)
-{
-    double cols[1];
-    vl_test_process_rates(m, NAME, y, env, dydt, cols);
-    return cols[0] / vl_species_molar_mass(VL_SP_O2) * VL_YR;
-}
-
 START_TEST(present_earth)
 {
     vl_scenario *sc;
-    vl_model *m = model_with(NULL, 0, &sc);
+    vl_model *m = vl_o2_model(NAME, NULL, 0, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(m, y, &env);
-    double f = uptake(m, y, &env, dydt);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(m, y, &env);
+    double f = vl_o2_uptake(m, NAME, y, &env, dydt);
     /* [C] from the defaults: 3.4e6 m^2/yr x 500 m x 2900 kg/m^3 x 0.10 FeO x 0.3 oxidised
      * = 1.479e11 kg FeO/yr; / 71.844 g/mol = 2.0586e12 mol FeO/yr; / 4 = 5.1466e11 mol
      * O2/yr of supply; x pO2/(pO2 + p_half) = 21227.6/(21227.6 + 2100) = 0.90998
@@ -80,25 +40,25 @@ START_TEST(heat_flow_scaling)
 {
     const char *sq[] = {"processes." NAME ".heat_flow_exponent=2"};
     vl_scenario *sa, *sb;
-    vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(sq, 1, &sb);
+    vl_model *ma = vl_o2_model(NAME, NULL, 0, &sa), *mb = vl_o2_model(NAME, sq, 1, &sb);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(ma, y, &env);
-    double f1 = uptake(ma, y, &env, dydt), g1 = uptake(mb, y, &env, dydt);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(ma, y, &env);
+    double f1 = vl_o2_uptake(ma, NAME, y, &env, dydt), g1 = vl_o2_uptake(mb, NAME, y, &env, dydt);
     ck_assert(f1 > 0.0);
     /* at the reference heat flow the exponent does not matter (P = P0) [C] */
     ck_assert_rel(g1, f1, 1e-12);
     env.heat_flow_rel = 2.385;
     /* default m = 1: production proportional to the heat flow, as seafloor_weathering's
      * spreading (from memory) [C] */
-    ck_assert_rel(uptake(ma, y, &env, dydt) / f1, 2.385, 1e-12);
+    ck_assert_rel(vl_o2_uptake(ma, NAME, y, &env, dydt) / f1, 2.385, 1e-12);
     /* m = 2: half-space cooling, Q ~ sqrt(plate creation rate) (Turcotte & Schubert 2002,
      * from memory): 2.385^2 = 5.688 [C] */
-    ck_assert_rel(uptake(mb, y, &env, dydt) / f1, 5.688225, 1e-9);
+    ck_assert_rel(vl_o2_uptake(mb, NAME, y, &env, dydt) / f1, 5.688225, 1e-9);
     /* a dead interior makes no crust */
     env.heat_flow_rel = 0.0;
-    ck_assert_double_eq(uptake(ma, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(ma, NAME, y, &env, dydt), 0.0);
     vl_test_model_free(ma);
     vl_test_model_free(mb);
     vl_scenario_free(sa);
@@ -109,25 +69,25 @@ END_TEST
 START_TEST(oxygen_limited)
 {
     vl_scenario *sc;
-    vl_model *m = model_with(NULL, 0, &sc);
+    vl_model *m = vl_o2_model(NAME, NULL, 0, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(m, y, &env);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(m, y, &env);
     /* ample O2 (1e6 p_half): the crust's supply, to 1e-6 [C] */
     env.p_pa[VL_GAS_O2] = 0.021 * VL_BAR * 1e6;
-    double supply = uptake(m, y, &env, dydt);
+    double supply = vl_o2_uptake(m, NAME, y, &env, dydt);
     /* [C] supply without the O2 limit: 5.1466e11 mol O2/yr (present_earth's arithmetic) */
     ck_assert_rel(supply, 5.1466e11, 1e-4);
     /* at p_half = 0.021 bar (default) half of it, by the definition of p_half */
     env.p_pa[VL_GAS_O2] = 0.021 * VL_BAR;
-    ck_assert_rel(uptake(m, y, &env, dydt) / supply, 0.5, 2e-6);
+    ck_assert_rel(vl_o2_uptake(m, NAME, y, &env, dydt) / supply, 0.5, 2e-6);
     /* the uptake never exceeds the supply, and grows with pO2 (from memory: an anoxic
      * deep ocean cannot oxidise the crust with O2) */
     double low = 0.0;
     for (double p = 1e-3; p < 1e7; p *= 10.0) {
         env.p_pa[VL_GAS_O2] = p;
-        double f = uptake(m, y, &env, dydt);
+        double f = vl_o2_uptake(m, NAME, y, &env, dydt);
         ck_assert(f > low && f <= supply);
         low = f;
     }
@@ -139,23 +99,23 @@ END_TEST
 START_TEST(no_oxygen_no_ocean)
 {
     vl_scenario *sc;
-    vl_model *m = model_with(NULL, 0, &sc);
+    vl_model *m = vl_o2_model(NAME, NULL, 0, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(m, y, &env);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(m, y, &env);
     /* no O2 in the air: nothing to take up */
     env.p_pa[VL_GAS_O2] = 0.0;
-    ck_assert_double_eq(uptake(m, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(m, NAME, y, &env, dydt), 0.0);
     /* an empty O2 reservoir: the depletion ramp stops the outflow (flux.h) */
-    env.p_pa[VL_GAS_O2] = P_O2_NOW;
+    env.p_pa[VL_GAS_O2] = VL_O2_P_NOW;
     y[VL_R_O2] = 0.0;
-    ck_assert_double_eq(uptake(m, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(m, NAME, y, &env, dydt), 0.0);
     ck_assert_double_eq(dydt[VL_R_O2], 0.0);
     /* no open ocean (frozen over, or none): no seawater alteration with dissolved O2 */
     y[VL_R_O2] = 1.2e18;
     env.liquid = 0.0;
-    ck_assert_double_eq(uptake(m, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(m, NAME, y, &env, dydt), 0.0);
     vl_test_model_free(m);
     vl_scenario_free(sc);
 }
@@ -167,19 +127,19 @@ START_TEST(stagnant_lid)
     const char *stag3[] = {"planet.interior.tectonics=stagnant_lid",
                            "processes." NAME ".stagnant_lid_factor=0.03"};
     vl_scenario *sa, *sb, *sc;
-    vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(stag, 1, &sb);
-    vl_model *mc = model_with(stag3, 2, &sc);
+    vl_model *ma = vl_o2_model(NAME, NULL, 0, &sa), *mb = vl_o2_model(NAME, stag, 1, &sb);
+    vl_model *mc = vl_o2_model(NAME, stag3, 2, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(ma, y, &env);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(ma, y, &env);
     env.heat_flow_rel = 1.7;
-    double mobile = uptake(ma, y, &env, dydt);
+    double mobile = vl_o2_uptake(ma, NAME, y, &env, dydt);
     ck_assert(mobile > 0.0);
     /* default f_sl = 0.1: a stagnant lid processes an order of magnitude less mantle
      * (Tosi et al. 2017, A&A 605:A71, from memory) */
-    ck_assert_rel(uptake(mb, y, &env, dydt) / mobile, 0.1, 1e-12);
-    ck_assert_rel(uptake(mc, y, &env, dydt) / mobile, 0.03, 1e-12);
+    ck_assert_rel(vl_o2_uptake(mb, NAME, y, &env, dydt) / mobile, 0.1, 1e-12);
+    ck_assert_rel(vl_o2_uptake(mc, NAME, y, &env, dydt) / mobile, 0.03, 1e-12);
     vl_test_model_free(ma);
     vl_test_model_free(mb);
     vl_test_model_free(mc);
@@ -197,12 +157,12 @@ START_TEST(scales_with_area)
     const char *absolute[] = {"planet.mass_mearth=0.5", "planet.radius_rearth=0.8",
                               "processes." NAME ".scale_by_surface_area=false"};
     vl_scenario *sa, *sb;
-    vl_model *ma = model_with(small, 2, &sa), *mb = model_with(absolute, 3, &sb);
+    vl_model *ma = vl_o2_model(NAME, small, 2, &sa), *mb = vl_o2_model(NAME, absolute, 3, &sb);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(ma, y, &env);
-    double a = uptake(ma, y, &env, dydt), b = uptake(mb, y, &env, dydt);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(ma, y, &env);
+    double a = vl_o2_uptake(ma, NAME, y, &env, dydt), b = vl_o2_uptake(mb, NAME, y, &env, dydt);
     ck_assert(b > 0.0);
     ck_assert_rel(a / b, 0.64, 1e-12);
     /* the absolute rate is the Earth rate of present_earth [C] */

@@ -1,65 +1,24 @@
 /* test_rock_oxidation.c: the supply-limited O2 sink of rock eroded on land (docs/model.md
  * section 4): the present-Earth rate against the published magnitude, the O2
  * limitation, no uptake without O2 or land or in a magma ocean, land-fraction and
- * tectonic scaling, off by default. */
+ * tectonic scaling, on by default with oxygen_sink off. */
 #include <string.h>
 
+#include "o2_sink_support.h"
 #include "suites.h"
 #include "volev/model.h"
 #include "volev/units.h"
 
-#define T_NOW (4.57e9 * VL_YR)
 #define NAME "rock_oxidation"
-/* present Earth's O2: mole fraction 0.2095 x 1.01325 bar (common practice) */
-#define P_O2_NOW (0.2095 * 101325.0)
-
-/* Present Earth: one ocean, N2 3.887e18 kg and O2 1.2e18 kg (common practice). */
-static void earth_state(double y[VL_NSTATE])
-{
-    memset(y, 0, VL_NSTATE * sizeof y[0]);
-    y[VL_R_WATER] = VL_TO_KG;
-    y[VL_R_N2] = 3.887e18;
-    y[VL_R_O2] = 1.2e18;
-}
-
-/* The model of the default scenario with the overrides sets[0..n), the process on. */
-static vl_model *model_with(const char *const *sets, size_t n, vl_scenario **sc)
-{
-    const char *all[8] = {"processes." NAME ".enabled=true"};
-    ck_assert(n < 8);
-    for (size_t i = 0; i < n; i++)
-        all[i + 1] = sets[i];
-    *sc = vl_test_scenario(NULL, all, n + 1);
-    return vl_test_model(*sc);
-}
-
-/* Present Earth's environment: present heat flow and O2, temperate, an ice-free ocean
- * (runoff everywhere on land). */
-static void earth_env(const vl_model *m, const double *y, vl_env *env)
-{
-    vl_model_env(m, vl_test_work(m), T_NOW, y, VL_REGIME_TEMPERATE, env);
-    env->heat_flow_rel = 1.0;
-    env->liquid = 1.0;
-    env->p_pa[VL_GAS_O2] = P_O2_NOW;
-}
-
-/* The process's O2 uptake alone at (y, env), mol O2 per year; its tendencies in dydt. */
-static double uptake(const vl_model *m, const double *y, const vl_env *env, double *dydt)
-{
-    double cols[1];
-    vl_test_process_rates(m, NAME, y, env, dydt, cols);
-    return cols[0] / vl_species_molar_mass(VL_SP_O2) * VL_YR;
-}
-
 START_TEST(present_earth)
 {
     vl_scenario *sc;
-    vl_model *m = model_with(NULL, 0, &sc);
+    vl_model *m = vl_o2_model(NAME, NULL, 0, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(m, y, &env);
-    double f = uptake(m, y, &env, dydt);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(m, y, &env);
+    double f = vl_o2_uptake(m, NAME, y, &env, dydt);
     /* published magnitude: the O2 consumed today by weathering sulfides and ferrous iron
      * is of order 1e12 mol/yr (pyrite ~0.5-1.5 and Fe2+ ~0.3-0.6 Tmol O2/yr in the O2
      * budgets of Holland 2002, GCA 66:3811, and Lasaga & Ohmoto 2002, GCA 66:361; from
@@ -81,33 +40,33 @@ END_TEST
 START_TEST(oxygen_limited)
 {
     vl_scenario *sc;
-    vl_model *m = model_with(NULL, 0, &sc);
+    vl_model *m = vl_o2_model(NAME, NULL, 0, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(m, y, &env);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(m, y, &env);
     /* ample O2 (1e6 p_half): the rock's supply, to 1e-6 [C] (present_earth's arithmetic) */
     env.p_pa[VL_GAS_O2] = 2.1e-3 * VL_BAR * 1e6;
-    double supply = uptake(m, y, &env, dydt);
+    double supply = vl_o2_uptake(m, NAME, y, &env, dydt);
     ck_assert_rel(supply, 1.05242e12, 1e-4);
     /* at p_half = 2.1e-3 bar (1 % of present, default) half of it, by definition */
     env.p_pa[VL_GAS_O2] = 2.1e-3 * VL_BAR;
-    ck_assert_rel(uptake(m, y, &env, dydt) / supply, 0.5, 2e-6);
+    ck_assert_rel(vl_o2_uptake(m, NAME, y, &env, dydt) / supply, 0.5, 2e-6);
     /* never above the supply, growing with pO2 */
     double low = 0.0;
     for (double p = 1e-3; p < 1e7; p *= 10.0) {
         env.p_pa[VL_GAS_O2] = p;
-        double f = uptake(m, y, &env, dydt);
+        double f = vl_o2_uptake(m, NAME, y, &env, dydt);
         ck_assert(f > low && f <= supply);
         low = f;
     }
     /* no O2 in the air: nothing taken up */
     env.p_pa[VL_GAS_O2] = 0.0;
-    ck_assert_double_eq(uptake(m, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(m, NAME, y, &env, dydt), 0.0);
     /* an empty O2 reservoir: the depletion ramp stops the outflow (flux.h) */
-    env.p_pa[VL_GAS_O2] = P_O2_NOW;
+    env.p_pa[VL_GAS_O2] = VL_O2_P_NOW;
     y[VL_R_O2] = 0.0;
-    ck_assert_double_eq(uptake(m, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(m, NAME, y, &env, dydt), 0.0);
     ck_assert_double_eq(dydt[VL_R_O2], 0.0);
     vl_test_model_free(m);
     vl_scenario_free(sc);
@@ -120,17 +79,17 @@ START_TEST(scales_with_land)
     const char *half[] = {"processes." NAME ".land_fraction=0.145"};
     const char *none[] = {"processes." NAME ".land_fraction=0"};
     vl_scenario *sa, *sb, *sc;
-    vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(half, 1, &sb);
-    vl_model *mc = model_with(none, 1, &sc);
+    vl_model *ma = vl_o2_model(NAME, NULL, 0, &sa), *mb = vl_o2_model(NAME, half, 1, &sb);
+    vl_model *mc = vl_o2_model(NAME, none, 1, &sc);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(ma, y, &env);
-    double full = uptake(ma, y, &env, dydt);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(ma, y, &env);
+    double full = vl_o2_uptake(ma, NAME, y, &env, dydt);
     ck_assert(full > 0.0);
     /* 0.145 / 0.29 = 0.5 [C] */
-    ck_assert_rel(uptake(mb, y, &env, dydt) / full, 0.5, 1e-12);
-    ck_assert_double_eq(uptake(mc, y, &env, dydt), 0.0);
+    ck_assert_rel(vl_o2_uptake(mb, NAME, y, &env, dydt) / full, 0.5, 1e-12);
+    ck_assert_double_eq(vl_o2_uptake(mc, NAME, y, &env, dydt), 0.0);
     vl_test_model_free(ma);
     vl_test_model_free(mb);
     vl_test_model_free(mc);
@@ -145,32 +104,32 @@ START_TEST(magma_and_tectonics)
 {
     const char *stag[] = {"planet.interior.tectonics=stagnant_lid"};
     vl_scenario *sa, *sb;
-    vl_model *ma = model_with(NULL, 0, &sa), *mb = model_with(stag, 1, &sb);
+    vl_model *ma = vl_o2_model(NAME, NULL, 0, &sa), *mb = vl_o2_model(NAME, stag, 1, &sb);
     double y[VL_NSTATE], dydt[VL_NSTATE];
     vl_env env;
-    earth_state(y);
-    earth_env(ma, y, &env);
+    vl_o2_earth_state(y);
+    vl_o2_earth_env(ma, y, &env);
     env.heat_flow_rel = 1.7;
-    double mobile = uptake(ma, y, &env, dydt);
+    double mobile = vl_o2_uptake(ma, NAME, y, &env, dydt);
     /* default m = 1: erosion proportional to the heat flow (common practice) [C] */
     env.heat_flow_rel = 1.0;
-    ck_assert_rel(mobile / uptake(ma, y, &env, dydt), 1.7, 1e-12);
+    ck_assert_rel(mobile / vl_o2_uptake(ma, NAME, y, &env, dydt), 1.7, 1e-12);
     env.heat_flow_rel = 1.7;
     /* default f_sl = 0.1: a stagnant lid processes an order of magnitude less mantle
      * (Tosi et al. 2017, A&A 605:A71, from memory) */
-    ck_assert_rel(uptake(mb, y, &env, dydt) / mobile, 0.1, 1e-12);
+    ck_assert_rel(vl_o2_uptake(mb, NAME, y, &env, dydt) / mobile, 0.1, 1e-12);
     env.regime = VL_REGIME_MAGMA;
-    ck_assert_double_eq(uptake(ma, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(ma, NAME, y, &env, dydt), 0.0);
     /* no running water, no erosion (common practice): nothing on a frozen planet, half
      * with half the ocean ice-free */
     env.regime = VL_REGIME_FROZEN;
     env.liquid = 0.0;
-    ck_assert_double_eq(uptake(ma, y, &env, dydt), 0.0);
+    ck_assert_double_eq(vl_o2_uptake(ma, NAME, y, &env, dydt), 0.0);
     env.regime = VL_REGIME_TEMPERATE;
     env.liquid = 1.0;
-    double open = uptake(ma, y, &env, dydt);
+    double open = vl_o2_uptake(ma, NAME, y, &env, dydt);
     env.liquid = 0.5;
-    ck_assert_rel(uptake(ma, y, &env, dydt) / open, 0.5, 1e-12);
+    ck_assert_rel(vl_o2_uptake(ma, NAME, y, &env, dydt) / open, 0.5, 1e-12);
     vl_test_model_free(ma);
     vl_test_model_free(mb);
     vl_scenario_free(sa);
