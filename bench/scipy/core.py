@@ -160,7 +160,9 @@ CORE = ("hydrogen_escape", "photolysis", "oxygen_sink", "outgassing", "weatherin
 KNOWN = ("hydrogen_escape", "oxygen_drag", "photolysis", "jeans_oxygen", "oxygen_sink",
          "outgassing", "weathering", "impacts", "ion_pickup", "sputtering",
          "photochemical_escape", "polar_outflow", "mantle_water", "nitrogen_regassing",
-         "nitrogen_burial", "seafloor_weathering", "carbonate_recycling")
+         "nitrogen_burial", "seafloor_weathering", "carbonate_recycling", "crust_oxidation",
+         "magma_freezing", "magma_oxidation", "volcanic_reductants", "h2_oxidation",
+         "photochemical_h2", "rock_oxidation")
 
 REGIME_NAMES = ("dry", "frozen", "temperate", "moist_greenhouse", "runaway")
 TEMPERATE = 2

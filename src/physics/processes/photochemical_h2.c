@@ -9,8 +9,9 @@
  * in proportion to their column cross-sections,
  *   s_w = sigma_w x_w / (sigma_w x_w + sigma_CO2 x_CO2 + sigma_O2 x_O2),
  * with x the mole fractions of the whole atmosphere (N2 does not absorb at Lyman alpha);
- * of the water molecules so dissociated a net share y leaves H2 instead of recombining
- * (most H and OH recombine to water through HOx catalysis), so
+ * y is the H2 left per Lyman-alpha photon water absorbs, an order-one efficiency that
+ * lumps the 175-200 nm photolysis reaching lower and the recombination of most H and OH
+ * to water through HOx catalysis, so
  *   P = y F pi R^2 s_w            mol H2 per second (F: photons m^-2 s^-1)
  * The H2 is removed again by escape (hydrogen_escape) and by oxidation back to water
  * (h2_oxidation). Over the H2's life the atmosphere's redox budget, not P, sets its level:
