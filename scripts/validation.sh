@@ -68,7 +68,8 @@ present Earth's dry air less CO2 as an N2 background, since the model has no bio
 O2 and no argon; the same mantle stores), use the default column climate and share
 every process parameter; they differ only in measured planet facts (mass, radius,
 orbit) and in documented ones (no field and a stagnant lid for Venus and Mars; Mars's
-volcanic outgassing set from the published estimate of Grott et al. 2011). Nothing
+volcanic outgassing, reduced gases included, set from the published estimate of Grott
+et al. 2011). Nothing
 was tuned per planet. Model values are at the end of each run (today); measured values
 with their sources. Model estimates, not predictions to be trusted in detail.
 
