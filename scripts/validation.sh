@@ -100,10 +100,12 @@ photochemical_h2's deposited share, set on present Mars's 15 ppmv of H2 (the [C]
 Nothing here was fitted.
 
 - **Venus** loses its ocean in a runaway (its surface near 2300 K while the whole
-  ocean fills the air, cooling as the water escapes) that lasts until the water is
-  gone, about 0.5 Gyr after the start, and keeps its CO2 in the air: the divergence
-  from Earth is reproduced. But it keeps the oxygen of that ocean, nearly 200 bar of
-  O2, against almost none measured: the largest miss. The supply-limited sinks take
+  ocean fills the air, cooling as the water escapes) and keeps its CO2 in the air: the
+  divergence from Earth is reproduced. Over 90 % of the water is gone within 0.1 Gyr;
+  the last few percent linger in a hot steam-and-O2 atmosphere until ~3 Gyr, because
+  the O2 left behind dilutes the hydrogen that reaches the homopause (diffusion-limited
+  escape falls with the hydrogen mixing ratio). And it keeps the oxygen of that ocean,
+  nearly 200 bar of O2, against almost none measured: the largest miss. The supply-limited sinks take
   under 1 % of it (the ledger row: 8e18 of 8.7e20 kg): the crust is oxidised only
   under an ocean, erosion needs running water, the reduced volcanic gases need water
   to carry them, and oxygen escape under the young Sun's XUV is small. That an
