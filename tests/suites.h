@@ -47,6 +47,9 @@ const struct vl_process *vl_test_process_rates(const struct vl_model *m, const c
                                                const double *y, const struct vl_env *env,
                                                double *dydt, double *cols);
 
+/* Index of m's output column called name; fails the test if there is none. */
+size_t vl_test_column(const struct vl_model *m, const char *name);
+
 /* Runs the scenario VOLEV_TOP/rel with the overrides to its end; the environment of its
  * last output row into last and, unless NULL, its final state (VL_NSTATE) into y_final. */
 void vl_test_final_env(const char *rel, const char *const *sets, size_t n, struct vl_env *last,

@@ -203,6 +203,15 @@ const vl_process *vl_test_process_rates(const vl_model *m, const char *name, con
     return vl_processes[k];
 }
 
+size_t vl_test_column(const vl_model *m, const char *name)
+{
+    for (size_t c = 0; c < m->ncolumns; c++)
+        if (strcmp(m->col_name[c], name) == 0)
+            return c;
+    ck_abort_msg("no column %s", name);
+    return 0;
+}
+
 static int keep_env(void *ctx, double t, const double *y, const double *dydt, const vl_env *env,
                     const double *columns, vl_status *st)
 {

@@ -434,16 +434,6 @@ static void run_earth(const char *const *sets, size_t n, trace *tr, vl_run_stats
     *m_out = m;
 }
 
-/* Flux column (kg/s) by name in cols. */
-static double column(const vl_model *m, const double *cols, const char *name)
-{
-    for (size_t c = 0; c < m->ncolumns; c++)
-        if (strcmp(m->col_name[c], name) == 0)
-            return cols[c];
-    ck_abort_msg("no column %s", name);
-    return 0.0;
-}
-
 START_TEST(earth_history_carbon)
 {
     static trace hist, base, pert;
@@ -485,9 +475,9 @@ START_TEST(earth_history_carbon)
      * outgassing (mantle + arc return); the net tendency is small against the fluxes */
     double dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
     vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, base.last.regime, dydt, cols, NULL);
-    double sinks = column(m, cols, "weathering_co2_kg_s") + column(m, cols, "seafloor_co2_kg_s");
-    double sources = column(m, cols, "outgas_co2_kg_s") +
-                     column(m, cols, "recycled_to_surface_kg_s");
+    double sinks = cols[vl_test_column(m, "weathering_co2_kg_s")] + cols[vl_test_column(m, "seafloor_co2_kg_s")];
+    double sources = cols[vl_test_column(m, "outgas_co2_kg_s")] +
+                     cols[vl_test_column(m, "recycled_to_surface_kg_s")];
     ck_assert_rel(sinks, sources, 1e-2);
     ck_assert_msg(fabs(dydt[VL_R_CO2]) < 1e-2 * sinks, "net %g of %g kg/s", dydt[VL_R_CO2], sinks);
     vl_test_model_free(m);

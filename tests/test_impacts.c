@@ -64,16 +64,6 @@ static vl_scenario *scenario(int alone, int delivery, double bg)
     return sc;
 }
 
-/* Index of the output column called name. */
-static size_t column(const vl_model *m, const char *name)
-{
-    for (size_t i = 0; i < m->ncolumns; i++)
-        if (strcmp(m->col_name[i], name) == 0)
-            return i;
-    ck_abort_msg("no column %s", name);
-    return 0;
-}
-
 /* Every gas and water well above its depletion band (kg, high-entropy). */
 static void gassy_state(const vl_model *m, double y[VL_NSTATE])
 {
@@ -109,17 +99,17 @@ START_TEST(tangent_plane_earth)
     /* an atmosphere whose scale height kT/(mg) is 8 km exactly */
     env.m_mean_kg = 28.97 * VL_AMU;
     env.t_surf_k = 8.0e3 * env.m_mean_kg * env.g / VL_K_BOLTZMANN;
-    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + column(m, "impact_co2_kg_s"));
+    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + vl_test_column(m, "impact_co2_kg_s"));
     double n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
-    double x = cols[column(m, "impact_n2_kg_s")] / (n * y[VL_R_N2]);
+    double x = cols[vl_test_column(m, "impact_n2_kg_s")] / (n * y[VL_R_N2]);
     /* Schlichting, Sari & Yalinewich 2015: tangent-plane loss h/(2R); Earth, h = 8 km:
      * 8/(2 x 6371) = 6.3e-4 per impact [C] */
     ck_assert_rel(x, 6.3e-4, 5e-3);
     ck_assert_rel(x, 8.0 / (2.0 * 6371.0), 1e-12);
     /* a scale height beyond 2R: one impact cannot remove more than the whole atmosphere */
     env.t_surf_k *= 1e4;
-    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + column(m, "impact_co2_kg_s"));
-    ck_assert_rel(cols[column(m, "impact_n2_kg_s")], n * y[VL_R_N2], 1e-12);
+    vl_test_process_rates(m, "impacts", y, &env, dydt, cols + vl_test_column(m, "impact_co2_kg_s"));
+    ck_assert_rel(cols[vl_test_column(m, "impact_n2_kg_s")], n * y[VL_R_N2], 1e-12);
     free(cols);
     vl_test_model_free(m);
     vl_scenario_free(sc);
@@ -138,16 +128,16 @@ START_TEST(erosion_of_each_gas)
     ck_assert(env.vapour_kg > 0.0);
     /* erosion of gas i = N(t) X M_i, X = h/(2R) (Schlichting et al. 2015) */
     double loss = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR) * fraction(m, &env);
-    double co2 = cols[column(m, "impact_co2_kg_s")], n2 = cols[column(m, "impact_n2_kg_s")];
-    double o2 = cols[column(m, "impact_o2_kg_s")], h2 = cols[column(m, "impact_h2_kg_s")];
-    double h2o = cols[column(m, "impact_h2o_kg_s")];
+    double co2 = cols[vl_test_column(m, "impact_co2_kg_s")], n2 = cols[vl_test_column(m, "impact_n2_kg_s")];
+    double o2 = cols[vl_test_column(m, "impact_o2_kg_s")], h2 = cols[vl_test_column(m, "impact_h2_kg_s")];
+    double h2o = cols[vl_test_column(m, "impact_h2o_kg_s")];
     ck_assert_rel(co2, loss * y[VL_R_CO2], 1e-12);
     ck_assert_rel(n2, loss * y[VL_R_N2], 1e-12);
     ck_assert_rel(o2, loss * y[VL_R_O2], 1e-12);
     ck_assert_rel(h2, loss * y[VL_R_H2], 1e-12);
     ck_assert_rel(h2o, loss * env.vapour_kg, 1e-12);
     /* delivery off: nothing delivered, the pools untouched */
-    ck_assert_double_eq(cols[column(m, "delivered_h2o_kg_s")], 0.0);
+    ck_assert_double_eq(cols[vl_test_column(m, "delivered_h2o_kg_s")], 0.0);
     ck_assert_double_eq(dydt[VL_R_IMPACT_WATER], 0.0);
     /* into space by stoichiometry: CO2 -> C + 2 O, H2O -> 2 H + O (IUPAC atomic weights) */
     ck_assert_rel(dydt[VL_R_SPACE_C], co2 * 12.011 / 44.009, 1e-12);
@@ -167,7 +157,7 @@ static double rate_seen(const vl_model *m, double t, const double *y)
     double dydt[VL_NSTATE], *cols = calloc(m->ncolumns, sizeof *cols);
     vl_env env;
     vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, &env);
-    double n = cols[column(m, "impact_n2_kg_s")] / (fraction(m, &env) * y[VL_R_N2]);
+    double n = cols[vl_test_column(m, "impact_n2_kg_s")] / (fraction(m, &env) * y[VL_R_N2]);
     free(cols);
     return n;
 }
@@ -253,8 +243,8 @@ START_TEST(delivery_moves_from_pools)
     double t = 2.9e8 * VL_YR, n = rate_per_s(t, EARLY_PER_MYR, BG_PER_MYR);
     vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
     /* each impact delivers the set masses: delivery rate = N(t) x mass per impact */
-    double w = cols[column(m, "delivered_h2o_kg_s")], c = cols[column(m, "delivered_co2_kg_s")];
-    double nn = cols[column(m, "delivered_n2_kg_s")];
+    double w = cols[vl_test_column(m, "delivered_h2o_kg_s")], c = cols[vl_test_column(m, "delivered_co2_kg_s")];
+    double nn = cols[vl_test_column(m, "delivered_n2_kg_s")];
     ck_assert_rel(w, n * WATER_KG, 1e-12);
     ck_assert_rel(c, n * CO2_KG, 1e-12);
     ck_assert_rel(nn, n * N2_KG, 1e-12);
@@ -262,13 +252,13 @@ START_TEST(delivery_moves_from_pools)
     ck_assert_rel(-dydt[VL_R_IMPACT_WATER], w, 1e-12);
     ck_assert_rel(-dydt[VL_R_IMPACT_CO2], c, 1e-12);
     ck_assert_rel(-dydt[VL_R_IMPACT_N2], nn, 1e-12);
-    ck_assert_rel(dydt[VL_R_WATER], w - cols[column(m, "impact_h2o_kg_s")], 1e-12);
-    ck_assert_rel(dydt[VL_R_CO2], c - cols[column(m, "impact_co2_kg_s")], 1e-12);
-    ck_assert_rel(dydt[VL_R_N2], nn - cols[column(m, "impact_n2_kg_s")], 1e-12);
+    ck_assert_rel(dydt[VL_R_WATER], w - cols[vl_test_column(m, "impact_h2o_kg_s")], 1e-12);
+    ck_assert_rel(dydt[VL_R_CO2], c - cols[vl_test_column(m, "impact_co2_kg_s")], 1e-12);
+    ck_assert_rel(dydt[VL_R_N2], nn - cols[vl_test_column(m, "impact_n2_kg_s")], 1e-12);
     /* an empty pool delivers nothing (depletion ramp, flux.h) */
     y[VL_R_IMPACT_WATER] = 0.0;
     vl_model_rhs(m, vl_test_work(m), t, y, VL_REGIME_TEMPERATE, dydt, cols, NULL);
-    ck_assert_double_eq(cols[column(m, "delivered_h2o_kg_s")], 0.0);
+    ck_assert_double_eq(cols[vl_test_column(m, "delivered_h2o_kg_s")], 0.0);
     free(cols);
     vl_test_model_free(m);
     vl_scenario_free(sc);
@@ -335,7 +325,7 @@ START_TEST(earth_run_with_delivery)
                       vl_reservoir_name(pool[i]), s.y_final[pool[i]], y0[pool[i]]);
         /* what left the pool arrived: the delivered column's time integral (trapezoid
          * over accepted steps, 1e-2) equals the pool's initial content */
-        ck_assert_rel(s.channel_kg[column(m, col[i])], y0[pool[i]], 1e-2);
+        ck_assert_rel(s.channel_kg[vl_test_column(m, col[i])], y0[pool[i]], 1e-2);
     }
     vl_test_model_free(m);
     vl_scenario_free(sc);

@@ -97,24 +97,10 @@ static void check_conservation(const vl_run_stats *s)
     }
 }
 
-/* The value of the output column called name in cols (m->ncolumns entries). */
-static double column(const vl_model *m, const double *cols, const char *name)
-{
-    for (size_t k = 0; k < m->ncolumns; k++)
-        if (strcmp(m->col_name[k], name) == 0)
-            return cols[k];
-    ck_abort_msg("no column %s", name);
-    return NAN;
-}
-
 /* The time integral of the output column called name, kg. */
 static double total(const vl_model *m, const vl_run_stats *s, const char *name)
 {
-    for (size_t k = 0; k < m->ncolumns; k++)
-        if (strcmp(m->col_name[k], name) == 0)
-            return s->channel_kg[k];
-    ck_abort_msg("no column %s", name);
-    return NAN;
+    return s->channel_kg[vl_test_column(m, name)];
 }
 
 START_TEST(earth_history)
@@ -235,12 +221,10 @@ START_TEST(earth_with_column_climate)
      * atmosphere's reducing power (Catling & Kasting 2017, Atmospheric Evolution on
      * Inhabited and Lifeless Worlds; common practice), here within 20 %. The real
      * Earth's ~3 kg/s needs its O2: tests/test_photochem_h2.c. */
-    double dydt[VL_NSTATE], *cols = calloc(m->ncolumns, sizeof *cols);
-    ck_assert_ptr_nonnull(cols);
+    double dydt[VL_NSTATE], cols[VL_MAX_COLUMNS];
     vl_model_rhs(m, vl_test_work(m), sc->run.end_s, s.y_final, c.last_env.regime, dydt, cols, NULL);
     double h = dydt[VL_R_SPACE_H];
-    double supply_h = column(m, cols, "volcanic_h2_kg_s") * 2.0 * VL_AW_H / 2.016;
-    free(cols);
+    double supply_h = cols[vl_test_column(m, "volcanic_h2_kg_s")] * 2.0 * VL_AW_H / 2.016;
     ck_assert_msg(fabs(h / supply_h - 1.0) < 0.2, "H escape today %g kg/s, volcanic H %g kg/s",
                   h, supply_h);
     ck_assert_int_eq(c.last_env.regime, VL_REGIME_TEMPERATE);
