@@ -13,10 +13,10 @@
  * anoxic deep ocean). P0 is for a planet of Earth's surface area; by default it scales
  * with the planet's area, as seafloor_weathering's crust production does. O2 -> oxygen
  * bound in rock. Equations and references: docs/model.md section 4. */
-#include <math.h>
 #include <stddef.h>
 
 #include "oxidation.h"
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/units.h"
 
@@ -86,13 +86,9 @@ static const vl_transfer transfers[] = {[O2_TO_OX_ROCK] = {VL_R_O2, VL_R_OX_ROCK
 /* Crust production P (m^2/s) at the heat flow in env for the run's tectonic mode. */
 static double production(const params *p, const vl_planet *pl, const vl_env *env)
 {
-    double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
-    double f = p->production_m2_s * pow(q, p->exponent);
-    if (pl->tectonics == VL_TECTONICS_STAGNANT)
-        f *= p->stagnant_factor;
-    if (p->per_area)
-        f *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
-    return f;
+    double f = p->production_m2_s * vl_scaling_activity(pl, env, p->exponent, p->exponent) *
+               vl_scaling_lid(pl, p->stagnant_factor);
+    return p->per_area ? f * vl_scaling_area(pl) : f;
 }
 
 /* Moves F (mol O2/s, as kg/s) from atmospheric O2 into oxidised rock. */

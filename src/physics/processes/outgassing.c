@@ -18,9 +18,9 @@
  * production, F the degree of melting (water is incompatible: the melt holds x_m / F)
  * and f_deg the share of the melt's water that escapes to the surface; the deuterium
  * goes along at the mantle's D/H through the transfer. */
-#include <math.h>
 #include <stddef.h>
 
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/units.h"
 
@@ -119,15 +119,6 @@ static const vl_transfer transfers[] = {
     [MANTLE_WATER_TO_WATER] = {VL_R_MANTLE_WATER, VL_R_WATER},
 };
 
-/* V / V0 at the heat flow in env for the scenario's tectonic mode. */
-static double heat_scale(const params *p, const vl_planet *pl, const vl_env *env)
-{
-    double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
-    if (pl->tectonics == VL_TECTONICS_STAGNANT)
-        return p->stagnant_factor * pow(q, p->stagnant_exponent);
-    return pow(q, p->exponent);
-}
-
 /* Water degassed by the melt, kg/s, at heat scale s (mass scaling included). */
 static double melt_water(const params *p, const vl_planet *pl, const double *y, double s)
 {
@@ -142,7 +133,8 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
     const vl_env *env = v->env;
     const vl_planet *pl = v->planet;
     const params *p = pv;
-    double s = heat_scale(p, pl, env);
+    double s = vl_scaling_lid(pl, p->stagnant_factor) *
+               vl_scaling_activity(pl, env, p->exponent, p->stagnant_exponent);
     if (p->per_mass)
         s *= pl->mass_kg / VL_M_EARTH;
     vl_flux_transfer(fx, MANTLE_C_TO_CO2, s * p->co2_mol_s * vl_species_molar_mass(VL_SP_CO2), 0);

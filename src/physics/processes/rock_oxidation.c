@@ -14,10 +14,10 @@
  * frozen, dry or runaway planet and in the magma-ocean regime). The oxygen goes to oxidised_rock (the
  * sulfate's oxygen included: the model has no sulfate reservoir). Equations and
  * references: docs/model.md section 4. */
-#include <math.h>
 #include <stddef.h>
 
 #include "oxidation.h"
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/units.h"
 
@@ -90,13 +90,10 @@ static const vl_transfer transfers[] = {[O2_TO_OX_ROCK] = {VL_R_O2, VL_R_OX_ROCK
 /* Rock eroded E (kg/s) at the heat flow in env for the run's tectonic mode and land. */
 static double erosion(const params *p, const vl_planet *pl, const vl_env *env)
 {
-    double q = env->heat_flow_rel > 0.0 ? env->heat_flow_rel : 0.0;
-    double e = p->erosion_kg_s * (p->land / p->land_ref) * pow(q, p->exponent);
-    if (pl->tectonics == VL_TECTONICS_STAGNANT)
-        e *= p->stagnant_factor;
-    if (p->per_area)
-        e *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
-    return e;
+    double e = p->erosion_kg_s * (p->land / p->land_ref) *
+               vl_scaling_activity(pl, env, p->exponent, p->exponent) *
+               vl_scaling_lid(pl, p->stagnant_factor);
+    return p->per_area ? e * vl_scaling_area(pl) : e;
 }
 
 /* Moves F (mol O2/s, as kg/s) from atmospheric O2 into oxidised rock; none without liquid

@@ -14,6 +14,7 @@
 #include <math.h>
 #include <stddef.h>
 
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/units.h"
 
@@ -83,7 +84,7 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
                exp(-p->ea_j_mol / VL_R_GAS * (1.0 / env->t_surf_k - 1.0 / p->t0_k));
     double f = q * cap0 * -expm1(-g / cap0);
     if (p->per_area)
-        f *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
+        f *= vl_scaling_area(pl);
     vl_flux_transfer(fx, CO2_TO_CARBONATE, f * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 

@@ -18,6 +18,7 @@
 #include <math.h>
 #include <stddef.h>
 
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/redox.h"
 #include "volev/units.h"
@@ -75,10 +76,8 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
 {
     const params *p = pv;
     const vl_planet *pl = v->planet;
-    double q = v->env->heat_flow_rel > 0.0 ? v->env->heat_flow_rel : 0.0;
-    double s = pow(q, p->exponent) * pl->mass_kg / VL_M_EARTH;
-    if (pl->tectonics == VL_TECTONICS_STAGNANT)
-        s *= p->stagnant_factor;
+    double s = vl_scaling_activity(pl, v->env, p->exponent, p->exponent) * pl->mass_kg /
+               VL_M_EARTH * vl_scaling_lid(pl, p->stagnant_factor);
     double h2_per_h2o, co_per_co2;
     vl_redox_volcanic_ratios(p->temp_k, p->pressure_bar, p->delta_fmq, &h2_per_h2o, &co_per_co2);
     double mol_s = s * (h2_per_h2o * p->h2o_mol_s + co_per_co2 * p->co2_mol_s);

@@ -13,6 +13,7 @@
 #include <math.h>
 #include <stddef.h>
 
+#include "scaling.h"
 #include "volev/process.h"
 #include "volev/units.h"
 
@@ -112,7 +113,7 @@ static void rates(const void *pv, const vl_view *v, vl_flux *fx)
                exp((env->t_surf_k - p->t0_k) / p->te_k) * runoff(p, env->t_surf_k);
     w = p->max_mol_s * -expm1(-w / p->max_mol_s);
     if (p->per_area)
-        w *= pl->area_m2 / (4.0 * VL_PI * VL_R_EARTH * VL_R_EARTH);
+        w *= vl_scaling_area(pl);
     vl_flux_transfer(fx, CO2_TO_CARBONATE, w * vl_species_molar_mass(VL_SP_CO2), 0);
 }
 
