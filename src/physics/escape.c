@@ -80,20 +80,34 @@ static double energy_limit(const vl_escape_params *p, const vl_planet *pl, const
     return mdot / pl->area_m2;
 }
 
+/* Hydrogen's carriers at the homopause and the background they diffuse through (see
+ * file comment): the dissociated water's share w, the background's mean mass m_bg, the
+ * carriers' mean mass m_c and their diffusion coefficient b (Blanc's law), cm^-1 s^-1. */
+typedef struct {
+    double w, m_bg, m_c, b;
+} carriers;
+
+static carriers hydrogen_carriers(double m_mol_kg, double w_o, double t_k)
+{
+    double m_h = VL_AW_H * VL_AMU, m_o = VL_AW_O * VL_AMU;
+    carriers c;
+    c.w = fmin(fmax(w_o, 0.0), 1.0);
+    c.m_bg = (1.0 - c.w) * m_mol_kg + c.w * m_o;
+    c.m_c = (1.0 - c.w) * 2.0 * m_h + c.w * m_h;
+    c.b = 1.0 / ((1.0 - c.w) / b_h2_air(t_k) + c.w / b_h_o(t_k));
+    return c;
+}
+
 /* Diffusion-limited H flux through the actual background (see file comment). */
 static double diffusion_limit(const vl_escape_params *p, const vl_env *env, double f_t)
 {
-    double m_h = VL_AW_H * VL_AMU, m_o = VL_AW_O * VL_AMU;
-    double w = fmin(fmax(env->f_strat, 0.0), 1.0);
     double t = p->homopause_temp_k;
-    double m_bg = (1.0 - w) * env->m_background_kg + w * m_o;
-    double m_c = (1.0 - w) * 2.0 * m_h + w * m_h;
-    double b = 1.0 / ((1.0 - w) / b_h2_air(t) + w / b_h_o(t));
-    double dm = m_bg - m_c;
+    carriers c = hydrogen_carriers(env->m_background_kg, env->f_strat, t);
+    double dm = c.m_bg - c.m_c;
     /* H atoms (in carriers) per particle: the molecular f_T, diluted by the particles the
      * dissociated water-borne share adds (see file comment) */
-    double x_h = 2.0 * f_t / (1.0 + 2.0 * w * f_t);
-    return dm > 0.0 ? x_h * b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
+    double x_h = 2.0 * f_t / (1.0 + 2.0 * c.w * f_t);
+    return dm > 0.0 ? x_h * c.b * env->g * dm / (VL_K_BOLTZMANN * t) : HUGE_VAL;
 }
 
 /* Binary diffusion coefficient of a carrier of mass m_kg through a background whose
@@ -109,17 +123,14 @@ static double b_isotope(double b_ref, double m_ref_kg, double m_kg, double m_bg_
 double vl_escape_diffusion_fractionation(double m_mol_kg, double w_o, double t_k)
 {
     double m_h = VL_AW_H * VL_AMU, m_d = VL_AW_D * VL_AMU, m_o = VL_AW_O * VL_AMU;
-    double m_h2 = 2.0 * m_h, m_hd = m_h + m_d;
-    double w = fmin(fmax(w_o, 0.0), 1.0);
-    double m_bg = (1.0 - w) * m_mol_kg + w * m_o;
-    double m_ch = (1.0 - w) * m_h2 + w * m_h, m_cd = (1.0 - w) * m_hd + w * m_d;
-    if (!(m_bg > m_cd))
+    double m_hd = m_h + m_d;
+    carriers h = hydrogen_carriers(m_mol_kg, w_o, t_k);
+    double w = h.w, m_cd = (1.0 - w) * m_hd + w * m_d;
+    if (!(h.m_bg > m_cd))
         return 0.0; /* D's carrier no lighter than the background: it stays (continuous) */
-    double b_mol = b_h2_air(t_k), b_at = b_h_o(t_k);
-    double b_h = 1.0 / ((1.0 - w) / b_mol + w / b_at);
-    double b_d = 1.0 / ((1.0 - w) / b_isotope(b_mol, m_h2, m_hd, m_mol_kg) +
-                        w / b_isotope(b_at, m_h, m_d, m_o));
-    double f = (b_d / b_h) * (m_bg - m_cd) / (m_bg - m_ch);
+    double b_d = 1.0 / ((1.0 - w) / b_isotope(b_h2_air(t_k), 2.0 * m_h, m_hd, m_mol_kg) +
+                        w / b_isotope(b_h_o(t_k), m_h, m_d, m_o));
+    double f = (b_d / h.b) * (h.m_bg - m_cd) / (h.m_bg - h.m_c);
     return f > 1.0 ? 1.0 : f;
 }
 
