@@ -7,7 +7,10 @@
 # of 1 thread; prints members per second, the projected time for 10 000 members and the
 # peak memory of the whole process (bench/ensemble.sh measures the marginal memory of a
 # member), and checks that the three members.csv files are identical.
-# Target (issue: ensembles): 10 000 Earth-like members in under 5 minutes on 2 cores.
+# Also prints the CPU time per member (user + system of the whole process over the
+# members) and the parallel efficiency of 2 threads and of 2 ranks against one thread.
+# Target (issue 17, speed): 10 000 Earth-like members in under 60 s on 2 cores, 2-rank
+# efficiency at least 90 %.
 # Informational: exits 0 whatever the timings (2 for bad arguments, 1 if outputs differ).
 set -u
 
@@ -43,11 +46,22 @@ run() {
     if [ $rc -ne 0 ]; then
         echo "$tag: FAILED (exit $rc)"; tail -3 "$work/$tag.time"; return
     fi
-    awk -v tag="$tag" -v n="$n" -v t0="$t0" -v t1="$t1" -v kb="$(peak_kb "$work/$tag.time")" 'BEGIN {
+    cpu=$(awk -F: '/User time|System time/ { s += $2 } END { printf "%.3f", s }' "$work/$tag.time")
+    awk -v tag="$tag" -v n="$n" -v t0="$t0" -v t1="$t1" -v cpu="$cpu" -v kb="$(peak_kb "$work/$tag.time")" 'BEGIN {
         s = t1 - t0; r = n / s
-        printf "%-10s %7d members %8.2f s %8.1f members/s  10000 members: %6.1f s (%s)  peak RSS %.1f MB\n",
-            tag, n, s, r, 10000 / r, (10000 / r <= 300 ? "within 5 min" : "over 5 min"),
-            kb / 1024 }'
+        printf "%-10s %7d members %8.2f s %8.1f members/s  CPU %6.2f ms/member  10000 members: %6.1f s  peak RSS %.1f MB\n",
+            tag, n, s, r, 1000 * cpu / n, 10000 / r, kb / 1024 }'
+    echo "$n $t0 $t1" > "$work/$tag.rate"
+}
+
+# efficiency TAG WORKERS: members per second of TAG over WORKERS times those of threads-1
+efficiency() {
+    [ -f "$work/$1.rate" ] && [ -f "$work/threads-1.rate" ] || return 0
+    awk -v tag="$1" -v k="$2" '
+        FNR == 1 && NR == 1 { r1 = $1 / ($3 - $2) }
+        FNR == 1 && NR > 1 { r = $1 / ($3 - $2) }
+        END { printf "%-10s parallel efficiency %.0f %% (members/s over %d x threads-1)\n", tag, 100 * r / (k * r1), k }
+    ' "$work/threads-1.rate" "$work/$1.rate"
 }
 
 echo "Earth-like ensemble: $n members (scenarios/earth.cfg, hz_fit climate, 60 output ages)"
@@ -59,6 +73,8 @@ if [ -n "$mpi" ] && command -v mpirun >/dev/null 2>&1; then
 else
     echo "mpi-2x1: skipped (no MPI build given, or no mpirun)"
 fi
+efficiency threads-2 2
+efficiency mpi-2x1 2
 status=0
 for tag in threads-2 mpi-2x1; do
     [ -f "$work/$tag/members.csv" ] || continue
