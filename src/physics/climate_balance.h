@@ -31,6 +31,18 @@ typedef struct vl_balance_key {
     int wet;                   /* 1: the surface holds an ocean (or its ice) and clouds form */
 } vl_balance_key;
 
+/* The values (OLR, albedo, ln f_strat) of the node points around a state at one grid
+ * temperature, kept from one balance to the next while what they depend on is exactly
+ * the same: the lower corner, the ocean left at that temperature and the star's
+ * temperature (the surface and the table are the model's). */
+#define VL_BALANCE_CORNERS (1 << VL_CT_NDIM)
+typedef struct vl_corner_values {
+    int lo[VL_CT_NDIM];
+    double ocean, teff_k;
+    unsigned mask;             /* corners (bit c) whose values are held */
+    double v[VL_BALANCE_CORNERS][3];
+} vl_corner_values;
+
 /* A balance: cached values on the grid and the last root of each branch. */
 enum { VL_BRANCH_COLD, VL_BRANCH_WARM, VL_BRANCH_HOT, VL_BRANCH_ANY, VL_NBRANCH };
 typedef struct vl_balance {
@@ -46,6 +58,7 @@ typedef struct vl_balance {
     double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
     double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
     int oom;                   /* a point could not be computed */
+    vl_corner_values corners[VL_CT_NT]; /* per grid temperature, across keys */
 } vl_balance;
 
 /* Prepare b for key (keeping cached values when the key is unchanged). */
