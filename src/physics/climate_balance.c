@@ -109,70 +109,101 @@ static double ocean_left(const vl_balance *b, double t)
     return b->key.wet ? 1.0 - vl_smoothstep(t, b->t_cond - 10.0, b->t_cond) : 0.0;
 }
 
-/* The values of one node point at grid temperature j, for surface band albedos a (NULL
- * when the albedo is fixed) under an ocean share ocean. */
-static void point_values(const vl_surface *s, const vl_column_point *p, double ocean,
-                         const double *share, const double *a, double v[3])
-{
-    double cf = ocean * s->cloud_fraction;
-    v[0] = (1.0 - cf) * p->olr[0] + cf * p->olr[1];
-    if (s->fixed)
-        v[1] = s->fixed_albedo;
-    else
-        v[1] = (1.0 - cf) * vl_radiation_albedo(&p->sw[0], share, a) +
-               cf * vl_radiation_albedo(&p->sw[1], share, a);
-    v[2] = log(fmax(p->f_strat, 1e-30));
-}
-
-/* The corner values of grid point j, emptied unless they were made for the same lower
+/* The corner values of grid point j (of the two kept, the one made for the same lower
+ * corner, else the older one), each part emptied unless it was made for the same lower
  * corner, ocean share and star. */
 static vl_corner_values *corners_at(vl_balance *b, int j, double ocean)
 {
-    vl_corner_values *cv = &b->corners[j];
-    if (memcmp(cv->lo, b->lo, sizeof cv->lo) != 0 || cv->ocean != ocean ||
-        cv->teff_k != b->key.teff_k) {
+    int k = b->recent[j];
+    if (memcmp(b->corners[j][k].lo, b->lo, sizeof b->lo) != 0) /* the other one, or older */
+        k = !k;
+    b->recent[j] = (unsigned char)k;
+    vl_corner_values *cv = &b->corners[j][k];
+    if (memcmp(cv->lo, b->lo, sizeof cv->lo) != 0) {
         memcpy(cv->lo, b->lo, sizeof cv->lo);
+        cv->has_point = cv->has_ocean = cv->has_star = 0;
+        cv->has_surface = 0;
+    }
+    if (cv->ocean != ocean) {
         cv->ocean = ocean;
+        cv->has_ocean = cv->has_star = 0;
+        cv->has_surface = 0;
+    }
+    if (cv->teff_k != b->key.teff_k) {
         cv->teff_k = b->key.teff_k;
-        cv->mask = 0;
+        cv->has_star = 0;
     }
     return cv;
 }
 
-/* Fill grid point j from the nodes around the state (each node point's values computed
- * once for as long as corners_at keeps them; the sum in corner order as always). */
+/* The node point of corner c at grid point j and its ln f_strat; NULL when out of
+ * memory. */
+static const vl_column_point *corner_point(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la,
+                                           vl_corner_values *cv, int j, int c)
+{
+    if (cv->has_point >> c & 1)
+        return cv->point[c];
+    int idx[VL_CT_NDIM];
+    for (int d = 0; d < VL_CT_NDIM; d++)
+        idx[d] = b->lo[d] + (c >> d & 1);
+    const vl_column_point *p = vl_ctable_point(t, la, idx, j);
+    if (!p)
+        return NULL;
+    cv->point[c] = p;
+    cv->logf[c] = log(fmax(p->f_strat, 1e-30));
+    cv->has_point |= 1u << c;
+    return p;
+}
+
+/* The OLR and albedo of corner c's point p at grid point j under the ocean share
+ * cv->ocean (cloud fraction cf). */
+static void corner_values(const vl_balance *b, const vl_surface *s, vl_corner_values *cv,
+                          const vl_column_point *p, int j, int c, double cf)
+{
+    if (!(cv->has_ocean >> c & 1)) {
+        cv->olr[c] = (1.0 - cf) * p->olr[0] + cf * p->olr[1];
+        if (!s->fixed) {
+            if (!cv->has_surface)
+                vl_surface_albedo(s, cv->ocean, vl_ct_grid_t(j), cv->a);
+            cv->has_surface = 1;
+            vl_radiation_band_albedo(&p->sw[0], cv->a, cv->g[c][0]);
+            vl_radiation_band_albedo(&p->sw[1], cv->a, cv->g[c][1]);
+        }
+        cv->has_ocean |= 1u << c;
+    }
+    if (!(cv->has_star >> c & 1)) {
+        cv->alb[c] = s->fixed ? s->fixed_albedo
+                              : (1.0 - cf) * vl_radiation_albedo_of(b->share, cv->a, cv->g[c][0]) +
+                                    cf * vl_radiation_albedo_of(b->share, cv->a, cv->g[c][1]);
+        cv->has_star |= 1u << c;
+    }
+}
+
+/* Fill grid point j from the nodes around the state: the node points' values weighted
+ * in corner order (each value computed as vl_radiation_albedo would, once for as long as
+ * corners_at keeps it). */
 static void ensure(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j)
 {
     if (b->have[j])
         return;
-    double ocean = ocean_left(b, vl_ct_grid_t(j));
+    double ocean = ocean_left(b, vl_ct_grid_t(j)), cf = ocean * s->cloud_fraction;
     vl_corner_values *cv = corners_at(b, j, ocean);
-    double olr = 0.0, alb = 0.0, logf = 0.0, a[VL_NBANDS];
-    int have_a = 0;
+    double olr = 0.0, alb = 0.0, logf = 0.0;
     for (int c = 0; c < VL_BALANCE_CORNERS; c++) {
         double w = 1.0;
         for (int d = 0; d < VL_CT_NDIM; d++)
             w *= c >> d & 1 ? b->w[d] : 1.0 - b->w[d];
         if (w == 0.0)
             continue;
-        if (!(cv->mask >> c & 1)) {
-            int idx[VL_CT_NDIM];
-            for (int d = 0; d < VL_CT_NDIM; d++)
-                idx[d] = b->lo[d] + (c >> d & 1);
-            const vl_column_point *p = vl_ctable_point(t, la, idx, j);
-            if (!p) {
-                b->oom = 1;
-                continue;
-            }
-            if (!have_a && !s->fixed) /* the surface's: the same for every corner */
-                vl_surface_albedo(s, ocean, vl_ct_grid_t(j), a);
-            have_a = 1;
-            point_values(s, p, ocean, b->share, a, cv->v[c]);
-            cv->mask |= 1u << c;
+        const vl_column_point *p = corner_point(b, t, la, cv, j, c);
+        if (!p) {
+            b->oom = 1;
+            continue;
         }
-        olr += w * cv->v[c][0];
-        alb += w * cv->v[c][1];
-        logf += w * cv->v[c][2];
+        corner_values(b, s, cv, p, j, c, cf);
+        olr += w * cv->olr[c];
+        alb += w * cv->alb[c];
+        logf += w * cv->logf[c];
     }
     b->olr[j] = olr;
     b->alb[j] = alb;

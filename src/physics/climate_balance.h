@@ -31,16 +31,21 @@ typedef struct vl_balance_key {
     int wet;                   /* 1: the surface holds an ocean (or its ice) and clouds form */
 } vl_balance_key;
 
-/* The values (OLR, albedo, ln f_strat) of the node points around a state at one grid
- * temperature, kept from one balance to the next while what they depend on is exactly
- * the same: the lower corner, the ocean left at that temperature and the star's
- * temperature (the surface and the table are the model's). */
+/* What the node points around a state give at one grid temperature, kept from one
+ * balance to the next while what each part depends on is exactly the same (the surface
+ * and the table are the model's): the points and their ln f_strat on the lower corner;
+ * the surface's band albedos, each point's OLR and band albedos also on the ocean left
+ * at that temperature; each point's albedo also on the star's temperature. */
 #define VL_BALANCE_CORNERS (1 << VL_CT_NDIM)
 typedef struct vl_corner_values {
     int lo[VL_CT_NDIM];
     double ocean, teff_k;
-    unsigned mask;             /* corners (bit c) whose values are held */
-    double v[VL_BALANCE_CORNERS][3];
+    unsigned has_point, has_ocean, has_star; /* corners (bit c) holding each part */
+    int has_surface;
+    double a[VL_NBANDS];       /* the surface's band albedos */
+    const vl_column_point *point[VL_BALANCE_CORNERS];
+    double logf[VL_BALANCE_CORNERS], olr[VL_BALANCE_CORNERS], alb[VL_BALANCE_CORNERS];
+    double g[VL_BALANCE_CORNERS][2][VL_NSW]; /* band albedos: clear, cloudy */
 } vl_corner_values;
 
 /* A balance: cached values on the grid and the last root of each branch. */
@@ -58,7 +63,10 @@ typedef struct vl_balance {
     double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
     double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
     int oom;                   /* a point could not be computed */
-    vl_corner_values corners[VL_CT_NT]; /* per grid temperature, across keys */
+    /* per grid temperature, across keys: two lower corners (the two passes of the
+     * ocean's CO2 split may straddle a node) */
+    vl_corner_values corners[VL_CT_NT][2];
+    unsigned char recent[VL_CT_NT];        /* which of the two was used last */
 } vl_balance;
 
 /* Prepare b for key (keeping cached values when the key is unchanged). */
