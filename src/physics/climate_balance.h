@@ -58,9 +58,15 @@ typedef struct vl_balance {
     double share[VL_NBANDS];   /* the star's band shares */
     unsigned char have[VL_CT_NT];
     double olr[VL_CT_NT], alb[VL_CT_NT], logf[VL_CT_NT];
+    /* the limits, read through vl_limits_* (computed when first needed) */
     double t_cond;             /* where the surface water has all evaporated, K */
     double t_hot;              /* where the hot (runaway) branch begins, K */
     double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
+    double g;                  /* surface gravity, m/s^2 */
+    unsigned known;            /* which limits are computed */
+    double cond_above;         /* t_cond is known to lie above this (-inf: nothing known) */
+    double floor_below;        /* t_floor is known to lie below this (+inf: nothing known) */
+    double hot_above;          /* t_hot is known to lie above this (-inf: nothing known) */
     double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
     int oom;                   /* a point could not be computed */
     /* per grid temperature, across keys: two lower corners (the two passes of the
@@ -105,6 +111,18 @@ double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const 
  * (where a pure steam column's outgoing radiation reaches its limit) and not above the
  * temperature at which the surface water has all evaporated. */
 #define VL_STEAM_FLOOR_K 350.0
+
+/* The limits of balance b (climate_limits.c), computed when first asked for: where its
+ * surface water has all evaporated (t_cond), where its hot branch begins (t_hot) and
+ * its floor (t_floor); and, as exactly as comparing with them would say, whether
+ * t_cond > x, t_hot > x and t_floor < x, settled by a probe where a margin allows. */
+void vl_limits_reset(vl_balance *b, double g);
+double vl_limits_t_cond(vl_balance *b);
+double vl_limits_t_hot(vl_balance *b);
+double vl_limits_t_floor(vl_balance *b);
+int vl_limits_cond_above(vl_balance *b, double x);
+int vl_limits_floor_below(vl_balance *b, double x);
+int vl_limits_hot_above(vl_balance *b, double x);
 
 /* Surface band albedos at temperature t; ocean (0..1): how much of a wet planet's ocean
  * is there (0: a dry planet's rock). */
