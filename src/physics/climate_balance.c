@@ -50,6 +50,12 @@ void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double s
     b->key = *key;
     for (int d = 0; d < VL_CT_NDIM; d++)
         vl_ct_bracket(d, key->p[d], &b->lo[d], &b->w[d]);
+    for (int c = 0; c < 1 << VL_CT_NDIM; c++) {
+        double w = 1.0;
+        for (int d = 0; d < VL_CT_NDIM; d++)
+            w *= c >> d & 1 ? b->w[d] : 1.0 - b->w[d];
+        b->wc[c] = w;
+    }
     if (!same_star)
         vl_star_band_shares(key->teff_k, b->share);
     memset(b->have, 0, sizeof b->have);
@@ -152,9 +158,7 @@ static void ensure(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_su
     vl_corner_values *cv = corners_at(b, j, ocean);
     double olr = 0.0, alb = 0.0, logf = 0.0;
     for (int c = 0; c < VL_BALANCE_CORNERS; c++) {
-        double w = 1.0;
-        for (int d = 0; d < VL_CT_NDIM; d++)
-            w *= c >> d & 1 ? b->w[d] : 1.0 - b->w[d];
+        double w = b->wc[c];
         if (w == 0.0)
             continue;
         const vl_column_point *p = corner_point(b, t, la, cv, j, c);

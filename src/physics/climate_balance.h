@@ -55,6 +55,7 @@ typedef struct vl_balance {
     int valid;
     int lo[VL_CT_NDIM];        /* lower corner */
     double w[VL_CT_NDIM];      /* weight of the upper corner */
+    double wc[1 << VL_CT_NDIM]; /* weight of corner c (bit d: upper along d) */
     double share[VL_NBANDS];   /* the star's band shares */
     unsigned char have[VL_CT_NT];
     double olr[VL_CT_NT], alb[VL_CT_NT], logf[VL_CT_NT];
