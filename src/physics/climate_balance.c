@@ -327,7 +327,7 @@ static double refine(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_
 }
 
 /* A branch's range [lo, hi) as the root search reads it: branch_range's (exact), or,
- * for the cold and warm branches until a question needs the limits themselves, its
+ * for all but the hot branch until a question needs the limits themselves, its
  * definition asked about through vl_limits_cond_above and vl_limits_floor_below (the
  * same answers, mostly without computing the limits). */
 typedef struct {
@@ -350,6 +350,8 @@ static int range_open(vl_balance *b, range *rg)
 {
     if (rg->br == VL_BRANCH_COLD) /* lo = t_floor, hi = split + OVERLAP_K above it */
         return vl_limits_floor_below(b, rg->split_k + OVERLAP_K);
+    if (rg->br == VL_BRANCH_ANY) /* lo = t_floor, at most CO2's critical point < T_MAX */
+        return 1;
     if (rg->br == VL_BRANCH_WARM && rg->split_k - OVERLAP_K < HOT_MIN &&
         vl_limits_floor_below(b, HOT_MIN) && vl_limits_cond_above(b, VL_STEAM_FLOOR_K))
         return 1; /* lo = max(split - OVERLAP_K, t_floor) < HOT_MIN <= hi */
@@ -369,6 +371,8 @@ static int in_range(vl_balance *b, range *rg, double r)
         return 0;
     if (rg->br == VL_BRANCH_COLD)
         return r < rg->split_k + OVERLAP_K;
+    if (rg->br == VL_BRANCH_ANY)
+        return r < T_MAX;
     /* r < t_hot + OVERLAP_K: sure if t_hot lies above r - OVERLAP_K by more than the
      * sum's rounding */
     if (vl_limits_hot_above(b, r - OVERLAP_K + 1e-6))

@@ -97,6 +97,15 @@ double vl_limits_t_hot(vl_balance *b)
     return b->t_hot;
 }
 
+/* 1 if CO2's saturation pressure exceeds p (0 < p < the critical pressure) by the margin
+ * at x - NUDGE (x - NUDGE above vl_co2_tsat's lower end, 20 K): vl_co2_tsat's bisection
+ * then keeps its upper end at every step at or above that temperature, so its result
+ * lies below x (below VL_CO2_TC_K if x is above that). */
+static int co2_frost_below(double p, double x)
+{
+    return p < VL_CO2_PC_PA && x - NUDGE > 20.0 && vl_co2_psat(x - NUDGE) > p * (1.0 + MARGIN);
+}
+
 double vl_limits_t_floor(vl_balance *b)
 {
     if (!(b->known & KNOW_FLOOR)) {
@@ -104,7 +113,7 @@ double vl_limits_t_floor(vl_balance *b)
         /* a surface colder than CO2's frost point at its partial pressure would take the
          * air's CO2 as ice: the surface is held there by the latent heat (atmospheric
          * collapse itself is not modelled; docs/model.md section 3) */
-        b->t_floor = p > 0.0 ? fmax(T_MIN, vl_co2_tsat(p)) : T_MIN;
+        b->t_floor = p > 0.0 && !co2_frost_below(p, T_MIN) ? fmax(T_MIN, vl_co2_tsat(p)) : T_MIN;
         b->known |= KNOW_FLOOR;
     }
     return b->t_floor;
@@ -144,10 +153,7 @@ int vl_limits_floor_below(vl_balance *b, double x)
         return vl_limits_t_floor(b) < x; /* the cheap cases, or no room for a probe */
     if (x >= b->floor_below)
         return 1;
-    /* CO2's saturation pressure above p by the margin at x - NUDGE: vl_co2_tsat's
-     * bisection keeps its upper end at every step at or above that temperature, so its
-     * result lies below x (below VL_CO2_TC_K if it is above that) */
-    if (vl_co2_psat(x - NUDGE) > p * (1.0 + MARGIN)) {
+    if (co2_frost_below(p, x)) {
         b->floor_below = x;
         return 1;
     }
