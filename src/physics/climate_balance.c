@@ -303,9 +303,10 @@ static double cell_net(const vl_balance *b, const cell_curve *cc, double temp)
 
 /* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve: 40
  * halvings of the cell (4.5e-12 K on a 5 K cell). The curve's cubic is evaluated from
- * the cell's coefficients (cell_net), about 40 operations a halving; a Newton or Brent
- * iteration (GSL's fsolvers included) would take fewer evaluations but land on another
- * last bit of the root, and at this cost per evaluation it would save nothing worth it. */
+ * the cell's coefficients (cell_net), about 40 instructions a halving. A Newton or Brent
+ * iteration (GSL's fsolvers included) takes fewer evaluations but lands on other last
+ * bits of the root, and the bundled histories move far more than that for it
+ * (docs/performance.md section 9). */
 static double refine(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                      int j)
 {
