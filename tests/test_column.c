@@ -75,6 +75,13 @@ START_TEST(co2_saturation)
     /* the inverse (common practice: a round trip within 1 mK) */
     for (double t = 150.0; t < 304.0; t += 7.0)
         ck_assert_msg(fabs(vl_co2_tsat(vl_co2_psat(t)) - t) < 1e-3, "T = %g", t);
+    /* and exact to the last nanokelvin, over the solid and the liquid (common practice:
+     * the root of a monotonic function lies between points where it is below and above;
+     * a halving decided the wrong way ends far from it) */
+    for (double p = 1e-3; p < 7e6; p *= 1.7) {
+        double t = vl_co2_tsat(p);
+        ck_assert_msg(vl_co2_psat(t - 1e-9) < p && vl_co2_psat(t + 1e-9) > p, "p = %g", p);
+    }
 }
 END_TEST
 

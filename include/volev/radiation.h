@@ -58,4 +58,13 @@ void vl_radiation_eval(const vl_opacity_scales *s, const vl_profile *pr, double 
 double vl_radiation_albedo(const vl_starlight *sl, const double share[VL_NBANDS],
                            const double a[VL_NBANDS]);
 
+/* The two halves of vl_radiation_albedo, for callers that keep the first while the
+ * star changes: the albedo of sl over a surface of band albedos a[] in each band from
+ * VL_SW_FIRST on (g[VL_NSW]); and the albedo for band shares share[] from a[] and g[]
+ * (bit for bit what vl_radiation_albedo gives). */
+void vl_radiation_band_albedo(const vl_starlight *sl, const double a[VL_NBANDS],
+                              double g[VL_NSW]);
+double vl_radiation_albedo_of(const double share[VL_NBANDS], const double a[VL_NBANDS],
+                              const double g[VL_NSW]);
+
 #endif

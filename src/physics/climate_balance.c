@@ -41,45 +41,6 @@ void vl_surface_albedo(const vl_surface *s, double ocean, double t, double a[VL_
     }
 }
 
-/* Where the surface water has all gone into the air: the saturated vapour reaches the
- * inventory (bisection), at most the critical point. */
-static double condensation_limit(const vl_balance_key *k, double g)
-{
-    vl_column_gases gs = {k->p[VL_CT_CO2] / g, k->p[VL_CT_BG] / g, k->p[VL_CT_H2] / g,
-                          k->p[VL_CT_WATER] / g};
-    double lo = T_MIN, hi = VL_WATER_TC_K;
-    if (!(vl_profile_vapour(&gs, g, hi) >= gs.water * (1.0 - 1e-12)))
-        return hi;
-    if (vl_profile_vapour(&gs, g, lo) >= gs.water * (1.0 - 1e-12))
-        return lo;
-    for (int i = 0; i < 50; i++) {
-        double mid = 0.5 * (lo + hi);
-        if (vl_profile_vapour(&gs, g, mid) >= gs.water * (1.0 - 1e-12))
-            hi = mid;
-        else
-            lo = mid;
-    }
-    return hi;
-}
-
-/* The steam point: where p_sat(T) equals the dry gases' pressure (bisection; the
- * critical point at most). */
-static double steam_point(const vl_balance_key *k)
-{
-    double p_dry = k->p[VL_CT_CO2] + k->p[VL_CT_BG] + k->p[VL_CT_H2];
-    double lo = T_MIN, hi = VL_WATER_TC_K;
-    if (vl_water_psat(hi * (1.0 - 1e-12)) <= p_dry)
-        return hi;
-    for (int i = 0; i < 50; i++) {
-        double mid = 0.5 * (lo + hi);
-        if (vl_water_psat(mid) < p_dry)
-            lo = mid;
-        else
-            hi = mid;
-    }
-    return hi;
-}
-
 void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double split_k)
 {
     (void)split_k;
@@ -89,69 +50,126 @@ void vl_balance_set(vl_balance *b, const vl_balance_key *key, double g, double s
     b->key = *key;
     for (int d = 0; d < VL_CT_NDIM; d++)
         vl_ct_bracket(d, key->p[d], &b->lo[d], &b->w[d]);
+    for (int c = 0; c < 1 << VL_CT_NDIM; c++) {
+        double w = 1.0;
+        for (int d = 0; d < VL_CT_NDIM; d++)
+            w *= c >> d & 1 ? b->w[d] : 1.0 - b->w[d];
+        b->wc[c] = w;
+    }
     if (!same_star)
         vl_star_band_shares(key->teff_k, b->share);
     memset(b->have, 0, sizeof b->have);
-    b->t_cond = condensation_limit(key, g);
-    b->t_hot = fmin(fmax(steam_point(key), VL_STEAM_FLOOR_K), b->t_cond);
-    /* a surface colder than CO2's frost point at its partial pressure would take the
-     * air's CO2 as ice: the surface is held there by the latent heat (atmospheric
-     * collapse itself is not modelled; docs/model.md section 3) */
-    b->t_floor = key->p[VL_CT_CO2] > 0.0 ? fmax(T_MIN, vl_co2_tsat(key->p[VL_CT_CO2])) : T_MIN;
+    vl_limits_reset(b, g);
     b->valid = 1;
 }
 
 /* How much of a wet planet's ocean is left at t: 1 below the temperature at which it
  * has all evaporated, 0 above, a 10 K smoothstep in between (the surface turns from
  * sea to rock, and the clouds that the ocean feeds go). */
-static double ocean_left(const vl_balance *b, double t)
+static double ocean_left(vl_balance *b, double t)
 {
-    return b->key.wet ? 1.0 - vl_smoothstep(t, b->t_cond - 10.0, b->t_cond) : 0.0;
+    if (!b->key.wet)
+        return 0.0;
+    /* t below the ramp by more than its rounding: the smoothstep is 0 */
+    if (vl_limits_cond_above(b, t + 10.0 + 1e-6))
+        return 1.0;
+    double t_cond = vl_limits_t_cond(b);
+    return 1.0 - vl_smoothstep(t, t_cond - 10.0, t_cond);
 }
 
-/* The values of one node point at grid temperature j. */
-static void point_values(const vl_balance *b, const vl_surface *s, const vl_column_point *p,
-                         int j, double *olr, double *alb, double *logf)
+/* The corner values of grid point j (of the two kept, the one made for the same lower
+ * corner, else the older one), each part emptied unless it was made for the same lower
+ * corner, ocean share and star. */
+static vl_corner_values *corners_at(vl_balance *b, int j, double ocean)
 {
-    double ocean = ocean_left(b, vl_ct_grid_t(j)), cf = ocean * s->cloud_fraction;
-    *olr = (1.0 - cf) * p->olr[0] + cf * p->olr[1];
-    if (s->fixed) {
-        *alb = s->fixed_albedo;
-    } else {
-        double a[VL_NBANDS];
-        vl_surface_albedo(s, ocean, vl_ct_grid_t(j), a);
-        *alb = (1.0 - cf) * vl_radiation_albedo(&p->sw[0], b->share, a) +
-               cf * vl_radiation_albedo(&p->sw[1], b->share, a);
+    int k = b->recent[j];
+    if (memcmp(b->corners[j][k].lo, b->lo, sizeof b->lo) != 0) /* the other one, or older */
+        k = !k;
+    b->recent[j] = (unsigned char)k;
+    vl_corner_values *cv = &b->corners[j][k];
+    if (memcmp(cv->lo, b->lo, sizeof cv->lo) != 0) {
+        memcpy(cv->lo, b->lo, sizeof cv->lo);
+        cv->has_point = cv->has_ocean = cv->has_star = 0;
+        cv->has_surface = 0;
     }
-    *logf = log(fmax(p->f_strat, 1e-30));
+    if (cv->ocean != ocean) {
+        cv->ocean = ocean;
+        cv->has_ocean = cv->has_star = 0;
+        cv->has_surface = 0;
+    }
+    if (cv->teff_k != b->key.teff_k) {
+        cv->teff_k = b->key.teff_k;
+        cv->has_star = 0;
+    }
+    return cv;
 }
 
-/* Fill grid point j from the nodes around the state. */
+/* The node point of corner c at grid point j and its ln f_strat; NULL when out of
+ * memory. */
+static const vl_column_point *corner_point(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la,
+                                           vl_corner_values *cv, int j, int c)
+{
+    if (cv->has_point >> c & 1)
+        return cv->point[c];
+    int idx[VL_CT_NDIM];
+    for (int d = 0; d < VL_CT_NDIM; d++)
+        idx[d] = b->lo[d] + (c >> d & 1);
+    const vl_column_point *p = vl_ctable_point(t, la, idx, j);
+    if (!p)
+        return NULL;
+    cv->point[c] = p;
+    cv->logf[c] = log(fmax(p->f_strat, 1e-30));
+    cv->has_point |= 1u << c;
+    return p;
+}
+
+/* The OLR and albedo of corner c's point p at grid point j under the ocean share
+ * cv->ocean (cloud fraction cf). */
+static void corner_values(const vl_balance *b, const vl_surface *s, vl_corner_values *cv,
+                          const vl_column_point *p, int j, int c, double cf)
+{
+    if (!(cv->has_ocean >> c & 1)) {
+        cv->olr[c] = (1.0 - cf) * p->olr[0] + cf * p->olr[1];
+        if (!s->fixed) {
+            if (!cv->has_surface)
+                vl_surface_albedo(s, cv->ocean, vl_ct_grid_t(j), cv->a);
+            cv->has_surface = 1;
+            vl_radiation_band_albedo(&p->sw[0], cv->a, cv->g[c][0]);
+            vl_radiation_band_albedo(&p->sw[1], cv->a, cv->g[c][1]);
+        }
+        cv->has_ocean |= 1u << c;
+    }
+    if (!(cv->has_star >> c & 1)) {
+        cv->alb[c] = s->fixed ? s->fixed_albedo
+                              : (1.0 - cf) * vl_radiation_albedo_of(b->share, cv->a, cv->g[c][0]) +
+                                    cf * vl_radiation_albedo_of(b->share, cv->a, cv->g[c][1]);
+        cv->has_star |= 1u << c;
+    }
+}
+
+/* Fill grid point j from the nodes around the state: the node points' values weighted
+ * in corner order (each value computed as vl_radiation_albedo would, once for as long as
+ * corners_at keeps it). */
 static void ensure(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s, int j)
 {
     if (b->have[j])
         return;
+    double ocean = ocean_left(b, vl_ct_grid_t(j)), cf = ocean * s->cloud_fraction;
+    vl_corner_values *cv = corners_at(b, j, ocean);
     double olr = 0.0, alb = 0.0, logf = 0.0;
-    for (int c = 0; c < 1 << VL_CT_NDIM; c++) {
-        int idx[VL_CT_NDIM];
-        double w = 1.0;
-        for (int d = 0; d < VL_CT_NDIM; d++) {
-            int hi = c >> d & 1;
-            w *= hi ? b->w[d] : 1.0 - b->w[d];
-            idx[d] = b->lo[d] + hi;
-        }
+    for (int c = 0; c < VL_BALANCE_CORNERS; c++) {
+        double w = b->wc[c];
         if (w == 0.0)
             continue;
-        const vl_column_point *p = vl_ctable_point(t, la, idx, j);
+        const vl_column_point *p = corner_point(b, t, la, cv, j, c);
         if (!p) {
             b->oom = 1;
             continue;
         }
-        double o, a, f;
-        point_values(b, s, p, j, &o, &a, &f);
-        olr += w * o;
-        alb += w * a;
-        logf += w * f;
+        corner_values(b, s, cv, p, j, c, cf);
+        olr += w * cv->olr[c];
+        alb += w * cv->alb[c];
+        logf += w * cv->logf[c];
     }
     b->olr[j] = olr;
     b->alb[j] = alb;
@@ -224,7 +242,7 @@ double vl_balance_net(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl
 /* ------------------------------------------------------------------ roots */
 
 /* Temperature range of branch br. */
-static void branch_range(const vl_balance *b, int br, double split_k, double *lo, double *hi)
+static void branch_range(vl_balance *b, int br, double split_k, double *lo, double *hi)
 {
     /* neighbouring branches overlap by 2 OVERLAP_K around their boundary (the cold and
      * warm ones around the split, the warm and hot ones around the steam point), so that
@@ -232,24 +250,76 @@ static void branch_range(const vl_balance *b, int br, double split_k, double *lo
      * (hysteresis: no chattering of freeze and thaw, or of runaway onset and end, where
      * an equilibrium sits on the boundary) */
     *lo = br == VL_BRANCH_WARM  ? split_k - OVERLAP_K
-          : br == VL_BRANCH_HOT ? b->t_hot - OVERLAP_K
-                                : b->t_floor;
+          : br == VL_BRANCH_HOT ? vl_limits_t_hot(b) - OVERLAP_K
+                                : vl_limits_t_floor(b);
     *hi = br == VL_BRANCH_COLD   ? split_k + OVERLAP_K
-          : br == VL_BRANCH_WARM ? b->t_hot + OVERLAP_K
+          : br == VL_BRANCH_WARM ? vl_limits_t_hot(b) + OVERLAP_K
                                  : T_MAX;
-    *lo = fmax(*lo, b->t_floor);
+    *lo = fmax(*lo, vl_limits_t_floor(b));
     if (*hi < *lo)
         *hi = *lo;
 }
 
-/* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve. */
+/* The Hermite curves of OLR and albedo on grid cell j, with everything hermite() reads
+ * from the grid and the series computed once (the same grid points ensured). */
+typedef struct {
+    int j;
+    double t0, h;
+    double olr[4], alb[4]; /* v[j], slope(v, j), v[j + 1], slope(v, j + 1) */
+} cell_curve;
+
+static void cell_curve_of(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                          int j, cell_curve *cc)
+{
+    for (int k = j - 1; k <= j + 2; k++)
+        if (k >= 0 && k < VL_CT_NT)
+            ensure(b, t, la, s, k);
+    cc->j = j;
+    cc->t0 = vl_ct_grid_t(j);
+    cc->h = vl_ct_grid_t(j + 1) - cc->t0;
+    const double *v[2] = {b->olr, b->alb};
+    double *out[2] = {cc->olr, cc->alb};
+    for (int i = 0; i < 2; i++) {
+        out[i][0] = v[i][j];
+        out[i][1] = slope(v[i], j);
+        out[i][2] = v[i][j + 1];
+        out[i][3] = slope(v[i], j + 1);
+    }
+}
+
+/* vl_balance_net at temp inside cell cc->j: the same operations in the same order as
+ * hermite(), so the same value to the bit, without the grid look-ups. */
+static double cell_net(const vl_balance *b, const cell_curve *cc, double temp)
+{
+    double h = cc->h, u = (temp - cc->t0) / h;
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    double h00 = (1.0 + 2.0 * u) * (1.0 - u) * (1.0 - u), h10 = u * (1.0 - u) * (1.0 - u);
+    double h01 = u * u * (3.0 - 2.0 * u), h11 = u * u * (u - 1.0);
+    const double *a = cc->alb, *o = cc->olr;
+    double alb = h00 * a[0] + h10 * h * a[1] + h01 * a[2] + h11 * h * a[3];
+    double olr = h00 * o[0] + h10 * h * o[1] + h01 * o[2] + h11 * h * o[3];
+    return b->key.instellation * (1.0 - alb) / 4.0 - olr;
+}
+
+/* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve: 40
+ * halvings of the cell (4.5e-12 K on a 5 K cell). The curve's cubic is evaluated from
+ * the cell's coefficients (cell_net), about 40 instructions a halving. A Newton or Brent
+ * iteration (GSL's fsolvers included) takes fewer evaluations but lands on other last
+ * bits of the root, and the bundled histories move far more than that for it
+ * (docs/performance.md section 9). */
 static double refine(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                      int j)
 {
+    cell_curve cc;
+    cell_curve_of(b, t, la, s, j, &cc);
     double lo = vl_ct_grid_t(j), hi = vl_ct_grid_t(j + 1);
     for (int i = 0; i < 40; i++) {
         double mid = 0.5 * (lo + hi);
-        if (vl_balance_net(b, t, la, s, mid) > 0.0)
+        /* mid lies strictly inside cell j, so hermite() would use cell j as well; the
+         * check keeps that true by construction, not by argument */
+        double n = (int)vl_ct_grid_index(mid) == j ? cell_net(b, &cc, mid)
+                                                    : vl_balance_net(b, t, la, s, mid);
+        if (n > 0.0)
             lo = mid;
         else
             hi = mid;
@@ -257,16 +327,70 @@ static double refine(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_
     return 0.5 * (lo + hi);
 }
 
-/* 1 and the root if cell j holds a stable crossing whose root lies in [lo, hi). */
+/* A branch's range [lo, hi) as the root search reads it: branch_range's (exact), or,
+ * for all but the hot branch until a question needs the limits themselves, its
+ * definition asked about through vl_limits_cond_above and vl_limits_floor_below (the
+ * same answers, mostly without computing the limits). */
+typedef struct {
+    int br, exact;
+    double split_k, lo, hi;
+} range;
+
+#define HOT_MIN (VL_STEAM_FLOOR_K + OVERLAP_K) /* the warm branch's hi is at least this
+                                                * while t_cond is above the steam floor */
+
+static void range_exact(vl_balance *b, range *rg)
+{
+    if (!rg->exact)
+        branch_range(b, rg->br, rg->split_k, &rg->lo, &rg->hi);
+    rg->exact = 1;
+}
+
+/* Whether the range is not empty (hi > lo). */
+static int range_open(vl_balance *b, range *rg)
+{
+    if (rg->br == VL_BRANCH_COLD) /* lo = t_floor, hi = split + OVERLAP_K above it */
+        return vl_limits_floor_below(b, rg->split_k + OVERLAP_K);
+    if (rg->br == VL_BRANCH_ANY) /* lo = t_floor, at most CO2's critical point < T_MAX */
+        return 1;
+    if (rg->br == VL_BRANCH_WARM && rg->split_k - OVERLAP_K < HOT_MIN &&
+        vl_limits_floor_below(b, HOT_MIN) && vl_limits_cond_above(b, VL_STEAM_FLOOR_K))
+        return 1; /* lo = max(split - OVERLAP_K, t_floor) < HOT_MIN <= hi */
+    range_exact(b, rg);
+    return rg->hi > rg->lo;
+}
+
+/* Whether r lies in the range: r >= max(lower candidate, t_floor) and r below the upper
+ * end (branch_range's hi = max(upper end, lo) adds nothing for an r at or above lo). */
+static int in_range(vl_balance *b, range *rg, double r)
+{
+    if (rg->exact)
+        return !(r < rg->lo || r >= rg->hi);
+    if (rg->br == VL_BRANCH_WARM && !(r >= rg->split_k - OVERLAP_K))
+        return 0;
+    if (!vl_limits_floor_below(b, r) && r < vl_limits_t_floor(b))
+        return 0;
+    if (rg->br == VL_BRANCH_COLD)
+        return r < rg->split_k + OVERLAP_K;
+    if (rg->br == VL_BRANCH_ANY)
+        return r < T_MAX;
+    /* r < t_hot + OVERLAP_K: sure if t_hot lies above r - OVERLAP_K by more than the
+     * sum's rounding */
+    if (vl_limits_hot_above(b, r - OVERLAP_K + 1e-6))
+        return 1;
+    return r < vl_limits_t_hot(b) + OVERLAP_K;
+}
+
+/* 1 and the root if cell j holds a stable crossing whose root lies in the range. */
 static int cell_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
-                     int j, double lo, double hi, double *root)
+                     int j, range *rg, double *root)
 {
     if (j < 0 || j >= VL_CT_NT - 1)
         return 0;
     if (!(net_at(b, t, la, s, j) > 0.0 && net_at(b, t, la, s, j + 1) <= 0.0))
         return 0;
     double r = refine(b, t, la, s, j);
-    if (r < lo || r >= hi)
+    if (!in_range(b, rg, r))
         return 0;
     *root = r;
     return 1;
@@ -275,9 +399,10 @@ static int cell_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_
 /* Whole-range scan: samples every STRIDE grid points, each falling sign change narrowed
  * by bisection over grid points; the root nearest prefer. */
 static int scan(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
-                double lo, double hi, double prefer, double *root)
+                range *rg, double prefer, double *root)
 {
-    int j0 = (int)vl_ct_grid_index(lo), j1 = (int)ceil(vl_ct_grid_index(hi));
+    range_exact(b, rg);
+    int j0 = (int)vl_ct_grid_index(rg->lo), j1 = (int)ceil(vl_ct_grid_index(rg->hi));
     int found = 0, prev = j0;
     double best = 0.0;
     for (int j = j0 + STRIDE;; j += STRIDE) {
@@ -294,7 +419,7 @@ static int scan(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surfa
                     c = m;
             }
             double r;
-            if (cell_root(b, t, la, s, a, lo, hi, &r) &&
+            if (cell_root(b, t, la, s, a, rg, &r) &&
                 (!found || fabs(r - prefer) < fabs(best - prefer))) {
                 best = r;
                 found = 1;
@@ -310,14 +435,15 @@ static int scan(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surfa
 }
 
 /* Where a branch without history starts looking. */
-static double default_start(int br, const vl_balance *b, double split_k)
+static double default_start(int br, vl_balance *b, double split_k)
 {
     if (br == VL_BRANCH_COLD)
         return fmin(220.0, split_k - 1.0);
     if (br == VL_BRANCH_WARM)
-        return fmax(288.0, split_k + 1.0) < b->t_cond ? fmax(288.0, split_k + 1.0) : split_k;
+        return vl_limits_cond_above(b, fmax(288.0, split_k + 1.0)) ? fmax(288.0, split_k + 1.0)
+                                                                   : split_k;
     if (br == VL_BRANCH_HOT)
-        return b->t_hot;
+        return vl_limits_t_hot(b);
     /* any: the radiative equilibrium of a grey planet with albedo 0.3 */
     return pow(b->key.instellation * 0.7 / (4.0 * 5.670374419e-8), 0.25);
 }
@@ -325,21 +451,20 @@ static double default_start(int br, const vl_balance *b, double split_k)
 int vl_balance_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                     int br, double split_k, double *root_k)
 {
-    double lo, hi;
-    branch_range(b, br, split_k, &lo, &hi);
-    if (!(hi > lo))
+    range rg = {br, 0, split_k, 0.0, 0.0};
+    if (!range_open(b, &rg))
         return 0;
     double start = b->last[br] > 0.0 ? b->last[br] : default_start(br, b, split_k);
     int c0 = (int)vl_ct_grid_index(start);
     for (int d = 0; d <= WINDOW; d++)
         for (int sgn = 0; sgn < (d ? 2 : 1); sgn++) {
             double r;
-            if (cell_root(b, t, la, s, sgn ? c0 - d : c0 + d, lo, hi, &r)) {
+            if (cell_root(b, t, la, s, sgn ? c0 - d : c0 + d, &rg, &r)) {
                 b->last[br] = *root_k = r;
                 return 1;
             }
         }
-    if (!scan(b, t, la, s, lo, hi, start, root_k))
+    if (!scan(b, t, la, s, &rg, start, root_k))
         return 0;
     b->last[br] = *root_k;
     return 1;
@@ -362,7 +487,7 @@ static int closer(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_sur
 int vl_balance_below_floor(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la,
                            const vl_surface *s)
 {
-    return vl_balance_net(b, t, la, s, b->t_floor) < 0.0;
+    return vl_balance_net(b, t, la, s, vl_limits_t_floor(b)) < 0.0;
 }
 
 double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
@@ -372,7 +497,7 @@ double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const 
     branch_range(b, br, split_k, &lo, &hi);
     /* colder than any balance: the surface sits at the floor (the low end of both) */
     if ((br == VL_BRANCH_COLD || br == VL_BRANCH_ANY) && vl_balance_below_floor(b, t, la, s))
-        return b->t_floor;
+        return vl_limits_t_floor(b);
     /* hotter than any balance: the surface sits at the grid's top (3000 K; hotter
      * surfaces are outside the column's range, docs/model.md section 3) */
     if ((br == VL_BRANCH_HOT || br == VL_BRANCH_ANY) && hi >= T_MAX &&

@@ -31,6 +31,23 @@ typedef struct vl_balance_key {
     int wet;                   /* 1: the surface holds an ocean (or its ice) and clouds form */
 } vl_balance_key;
 
+/* What the node points around a state give at one grid temperature, kept from one
+ * balance to the next while what each part depends on is exactly the same (the surface
+ * and the table are the model's): the points and their ln f_strat on the lower corner;
+ * the surface's band albedos, each point's OLR and band albedos also on the ocean left
+ * at that temperature; each point's albedo also on the star's temperature. */
+#define VL_BALANCE_CORNERS (1 << VL_CT_NDIM)
+typedef struct vl_corner_values {
+    int lo[VL_CT_NDIM];
+    double ocean, teff_k;
+    unsigned has_point, has_ocean, has_star; /* corners (bit c) holding each part */
+    int has_surface;
+    double a[VL_NBANDS];       /* the surface's band albedos */
+    const vl_column_point *point[VL_BALANCE_CORNERS];
+    double logf[VL_BALANCE_CORNERS], olr[VL_BALANCE_CORNERS], alb[VL_BALANCE_CORNERS];
+    double g[VL_BALANCE_CORNERS][2][VL_NSW]; /* band albedos: clear, cloudy */
+} vl_corner_values;
+
 /* A balance: cached values on the grid and the last root of each branch. */
 enum { VL_BRANCH_COLD, VL_BRANCH_WARM, VL_BRANCH_HOT, VL_BRANCH_ANY, VL_NBRANCH };
 typedef struct vl_balance {
@@ -38,14 +55,25 @@ typedef struct vl_balance {
     int valid;
     int lo[VL_CT_NDIM];        /* lower corner */
     double w[VL_CT_NDIM];      /* weight of the upper corner */
+    double wc[1 << VL_CT_NDIM]; /* weight of corner c (bit d: upper along d) */
     double share[VL_NBANDS];   /* the star's band shares */
     unsigned char have[VL_CT_NT];
     double olr[VL_CT_NT], alb[VL_CT_NT], logf[VL_CT_NT];
+    /* the limits, read through vl_limits_* (computed when first needed) */
     double t_cond;             /* where the surface water has all evaporated, K */
     double t_hot;              /* where the hot (runaway) branch begins, K */
     double t_floor;            /* the coldest surface: CO2 frost point or the grid's 150 K */
+    double g;                  /* surface gravity, m/s^2 */
+    unsigned known;            /* which limits are computed */
+    double cond_above;         /* t_cond is known to lie above this (-inf: nothing known) */
+    double floor_below;        /* t_floor is known to lie below this (+inf: nothing known) */
+    double hot_above;          /* t_hot is known to lie above this (-inf: nothing known) */
     double last[VL_NBRANCH];   /* last root temperature of each branch (0: none yet) */
     int oom;                   /* a point could not be computed */
+    /* per grid temperature, across keys: two lower corners (the two passes of the
+     * ocean's CO2 split may straddle a node) */
+    vl_corner_values corners[VL_CT_NT][2];
+    unsigned char recent[VL_CT_NT];        /* which of the two was used last */
 } vl_balance;
 
 /* Prepare b for key (keeping cached values when the key is unchanged). */
@@ -84,6 +112,18 @@ double vl_balance_ghost(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const 
  * (where a pure steam column's outgoing radiation reaches its limit) and not above the
  * temperature at which the surface water has all evaporated. */
 #define VL_STEAM_FLOOR_K 350.0
+
+/* The limits of balance b (climate_limits.c), computed when first asked for: where its
+ * surface water has all evaporated (t_cond), where its hot branch begins (t_hot) and
+ * its floor (t_floor); and, as exactly as comparing with them would say, whether
+ * t_cond > x, t_hot > x and t_floor < x, settled by a probe where a margin allows. */
+void vl_limits_reset(vl_balance *b, double g);
+double vl_limits_t_cond(vl_balance *b);
+double vl_limits_t_hot(vl_balance *b);
+double vl_limits_t_floor(vl_balance *b);
+int vl_limits_cond_above(vl_balance *b, double x);
+int vl_limits_floor_below(vl_balance *b, double x);
+int vl_limits_hot_above(vl_balance *b, double x);
 
 /* Surface band albedos at temperature t; ocean (0..1): how much of a wet planet's ocean
  * is there (0: a dry planet's rock). */

@@ -198,7 +198,7 @@ static size_t column_curve(const void *state, void *work, const vl_env *env, int
     for (int j = 0; j < VL_CT_NT; j++)
         grid[j] = vl_ct_grid_t(j);
     fill_curve(c, w, b, env, grid, VL_CT_NT, out); /* the thresholds come from the grid */
-    thresholds(c, out, VL_CT_NT, b->t_hot);
+    thresholds(c, out, VL_CT_NT, vl_limits_t_hot(b));
     if (t_k)
         fill_curve(c, w, b, env, t_k, n < VL_CURVE_MAX ? n : VL_CURVE_MAX, out);
     else

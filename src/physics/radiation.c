@@ -309,15 +309,30 @@ void vl_radiation_eval(const vl_opacity_scales *s, const vl_profile *pr, double 
     }
 }
 
-double vl_radiation_albedo(const vl_starlight *sl, const double share[VL_NBANDS],
-                           const double a[VL_NBANDS])
+void vl_radiation_band_albedo(const vl_starlight *sl, const double a[VL_NBANDS],
+                              double g[VL_NSW])
+{
+    for (int b = VL_SW_FIRST; b < VL_NBANDS; b++) {
+        int k = b - VL_SW_FIRST;
+        g[k] = sl->r[k] + sl->t2[k] * a[b] / (1.0 - a[b] * sl->rs[k]);
+    }
+}
+
+double vl_radiation_albedo_of(const double share[VL_NBANDS], const double a[VL_NBANDS],
+                              const double g[VL_NSW])
 {
     double alb = 0.0;
     for (int b = 0; b < VL_SW_FIRST; b++) /* the little starlight below: the surface alone */
         alb += share[b] * a[b];
-    for (int b = VL_SW_FIRST; b < VL_NBANDS; b++) {
-        int k = b - VL_SW_FIRST;
-        alb += share[b] * (sl->r[k] + sl->t2[k] * a[b] / (1.0 - a[b] * sl->rs[k]));
-    }
+    for (int b = VL_SW_FIRST; b < VL_NBANDS; b++)
+        alb += share[b] * g[b - VL_SW_FIRST];
     return alb;
+}
+
+double vl_radiation_albedo(const vl_starlight *sl, const double share[VL_NBANDS],
+                           const double a[VL_NBANDS])
+{
+    double g[VL_NSW];
+    vl_radiation_band_albedo(sl, a, g);
+    return vl_radiation_albedo_of(share, a, g);
 }
