@@ -67,9 +67,12 @@ int vl_events_roots(double t, N_Vector yv, double *g, void *pv)
     for (int r = 0; r < VL_NRES; r++)
         g[r] = (ode->armed >> r & 1UL) ? y[r] - vl_reservoir_floor(r) : 1.0;
     /* the regime has no continuous margin (the column climate's regime is which branches
-     * of the energy balance have a root): a sign, bracketed by CVODE on its interpolant */
+     * of the energy balance have a root): a sign, bracketed by CVODE on its interpolant;
+     * a new regime is held run.event_tolerance before it may change again, or a state
+     * that crosses a boundary both ways (the dry limit, with outgassing refilling what
+     * escape drains) would switch at every round-off of the age */
     vl_signature s = vl_events_signature(ode, t, y, ode->regime, 0, ode->g_cols);
-    g[VL_NRES] = s.regime == ode->regime ? 1.0 : -1.0;
+    g[VL_NRES] = s.regime == ode->regime || t < ode->hold_until ? 1.0 : -1.0;
     ode->g_t = t;
     memcpy(ode->g_y, y, sizeof ode->g_y);
     ode->g_valid = 1;

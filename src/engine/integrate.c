@@ -197,6 +197,7 @@ static int handle_event(runner_t *r, double t0, vl_status *st)
     if (s.regime != ode->regime && rc == VL_OK) {
         int old = ode->regime;
         ode->regime = vl_events_settle(ode, r->t, r->y, s.regime);
+        ode->hold_until = r->t + r->m->sc->run.event_tol_s;
         ode->g_valid = 0;
         rc = log_regime_change(r, r->t, old, ode->regime, st);
     }
@@ -244,6 +245,7 @@ static int run_loop(runner_t *r, vl_status *st)
     vl_redox_pools(r->y, &r->stats->redox0);
     r->ode->regime = vl_events_settle(r->ode, r->t, r->y, VL_REGIME_TEMPERATE);
     r->ode->armed = vl_events_rearm(r->y, 0);
+    r->ode->hold_until = r->t;
     int rc = emit_event(r, r->t, "start", vl_regime_name(r->ode->regime), st);
     if (rc == VL_OK)
         rc = emit_row(r, r->t, r->y, st);

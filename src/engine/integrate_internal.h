@@ -20,14 +20,15 @@
 #define VL_NROOTS (VL_NRES + 1)
 
 /* What the right-hand side and the root functions need: the model, the run's workspace,
- * the regime held fixed between events, the reservoirs watched for exhaustion; counts
- * evaluations. The last root evaluation's point and process flux columns are kept: at
+ * the regime held fixed between events (and, after a change, held at least
+ * run.event_tolerance), the reservoirs watched for exhaustion; counts evaluations. The last root evaluation's point and process flux columns are kept: at
  * the end of a step they are the channel budget's. */
 typedef struct {
     const vl_model *m;
     vl_work *w;
     int regime;
     unsigned long armed;
+    double hold_until;                   /* the regime's root function waits until then */
     long rhs_calls;
     double yt[VL_NSTATE], f1[VL_NSTATE]; /* Jacobian scratch */
     double g_t, g_y[VL_NSTATE], g_cols[VL_MAX_COLUMNS];

@@ -96,7 +96,7 @@ static int configure(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, vl_sta
     if (CVodeSetErrHandlerFn(s->cv, quiet, s) || CVodeSetUserData(s->cv, ode) ||
         CVodeSVtolerances(s->cv, rp->rel_tol, s->abstol) ||
         CVodeSetMaxNumSteps(s->cv, rp->max_steps) || CVodeSetStopTime(s->cv, s->end_s) ||
-        CVodeSetInitStep(s->cv, fmin(1e3 * VL_YR, 1e-3 * (rp->end_s - rp->start_s))) ||
+        CVodeSetMaxErrTestFails(s->cv, 20) ||
         CVodeSetLinearSolver(s->cv, s->ls, s->jm) || CVodeSetJacFn(s->cv, jac) ||
         CVodeRootInit(s->cv, VL_NROOTS, vl_events_roots) || CVodeSetRootDirection(s->cv, dir) ||
         CVodeSetNoInactiveRootWarn(s->cv))
