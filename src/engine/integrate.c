@@ -39,6 +39,8 @@ typedef struct {
     double t, y[VL_NSTATE];
     double *tout;
     size_t nout, k;
+    long window_end, slow_windows; /* the stall watch */
+    double window_t;
     double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
 } runner_t;
 
@@ -143,6 +145,29 @@ static void account(runner_t *r, double t0)
     }
 }
 
+/* Steps per stall window, and the windows in a row that make a stall. */
+#define STALL_WINDOW 1000
+#define STALL_WINDOWS 5
+
+/* A stall: STALL_WINDOWS windows of STALL_WINDOW steps in a row, each advancing less
+ * than 1e-7 of the age (a right-hand side that is not smooth at the level of the
+ * tolerances holds the steps at a few days, and the run would go on for hours). */
+static int stalled(runner_t *r, vl_status *st)
+{
+    if (r->stats->steps < r->window_end)
+        return VL_OK;
+    r->window_end = r->stats->steps + STALL_WINDOW;
+    r->slow_windows = r->t - r->window_t < 1e-7 * r->t ? r->slow_windows + 1 : 0;
+    r->window_t = r->t;
+    if (r->slow_windows < STALL_WINDOWS)
+        return VL_OK;
+    return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
+                   "integration stalled at age %.6g yr: %d steps advanced less than %.3g yr "
+                   "(a right-hand side that is not smooth at the tolerances; a looser "
+                   "run.abs_tolerance_kg may pass it)",
+                   r->t / VL_YR, STALL_WINDOW * STALL_WINDOWS, 1e-7 * STALL_WINDOWS * r->t / VL_YR);
+}
+
 /* One accepted step (or up to a root within it), with the stop request and the step
  * limit checked. */
 static int step(runner_t *r, int *root, vl_status *st)
@@ -159,7 +184,7 @@ static int step(runner_t *r, int *root, vl_status *st)
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
                        "more than run.max_steps = %ld steps by age %.6g yr", rp->max_steps,
                        r->t / VL_YR);
-    return VL_OK;
+    return stalled(r, st);
 }
 
 /* The rows of every output age up to the current point, from CVODE's interpolant over
