@@ -23,6 +23,9 @@ endif
 
 GIT_REV := $(shell git rev-parse --short=12 HEAD 2>/dev/null || echo unknown)
 PKGS := gsl libconfig
+# SUNDIALS (CVODE, the integrator) has no pkg-config file in Debian
+SUNDIALS_LIBS := -lsundials_cvode -lsundials_nvecserial -lsundials_sunmatrixdense \
+                 -lsundials_sunlinsoldense
 
 WARN := -Wall -Wextra -Wpedantic -Wshadow -Wconversion -Wstrict-prototypes \
         -Wmissing-prototypes -Wno-sign-conversion
@@ -52,7 +55,7 @@ LDFLAGS += -fsanitize=address,undefined
 endif
 
 PKG_CFLAGS = $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
-PKG_LIBS = $(shell pkg-config --libs $(PKGS) 2>/dev/null)
+PKG_LIBS = $(shell pkg-config --libs $(PKGS) 2>/dev/null) $(SUNDIALS_LIBS)
 CHECK_CFLAGS = $(shell pkg-config --cflags check 2>/dev/null)
 CHECK_LIBS = $(shell pkg-config --libs check 2>/dev/null)
 

@@ -7,7 +7,7 @@
 #   --bench      also SciPy, for the side-by-side benchmark (bench/scipy)
 set -eu
 
-PACKAGES="gcc make pkg-config libgsl-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev"
+PACKAGES="gcc make pkg-config libgsl-dev libsundials-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev"
 for opt in "$@"; do
     case "$opt" in
         --hardening) PACKAGES="$PACKAGES clang libclang-rt-14-dev valgrind" ;;

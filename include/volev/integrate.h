@@ -1,5 +1,6 @@
-/* integrate.h: the GSL driver. Runs one history from run.start to run.end with
- * events located by bisection, and hands rows and events to the caller. */
+/* integrate.h: the history driver. Runs one history from run.start to run.end with
+ * SUNDIALS CVODE, events located by its root finding, and hands rows and events to the
+ * caller. */
 #ifndef VOLEV_INTEGRATE_H
 #define VOLEV_INTEGRATE_H
 
@@ -14,6 +15,7 @@ typedef struct vl_run_stats {
     long steps;                /* accepted steps */
     long events;               /* events logged */
     long restarts;             /* stepper restarts after a failed step (stiff drains) */
+    long jacobians;            /* Jacobian evaluations */
     double wall_s;             /* wall-clock time */
     double y_final[VL_NSTATE];
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */

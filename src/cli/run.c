@@ -28,8 +28,9 @@ static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
     printf("final surface water: %.6g TO\n", d.surface_water_to);
     printf("water lost to space: %.6g TO\n", d.water_lost_to);
     printf("O2 left in the atmosphere: %.6g bar\n", d.o2_bar);
-    printf("steps %ld, RHS evaluations %ld, events %ld, stepper restarts %ld, %.3f s\n",
-           s->steps, s->rhs_calls, s->events, s->restarts, s->wall_s);
+    printf("steps %ld, RHS evaluations %ld, Jacobians %ld, events %ld, stepper restarts %ld, "
+           "%.3f s\n",
+           s->steps, s->rhs_calls, s->jacobians, s->events, s->restarts, s->wall_s);
     printf("output: %s\n", dir);
 }
 

@@ -1,7 +1,7 @@
 /* events.c: the event watch of a history (integrate_internal.h). The regime is a mode
- * held fixed within a step; after every step the conditions are classified, and a
- * change of regime or a newly exhausted reservoir is located by bisection
- * (re-integrating from the step's start). */
+ * held fixed between events; CVODE watches root functions (every armed reservoir's mass
+ * above its floor, and whether the conditions still call for the regime in force) and
+ * locates where one falls through zero on its interpolant. */
 #include <string.h>
 
 #include "integrate_internal.h"
@@ -60,29 +60,35 @@ unsigned long vl_events_rearm(const double *y, unsigned long armed)
     return armed;
 }
 
-int vl_events_locate(const vl_ode *ode, vl_stepper *sub, double t0, const double *y0,
-                     double *t1, double *y1, unsigned long armed, vl_signature *sig,
-                     vl_status *st)
+int vl_events_roots(double t, N_Vector yv, double *g, void *pv)
 {
-    const vl_run_params *rp = &ode->m->sc->run;
-    double ta = t0, ya[VL_NSTATE], ym[VL_NSTATE];
-    memcpy(ya, y0, sizeof ya);
-    while (*t1 - ta > rp->event_tol_s && *t1 - ta > 1e-12 * *t1) {
-        double tm = ta + 0.5 * (*t1 - ta), t = ta, h = 0.1 * (tm - ta);
-        memcpy(ym, ya, sizeof ym);
-        vl_stepper_reset(sub);
-        int rc = vl_stepper_advance_to(sub, &t, tm, &h, ym, NULL, st);
-        if (rc != VL_OK)
-            return rc;
-        vl_signature s = vl_events_signature(ode, tm, ym, ode->regime, armed, NULL);
-        if (vl_events_same(s, ode->regime)) {
-            ta = tm;
-            memcpy(ya, ym, sizeof ya);
-        } else {
-            *t1 = tm;
-            memcpy(y1, ym, sizeof ym);
-            *sig = s;
-        }
-    }
-    return VL_OK;
+    vl_ode *ode = pv;
+    const double *y = N_VGetArrayPointer(yv);
+    for (int r = 0; r < VL_NRES; r++)
+        g[r] = (ode->armed >> r & 1UL) ? y[r] - vl_reservoir_floor(r) : 1.0;
+    /* the regime has no continuous margin (the column climate's regime is which branches
+     * of the energy balance have a root): a sign, bracketed by CVODE on its interpolant;
+     * a new regime is held run.event_tolerance before it may change again, or a state
+     * that crosses a boundary both ways (the dry limit, with outgassing refilling what
+     * escape drains) would switch at every round-off of the age */
+    vl_signature s = vl_events_signature(ode, t, y, ode->regime, 0, ode->g_cols);
+    g[VL_NRES] = s.regime == ode->regime || t < ode->hold_until ? 1.0 : -1.0;
+    ode->g_t = t;
+    memcpy(ode->g_y, y, sizeof ode->g_y);
+    ode->g_valid = 1;
+    return 0;
+}
+
+void vl_events_directions(int *dir)
+{
+    for (int k = 0; k < VL_NROOTS; k++)
+        dir[k] = -1;
+}
+
+void vl_events_columns(vl_ode *ode, double t, const double *y, double *cols)
+{
+    if (ode->g_valid && ode->g_t == t && memcmp(ode->g_y, y, sizeof ode->g_y) == 0)
+        memcpy(cols, ode->g_cols, ode->m->ncolumns * sizeof *cols);
+    else
+        vl_events_signature(ode, t, y, ode->regime, 0, cols);
 }

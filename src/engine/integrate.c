@@ -1,8 +1,9 @@
 /* integrate.c: one history (integrate.h), layered like a stepper driver: take a step
- * (stepper.c), watch for events and locate them (events.c), emit rows and events to the
- * sink, keep the run's statistics. The regime is a mode held fixed within a step; at an
- * event the stepper is reset, so no step straddles a discontinuity of the right-hand
- * side. */
+ * (stepper.c: CVODE, one step at a time), emit the rows of the output ages the step
+ * passed from its interpolant, handle the events its root functions (events.c) found,
+ * keep the run's statistics. The regime is a mode held fixed between events; at an
+ * event the stepper is re-initialised, so no step straddles a discontinuity of the
+ * right-hand side. */
 #include "volev/integrate.h"
 
 #include <math.h>
@@ -26,16 +27,20 @@ void vl_integrate_request_stop(int sig) { stop_sig = sig ? sig : -1; }
 
 int vl_integrate_stop_signal(void) { return stop_sig; }
 
-/* One run in progress: the model, its sink and statistics, the ODE and its steppers,
- * the state, and the flux columns at the last accepted point (the channel budget). */
+/* One run in progress: the model, its sink and statistics, the ODE and its stepper,
+ * the state, the output ages (the next one: k), and the flux columns at the last
+ * accepted point (the channel budget). */
 typedef struct {
     const vl_model *m;
     const vl_run_sink *sink;
     vl_run_stats *stats;
     vl_ode *ode;
-    vl_stepper *main_s, *sub;
-    double t, h, y[VL_NSTATE];
-    unsigned long armed;      /* reservoirs watched for exhaustion */
+    vl_stepper *s;
+    double t, y[VL_NSTATE];
+    double *tout;
+    size_t nout, k;
+    long window_end, slow_windows; /* the stall watch */
+    double window_t;
     double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
 } runner_t;
 
@@ -126,7 +131,7 @@ static double *output_times(const vl_run_params *rp, size_t *n)
 }
 
 /* The time spent since t0 in the regime in force, and the trapezoid step of the channel
- * budget; prev becomes now. */
+ * budget over the accepted step; prev becomes now. */
 static void account(runner_t *r, double t0)
 {
     double dt = r->t - t0;
@@ -140,68 +145,115 @@ static void account(runner_t *r, double t0)
     }
 }
 
-/* One accepted step towards t1, with the stop request and the step limit checked. */
-static int step(runner_t *r, double t1, vl_status *st)
+/* Steps per stall window, and the windows in a row that make a stall. */
+#define STALL_WINDOW 1000
+#define STALL_WINDOWS 5
+
+/* A stall: STALL_WINDOWS windows of STALL_WINDOW steps in a row, each advancing less
+ * than 1e-7 of the age (a right-hand side that is not smooth at the level of the
+ * tolerances holds the steps at a few days, and the run would go on for hours). */
+static int stalled(runner_t *r, vl_status *st)
+{
+    if (r->stats->steps < r->window_end)
+        return VL_OK;
+    r->window_end = r->stats->steps + STALL_WINDOW;
+    r->slow_windows = r->t - r->window_t < 1e-7 * r->t ? r->slow_windows + 1 : 0;
+    r->window_t = r->t;
+    if (r->slow_windows < STALL_WINDOWS)
+        return VL_OK;
+    return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
+                   "integration stalled at age %.6g yr: %d steps advanced less than %.3g yr "
+                   "(a right-hand side that is not smooth at the tolerances; a looser "
+                   "run.abs_tolerance_kg may pass it)",
+                   r->t / VL_YR, STALL_WINDOW * STALL_WINDOWS, 1e-7 * STALL_WINDOWS * r->t / VL_YR);
+}
+
+/* One accepted step (or up to a root within it), with the stop request and the step
+ * limit checked. */
+static int step(runner_t *r, int *root, vl_status *st)
 {
     const vl_run_params *rp = &r->m->sc->run;
-    int rc = vl_stepper_step(r->main_s, &r->t, t1, &r->h, r->y, &r->stats->restarts, st);
+    int rc = vl_stepper_step(r->s, &r->t, r->y, root, &r->stats->restarts, st);
     if (rc != VL_OK)
         return rc;
+    r->stats->steps = vl_stepper_steps(r->s);
     if (stop_sig)
         return vl_fail(st, VL_ERR_STOPPED, NULL, 0, "stopped at age %.6g yr (signal %d)",
                        r->t / VL_YR, (int)stop_sig);
-    if (++r->stats->steps > rp->max_steps)
+    if (r->stats->steps > rp->max_steps)
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
                        "more than run.max_steps = %ld steps by age %.6g yr", rp->max_steps,
                        r->t / VL_YR);
-    return VL_OK;
+    return stalled(r, st);
 }
 
-/* An event inside the step from (t0, y0): locate it, account for the time up to it, log
- * the exhausted reservoirs and the regime change, emit its row and restart the stepper
- * there under the new regime. */
-static int handle_event(runner_t *r, double t0, const double *y0, vl_signature s, vl_status *st)
+/* The rows of every output age up to the current point, from CVODE's interpolant over
+ * the last step (the age of the point itself: its state). */
+static int emit_outputs(runner_t *r, vl_status *st)
 {
-    int rc = vl_events_locate(r->ode, r->sub, t0, y0, &r->t, r->y, r->armed, &s, st);
-    if (rc != VL_OK)
-        return rc;
-    vl_events_signature(r->ode, r->t, r->y, r->ode->regime, 0, r->now);
-    account(r, t0);
-    for (int q = 0; q < VL_NRES && rc == VL_OK; q++)
-        if (s.exhausted >> q & 1UL)
-            rc = emit_event(r, r->t, "reservoir_exhausted", vl_reservoir_name(q), st);
-    r->armed &= ~s.exhausted;
-    if (s.regime != r->ode->regime && rc == VL_OK) {
-        int old = r->ode->regime;
-        r->ode->regime = vl_events_settle(r->ode, r->t, r->y, s.regime);
-        rc = log_regime_change(r, r->t, old, r->ode->regime, st);
+    double yk[VL_NSTATE];
+    int rc = VL_OK;
+    for (; rc == VL_OK && r->k < r->nout && r->tout[r->k] <= r->t; r->k++) {
+        if (r->tout[r->k] == r->t)
+            rc = emit_row(r, r->t, r->y, st);
+        else if ((rc = vl_stepper_dense(r->s, r->tout[r->k], yk, st)) == VL_OK)
+            rc = emit_row(r, r->tout[r->k], yk, st);
     }
-    if (rc == VL_OK)
-        rc = emit_row(r, r->t, r->y, st);
-    vl_events_signature(r->ode, r->t, r->y, r->ode->regime, 0, r->prev); /* the new regime's fluxes */
-    vl_stepper_reset(r->main_s);
-    r->h = fmax(r->m->sc->run.event_tol_s, 1e-9 * r->t);
     return rc;
 }
 
-/* Step up to the output age t1, handling every event on the way; then its row. */
-static int advance(runner_t *r, double t1, vl_status *st)
+/* A root at the current point: account for the time up to it, log the exhausted
+ * reservoirs and the regime change, emit its row and restart the stepper there under
+ * the new regime. A root that calls for nothing new is passed by. */
+static int handle_event(runner_t *r, double t0, vl_status *st)
+{
+    vl_ode *ode = r->ode;
+    vl_signature s = vl_events_signature(ode, r->t, r->y, ode->regime, ode->armed, NULL);
+    s.exhausted |= vl_stepper_exhausted(r->s, ode->armed);
+    vl_events_columns(ode, r->t, r->y, r->now);
+    account(r, t0);
+    if (vl_events_same(s, ode->regime))
+        return VL_OK;
+    int rc = VL_OK;
+    for (int q = 0; q < VL_NRES && rc == VL_OK; q++)
+        if (s.exhausted >> q & 1UL)
+            rc = emit_event(r, r->t, "reservoir_exhausted", vl_reservoir_name(q), st);
+    ode->armed &= ~s.exhausted;
+    if (s.regime != ode->regime && rc == VL_OK) {
+        int old = ode->regime;
+        ode->regime = vl_events_settle(ode, r->t, r->y, s.regime);
+        ode->hold_until = r->t + r->m->sc->run.event_tol_s;
+        ode->g_valid = 0;
+        rc = log_regime_change(r, r->t, old, ode->regime, st);
+    }
+    if (rc == VL_OK)
+        rc = emit_row(r, r->t, r->y, st);
+    vl_events_signature(ode, r->t, r->y, ode->regime, 0, r->prev); /* the new regime's fluxes */
+    if (rc == VL_OK)
+        rc = vl_stepper_restart(r->s, r->t, r->y, fmax(r->m->sc->run.event_tol_s, 1e-9 * r->t),
+                                st);
+    return rc;
+}
+
+/* Step to the run's end: rows at the output ages in passing, events at the roots. */
+static int advance(runner_t *r, vl_status *st)
 {
     int rc = VL_OK;
-    while (r->t < t1 && rc == VL_OK) {
-        double t0 = r->t, y0[VL_NSTATE];
-        memcpy(y0, r->y, sizeof y0);
-        rc = step(r, t1, st);
+    while (rc == VL_OK && r->t < r->m->sc->run.end_s) {
+        double t0 = r->t;
+        int root = 0;
+        rc = step(r, &root, st);
+        if (rc == VL_OK)
+            rc = emit_outputs(r, st);
         if (rc != VL_OK)
             break;
-        vl_signature s = vl_events_signature(r->ode, r->t, r->y, r->ode->regime, r->armed, r->now);
-        if (vl_events_same(s, r->ode->regime))
+        if (root) {
+            rc = handle_event(r, t0, st);
+        } else {
+            vl_events_columns(r->ode, r->t, r->y, r->now);
             account(r, t0);
-        else
-            rc = handle_event(r, t0, y0, s, st);
+        }
     }
-    if (rc == VL_OK && r->t >= t1)
-        rc = emit_row(r, r->t, r->y, st);
     return rc;
 }
 
@@ -209,52 +261,50 @@ static int advance(runner_t *r, double t1, vl_status *st)
 static int run_loop(runner_t *r, vl_status *st)
 {
     const vl_run_params *rp = &r->m->sc->run;
-    size_t nout;
-    double *tout = output_times(rp, &nout);
-    if (!tout)
+    if (!(r->tout = output_times(rp, &r->nout)))
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    r->k = 1;
     r->t = rp->start_s;
     vl_model_initial_state(r->m, r->y);
     vl_ledger_totals(r->y, r->stats->totals0);
     vl_redox_pools(r->y, &r->stats->redox0);
     r->ode->regime = vl_events_settle(r->ode, r->t, r->y, VL_REGIME_TEMPERATE);
-    r->armed = vl_events_rearm(r->y, 0);
+    r->ode->armed = vl_events_rearm(r->y, 0);
+    r->ode->hold_until = r->t;
     int rc = emit_event(r, r->t, "start", vl_regime_name(r->ode->regime), st);
     if (rc == VL_OK)
         rc = emit_row(r, r->t, r->y, st);
-    r->h = fmin(1e3 * VL_YR, 1e-3 * (rp->end_s - rp->start_s));
     vl_events_signature(r->ode, r->t, r->y, r->ode->regime, 0, r->prev);
-    for (size_t k = 1; k < nout && rc == VL_OK; k++)
-        rc = advance(r, tout[k], st);
+    if (rc == VL_OK)
+        rc = vl_stepper_init(r->s, r->ode, rp, r->t, r->y, st);
+    if (rc == VL_OK)
+        rc = advance(r, st);
     if (rc == VL_OK)
         rc = emit_event(r, r->t, "end", vl_regime_name(r->ode->regime), st);
+    if (r->s->cv)
+        r->stats->jacobians = vl_stepper_jacobians(r->s);
+    vl_stepper_free(r->s);
     memcpy(r->stats->y_final, r->y, sizeof r->y);
     vl_ledger_totals(r->y, r->stats->totals1);
     vl_redox_pools(r->y, &r->stats->redox1);
-    free(tout);
+    free(r->tout);
     return rc;
 }
 
-/* Errors come back as return codes; GSL's default handler would abort. */
-static void gsl_quiet(void) { gsl_set_error_handler_off(); }
-
-/* The run with its workspace and steppers in place (vl_integrate owns them). */
+/* The run with its workspace in place (vl_integrate owns it). */
 static int run_with(const vl_model *m, vl_ode *ode, const vl_run_sink *sink,
                     vl_run_stats *stats, vl_status *st)
 {
-    vl_stepper main_s = {0}, sub = {0};
+    vl_stepper s = {0};
     int rc;
-    if (!vl_stepper_init(&main_s, ode, &m->sc->run) || !vl_stepper_init(&sub, ode, &m->sc->run)) {
-        rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
-    } else if (!(ode->w = vl_work_new(m, st))) {
+    if (!(ode->w = vl_work_new(m, st))) {
         rc = st->code;
     } else {
         runner_t *r = calloc(1, sizeof *r);
         if (!r) {
             rc = vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
         } else {
-            *r = (runner_t){.m = m, .sink = sink, .stats = stats, .ode = ode,
-                            .main_s = &main_s, .sub = &sub};
+            *r = (runner_t){.m = m, .sink = sink, .stats = stats, .ode = ode, .s = &s};
             rc = run_loop(r, st);
             free(r);
         }
@@ -262,10 +312,12 @@ static int run_with(const vl_model *m, vl_ode *ode, const vl_run_sink *sink,
                               &stats->climate_build_s);
         vl_work_free(ode->w);
     }
-    vl_stepper_free(&main_s);
-    vl_stepper_free(&sub);
     return rc;
 }
+
+/* Errors come back as return codes; GSL's default handler (for the roots and
+ * interpolation of the physics) would abort. */
+static void gsl_quiet(void) { gsl_set_error_handler_off(); }
 
 int vl_integrate(const vl_model *m, const vl_run_sink *sink, vl_run_stats *stats, vl_status *st)
 {

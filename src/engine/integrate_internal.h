@@ -1,50 +1,78 @@
-/* integrate_internal.h: the layers under vl_integrate (integrate.c): the stepper (one
- * GSL multistep BDF integrator over the model's right-hand side, stepper.c) and the
- * event watch (the regime the conditions call for and exhausted reservoirs, located by
- * bisection, events.c). Private to src/engine. */
+/* integrate_internal.h: the layers under vl_integrate (integrate.c): the stepper (SUNDIALS
+ * CVODE's BDF over the model's right-hand side with dense output and root finding,
+ * stepper.c) and the event watch (the regime the conditions call for and exhausted
+ * reservoirs, as CVODE root functions, events.c). Private to src/engine. */
 #ifndef VOLEV_INTEGRATE_INTERNAL_H
 #define VOLEV_INTEGRATE_INTERNAL_H
 
-#include <gsl/gsl_odeiv2.h>
+#include <cvode/cvode.h>
+#include <sundials/sundials_context.h>
+#include <sundials/sundials_linearsolver.h>
+#include <sundials/sundials_matrix.h>
+#include <sundials/sundials_nvector.h>
 
+#include "volev/integrate.h"
 #include "volev/model.h"
 
-/* What the right-hand side needs: the model, the run's workspace, the regime held fixed
- * during a step; counts its evaluations. */
+/* Root functions handed to CVODE: one per reservoir (its mass above its floor, while it
+ * is armed) and the regime's (+1 while the conditions keep it, -1 once they call for
+ * another). */
+#define VL_NROOTS (VL_NRES + 1)
+
+/* What the right-hand side and the root functions need: the model, the run's workspace,
+ * the regime held fixed between events (and, after a change, held at least
+ * run.event_tolerance), the reservoirs watched for exhaustion; counts evaluations. The last root evaluation's point and process flux columns are kept: at
+ * the end of a step they are the channel budget's. */
 typedef struct {
     const vl_model *m;
     vl_work *w;
     int regime;
+    unsigned long armed;
+    double hold_until;                   /* the regime's root function waits until then */
     long rhs_calls;
-    double f0[VL_NSTATE], f1[VL_NSTATE], yt[VL_NSTATE]; /* Jacobian scratch */
+    double yt[VL_NSTATE], f1[VL_NSTATE]; /* Jacobian scratch */
+    double g_t, g_y[VL_NSTATE], g_cols[VL_MAX_COLUMNS];
+    int g_valid;
 } vl_ode;
 
-/* A GSL driver owning step, control and evolve (msbdf reaches its control through the
- * driver, so one is needed even when stepping by hand). */
+/* CVODE with its context, state vector, tolerances, dense matrix and solver; the steps
+ * taken before its last re-initialisation (which resets CVODE's own count), and the
+ * last error message CVODE reported. */
 typedef struct {
-    gsl_odeiv2_system sys;
-    gsl_odeiv2_driver *drv;
-    gsl_odeiv2_step *step;
-    gsl_odeiv2_control *ctrl;
-    gsl_odeiv2_evolve *ev;
+    SUNContext ctx;
+    void *cv;
+    N_Vector y, abstol;
+    SUNMatrix jm;
+    SUNLinearSolver ls;
+    double end_s;
+    long steps_before, jacs_before;
+    char msg[200];
 } vl_stepper;
 
 /* 1 when every entry of v is finite. */
 int vl_stepper_finite(const double *v, size_t n);
-/* A stepper over ode with the run's tolerances; 0 when out of memory. */
-int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp);
+/* A stepper over ode starting at (t0, y0) with the run's tolerances, root functions
+ * and stop time; VL_OK, or an error in st. */
+int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, double t0,
+                    const double *y0, vl_status *st);
+/* Free what vl_stepper_init made (also after a partial init). */
 void vl_stepper_free(vl_stepper *s);
-/* Forget the step history (after an event: no step straddles a discontinuity). */
-void vl_stepper_reset(vl_stepper *s);
-/* Advance (t, y) to exactly t1 under the current regime, counting steps if given. */
-int vl_stepper_advance_to(vl_stepper *s, double *t, double t1, double *h, double *y,
-                          long *steps, vl_status *st);
-/* One accepted step from (t, y) towards t1. A stiff drain reaching a reservoir's floor
- * can stall the Newton iteration on a stale Jacobian: the step is then retried from
- * (t, y) with a fresh stepper and a hundred times smaller step, up to 8 times
- * (*restarts counts them). VL_OK, or VL_ERR_NUMERIC with the age in st. */
-int vl_stepper_step(vl_stepper *s, double *t, double t1, double *h, double *y, long *restarts,
+/* Start afresh at (t, y) with trial step h0 (after an event: no step straddles a
+ * discontinuity of the right-hand side). */
+int vl_stepper_restart(vl_stepper *s, double t, const double *y, double h0, vl_status *st);
+/* One accepted step towards the run's end: (t, y) become its end, or the first root
+ * within it (*root = 1). A step CVODE gives up on is retried from the last accepted
+ * point with a hundred times smaller trial step, up to 8 times (*restarts counts them).
+ * VL_OK, or VL_ERR_NUMERIC with the age in st. */
+int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restarts,
                     vl_status *st);
+/* The state at t within the last step (CVODE's interpolating polynomial). */
+int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st);
+/* The armed reservoirs whose root function vanished at the last root (bit r). */
+unsigned long vl_stepper_exhausted(vl_stepper *s, unsigned long armed);
+/* Accepted steps and Jacobian evaluations so far, re-initialisations included. */
+long vl_stepper_steps(vl_stepper *s);
+long vl_stepper_jacobians(vl_stepper *s);
 
 /* What the event watch sees at one point: the regime the conditions call for and the
  * reservoirs newly below their floor (bit r: reservoir r, among the armed ones). */
@@ -63,11 +91,12 @@ int vl_events_same(vl_signature sig, int regime);
 int vl_events_settle(const vl_ode *ode, double t, const double *y, int regime);
 /* armed plus the reservoirs well above their floor in y (each is logged once). */
 unsigned long vl_events_rearm(const double *y, unsigned long armed);
-/* Locate the first time in (t0, t1] where the signature departs from ode->regime, by
- * bisection with re-integration from (t0, y0) on sub, to run.event_tolerance. On return
- * (t1, y1) is the located point (just after the change) and *sig its signature. */
-int vl_events_locate(const vl_ode *ode, vl_stepper *sub, double t0, const double *y0,
-                     double *t1, double *y1, unsigned long armed, vl_signature *sig,
-                     vl_status *st);
+/* CVODE's root functions (VL_NROOTS of them, CVRootFn) over the vl_ode in pv. */
+int vl_events_roots(double t, N_Vector y, double *g, void *pv);
+/* The root directions: every function is watched falling through zero. */
+void vl_events_directions(int *dir);
+/* The process flux columns at (t, y) under the regime in force: those of the last root
+ * evaluation when it was at this very point, else evaluated. */
+void vl_events_columns(vl_ode *ode, double t, const double *y, double *cols);
 
 #endif

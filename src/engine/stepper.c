@@ -1,12 +1,18 @@
-/* stepper.c: one history's ODE integrator (integrate_internal.h): GSL's multistep BDF
- * (gsl_odeiv2_step_msbdf, stiff-capable) over the model's right-hand side with a
- * finite-difference Jacobian, per-reservoir absolute scales (floor / 1e3; the mantle's
- * potential temperature: TP_ABS_K) and the run's tolerances. */
+/* stepper.c: one history's ODE integrator (integrate_internal.h): SUNDIALS CVODE's BDF
+ * (variable order, Newton iteration, dense linear solver) over the model's right-hand
+ * side with a finite-difference Jacobian, per-reservoir absolute scales (floor / 1e3;
+ * the mantle's potential temperature: TP_ABS_K), the run's relative tolerance, the
+ * run's end as stop time, and the event watch's root functions. One SUNDIALS context
+ * per stepper, so the runs of a sweep's threads and ranks share nothing. */
 #include <float.h>
 #include <math.h>
+#include <stdio.h>
 #include <string.h>
 
-#include <gsl/gsl_errno.h>
+#include <cvode/cvode_ls.h>
+#include <nvector/nvector_serial.h>
+#include <sunlinsol/sunlinsol_dense.h>
+#include <sunmatrix/sunmatrix_dense.h>
 
 #include "integrate_internal.h"
 #include "volev/units.h"
@@ -27,110 +33,199 @@ int vl_stepper_finite(const double *v, size_t n)
     return 1;
 }
 
-static int rhs(double t, const double y[], double f[], void *pv)
+/* The model's right-hand side (CVRhsFn); a non-finite result is a recoverable failure
+ * (CVODE retries with a smaller step). */
+static int rhs(double t, N_Vector yv, N_Vector fv, void *pv)
 {
     vl_ode *c = pv;
+    double *f = N_VGetArrayPointer(fv);
     c->rhs_calls++;
-    vl_model_rhs(c->m, c->w, t, y, c->regime, f, NULL, NULL);
-    return vl_stepper_finite(f, VL_NSTATE) ? GSL_SUCCESS : GSL_EBADFUNC;
+    vl_model_rhs(c->m, c->w, t, N_VGetArrayPointer(yv), c->regime, f, NULL, NULL);
+    return vl_stepper_finite(f, VL_NSTATE) ? 0 : 1;
 }
 
-/* Forward-difference Jacobian; increments scale with each reservoir's floor band. */
-static int jac(double t, const double y[], double *dfdy, double dfdt[], void *pv)
+/* Forward-difference Jacobian (CVLsJacFn) from CVODE's f(t, y); increments scale with
+ * each reservoir's floor band. */
+static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vector t1,
+               N_Vector t2, N_Vector t3)
 {
+    (void)t1, (void)t2, (void)t3;
     vl_ode *c = pv;
+    const double *y = N_VGetArrayPointer(yv), *f0 = N_VGetArrayPointer(fy);
     double sq = sqrt(DBL_EPSILON);
-    if (rhs(t, y, c->f0, c) != GSL_SUCCESS)
-        return GSL_EBADFUNC;
     memcpy(c->yt, y, sizeof c->yt);
     for (int j = 0; j < VL_NSTATE; j++) {
+        double *col = SUNDenseMatrix_Column(jm, j);
         /* no process reads space; a mantle that never was molten has no temperature */
         if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && y[j] == 0.0)) {
             for (int i = 0; i < VL_NSTATE; i++)
-                dfdy[i * VL_NSTATE + j] = 0.0;
+                col[i] = 0.0;
             continue;
         }
         double h = sq * fmax(fabs(y[j]), component_size(j));
         c->yt[j] = y[j] + h;
-        if (rhs(t, c->yt, c->f1, c) != GSL_SUCCESS)
-            return GSL_EBADFUNC;
+        c->rhs_calls++;
+        vl_model_rhs(c->m, c->w, t, c->yt, c->regime, c->f1, NULL, NULL);
+        if (!vl_stepper_finite(c->f1, VL_NSTATE))
+            return 1;
         c->yt[j] = y[j];
         for (int i = 0; i < VL_NSTATE; i++)
-            dfdy[i * VL_NSTATE + j] = (c->f1[i] - c->f0[i]) / h;
+            col[i] = (c->f1[i] - f0[i]) / h;
     }
-    /* backward in time, so a tabulated star is never asked beyond the run's end */
-    double ht = sq * fmax(fabs(t), VL_YR);
-    if (rhs(t - ht, y, c->f1, c) != GSL_SUCCESS)
-        return GSL_EBADFUNC;
-    for (int i = 0; i < VL_NSTATE; i++)
-        dfdt[i] = (c->f0[i] - c->f1[i]) / ht;
-    return GSL_SUCCESS;
+    return 0;
 }
 
-int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp)
+/* CVODE's error messages go to the stepper's buffer, never to a stream. */
+static void quiet(int code, const char *module, const char *function, char *msg, void *pv)
 {
-    double scale[VL_NSTATE];
+    (void)code, (void)module;
+    vl_stepper *s = pv;
+    snprintf(s->msg, sizeof s->msg, "%s: %s", function, msg);
+}
+
+static int setup_failed(vl_status *st, const char *what)
+{
+    return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "integrator set-up failed: %s", what);
+}
+
+/* CVODE's settings after its creation: tolerances, limits, solver, Jacobian, roots. */
+static int configure(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, vl_status *st)
+{
+    int dir[VL_NROOTS];
+    vl_events_directions(dir);
+    if (CVodeSetErrHandlerFn(s->cv, quiet, s) || CVodeSetUserData(s->cv, ode) ||
+        CVodeSVtolerances(s->cv, rp->rel_tol, s->abstol) ||
+        CVodeSetMaxNumSteps(s->cv, rp->max_steps) || CVodeSetStopTime(s->cv, s->end_s) ||
+        CVodeSetMaxErrTestFails(s->cv, 20) ||
+        CVodeSetLinearSolver(s->cv, s->ls, s->jm) || CVodeSetJacFn(s->cv, jac) ||
+        CVodeRootInit(s->cv, VL_NROOTS, vl_events_roots) || CVodeSetRootDirection(s->cv, dir) ||
+        CVodeSetNoInactiveRootWarn(s->cv))
+        return setup_failed(st, s->msg[0] ? s->msg : "a setting was refused");
+    return VL_OK;
+}
+
+int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, double t0,
+                    const double *y0, vl_status *st)
+{
+    memset(s, 0, sizeof *s);
+    s->end_s = rp->end_s;
+    if (SUNContext_Create(NULL, &s->ctx))
+        return setup_failed(st, "no SUNDIALS context");
+    s->y = N_VNew_Serial(VL_NSTATE, s->ctx);
+    s->abstol = N_VNew_Serial(VL_NSTATE, s->ctx);
+    s->jm = SUNDenseMatrix(VL_NSTATE, VL_NSTATE, s->ctx);
+    s->ls = s->y && s->jm ? SUNLinSol_Dense(s->y, s->jm, s->ctx) : NULL;
+    s->cv = CVodeCreate(CV_BDF, s->ctx);
+    if (!s->y || !s->abstol || !s->jm || !s->ls || !s->cv)
+        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    double *a = N_VGetArrayPointer(s->abstol);
     for (int i = 0; i < VL_NRES; i++)
-        scale[i] = vl_reservoir_floor(i) / 1e3;
-    scale[VL_S_MANTLE_TP] = TP_ABS_K / rp->abs_tol_kg;
-    s->sys = (gsl_odeiv2_system){rhs, jac, VL_NSTATE, ode};
-    s->drv = gsl_odeiv2_driver_alloc_scaled_new(&s->sys, gsl_odeiv2_step_msbdf, VL_YR,
-                                                rp->abs_tol_kg, rp->rel_tol, 1.0, 0.0, scale);
-    if (!s->drv)
-        return 0;
-    s->step = s->drv->s;
-    s->ctrl = s->drv->c;
-    s->ev = s->drv->e;
-    return 1;
+        a[i] = rp->abs_tol_kg * vl_reservoir_floor(i) / 1e3;
+    a[VL_S_MANTLE_TP] = TP_ABS_K;
+    memcpy(N_VGetArrayPointer(s->y), y0, VL_NSTATE * sizeof *y0);
+    if (CVodeInit(s->cv, rhs, t0, s->y))
+        return setup_failed(st, s->msg[0] ? s->msg : "CVodeInit");
+    return configure(s, ode, rp, st);
 }
 
 void vl_stepper_free(vl_stepper *s)
 {
-    if (s->drv)
-        gsl_odeiv2_driver_free(s->drv);
+    if (s->cv)
+        CVodeFree(&s->cv);
+    if (s->ls)
+        SUNLinSolFree(s->ls);
+    if (s->jm)
+        SUNMatDestroy(s->jm);
+    if (s->abstol)
+        N_VDestroy(s->abstol);
+    if (s->y)
+        N_VDestroy(s->y);
+    if (s->ctx)
+        SUNContext_Free(&s->ctx);
 }
 
-void vl_stepper_reset(vl_stepper *s)
+long vl_stepper_steps(vl_stepper *s)
 {
-    gsl_odeiv2_evolve_reset(s->ev);
-    gsl_odeiv2_step_reset(s->step);
+    long n = 0;
+    CVodeGetNumSteps(s->cv, &n);
+    return s->steps_before + n;
 }
 
-static int failed(vl_status *st, double t, int rc)
+long vl_stepper_jacobians(vl_stepper *s)
+{
+    long n = 0;
+    CVodeGetNumJacEvals(s->cv, &n);
+    return s->jacs_before + n;
+}
+
+int vl_stepper_restart(vl_stepper *s, double t, const double *y, double h0, vl_status *st)
+{
+    s->steps_before = vl_stepper_steps(s);
+    s->jacs_before = vl_stepper_jacobians(s);
+    double *yv = N_VGetArrayPointer(s->y);
+    if (yv != y)
+        memcpy(yv, y, VL_NSTATE * sizeof *y);
+    /* the stop time is set again: a re-initialisation may forget it */
+    if (CVodeReInit(s->cv, t, s->y) || CVodeSetInitStep(s->cv, fmin(h0, s->end_s - t)) ||
+        CVodeSetStopTime(s->cv, s->end_s))
+        return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "integrator restart failed at age %.6g yr: %s",
+                       t / VL_YR, s->msg);
+    return VL_OK;
+}
+
+static int failed(vl_stepper *s, vl_status *st, double t)
 {
     return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "integration failed at age %.6g yr: %s",
-                   t / VL_YR, rc != GSL_SUCCESS ? gsl_strerror(rc) : "non-finite state");
+                   t / VL_YR, s->msg[0] ? s->msg : "non-finite state");
 }
 
-int vl_stepper_advance_to(vl_stepper *s, double *t, double t1, double *h, double *y,
-                          long *steps, vl_status *st)
-{
-    while (*t < t1) {
-        int rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
-        if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE))
-            return failed(st, *t, rc);
-        if (steps)
-            (*steps)++;
-    }
-    return VL_OK;
-}
-
-int vl_stepper_step(vl_stepper *s, double *t, double t1, double *h, double *y, long *restarts,
+int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restarts,
                     vl_status *st)
 {
-    double t0 = *t, y0[VL_NSTATE];
-    memcpy(y0, y, sizeof y0);
-    int rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
-    for (int retry = 0; retry < 8 && (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE));
-         retry++) {
-        *t = t0;
-        memcpy(y, y0, sizeof y0);
-        vl_stepper_reset(s);
-        *h = fmax(*h, 1.0) * 1e-2;
+    double h = 0.0, t0 = *t;
+    int rc = CVode(s->cv, s->end_s, s->y, t, CV_ONE_STEP);
+    const double *yv = N_VGetArrayPointer(s->y);
+    for (int retry = 0; retry < 8 && (rc < 0 || !vl_stepper_finite(yv, VL_NSTATE)); retry++) {
+        /* CVODE leaves (t, y) at its last accepted point */
+        if (retry == 0)
+            CVodeGetLastStep(s->cv, &h);
+        h = fmax(h, 1.0) * 1e-2;
         (*restarts)++;
-        rc = gsl_odeiv2_evolve_apply(s->ev, s->ctrl, s->step, s->drv->sys, t, t1, h, y);
+        if (!vl_stepper_finite(yv, VL_NSTATE)) {
+            *t = t0;
+            memcpy(N_VGetArrayPointer(s->y), y, VL_NSTATE * sizeof *y);
+        }
+        if (vl_stepper_restart(s, *t, yv, h, st) != VL_OK)
+            return st->code;
+        rc = CVode(s->cv, s->end_s, s->y, t, CV_ONE_STEP);
     }
-    if (rc != GSL_SUCCESS || !vl_stepper_finite(y, VL_NSTATE))
-        return failed(st, t0, rc);
+    if (rc < 0 || !vl_stepper_finite(yv, VL_NSTATE))
+        return failed(s, st, *t);
+    memcpy(y, yv, VL_NSTATE * sizeof *y);
+    *root = rc == CV_ROOT_RETURN;
     return VL_OK;
+}
+
+int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st)
+{
+    N_Vector v = N_VMake_Serial(VL_NSTATE, y, s->ctx);
+    int rc = v ? CVodeGetDky(s->cv, t, 0, v) : -1;
+    if (v)
+        N_VDestroy(v);
+    if (rc)
+        return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "no dense output at age %.6g yr: %s",
+                       t / VL_YR, s->msg);
+    return VL_OK;
+}
+
+unsigned long vl_stepper_exhausted(vl_stepper *s, unsigned long armed)
+{
+    int found[VL_NROOTS];
+    unsigned long ex = 0;
+    if (CVodeGetRootInfo(s->cv, found))
+        return 0;
+    for (int r = 0; r < VL_NRES; r++)
+        if (found[r] && (armed >> r & 1UL))
+            ex |= 1UL << r;
+    return ex;
 }

@@ -350,7 +350,8 @@ const vl_param vl_core_params[] = {
     INT("run.linear_points", 100, 0, 100000, run.linear_points,
         "output rows spaced linearly in stellar age", ""),
     REAL("run.event_tolerance_yr", "yr", VL_YR, 1.0, 1e-6, 1e9, run.event_tol_s,
-         "events are located to within this time", "", NULL),
+         "a new regime is held at least this long (bounds switching back and forth at a regime boundary); events are located by root finding",
+         "", NULL),
     INT("run.max_steps", 1000000, 100, 1000000000, run.max_steps,
         "give up after this many accepted integrator steps", ""),
 };
