@@ -197,21 +197,54 @@ static double slope(const double *v, int j)
     return (d0 * h1 + d1 * h0) / (h0 + h1);
 }
 
+/* The Hermite coefficients of series v on grid cell j: v[j], slope(v, j), v[j + 1],
+ * slope(v, j + 1). */
+static void cell_coefficients(const double *v, int j, double c[4])
+{
+    c[0] = v[j];
+    c[1] = slope(v, j);
+    c[2] = v[j + 1];
+    c[3] = slope(v, j + 1);
+}
+
+/* The grid points the Hermite curve on cell j reads (j - 1 to j + 2, those on the grid). */
+static void ensure_cell(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
+                        int j)
+{
+    for (int k = j - 1; k <= j + 2; k++)
+        if (k >= 0 && k < VL_CT_NT)
+            ensure(b, t, la, s, k);
+}
+
+/* The cubic Hermite basis at temp on the cell [t0, t0 + h] (clamped to it), the two
+ * slope terms already times h: the value is hermite_sum(w, c). */
+static void hermite_basis(double t0, double h, double temp, double w[4])
+{
+    double u = (temp - t0) / h;
+    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
+    w[0] = (1.0 + 2.0 * u) * (1.0 - u) * (1.0 - u);
+    w[1] = u * (1.0 - u) * (1.0 - u) * h;
+    w[2] = u * u * (3.0 - 2.0 * u);
+    w[3] = u * u * (u - 1.0) * h;
+}
+
+static double hermite_sum(const double w[4], const double c[4])
+{
+    return w[0] * c[0] + w[1] * c[1] + w[2] * c[2] + w[3] * c[3];
+}
+
 /* Cubic Hermite value of the series sel (0 OLR, 1 albedo, 2 ln f) at temperature temp. */
 static double hermite(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                       int sel, double temp)
 {
     double x = vl_ct_grid_index(temp);
     int j = (int)x < VL_CT_NT - 1 ? (int)x : VL_CT_NT - 2;
-    for (int k = j - 1; k <= j + 2; k++)
-        if (k >= 0 && k < VL_CT_NT)
-            ensure(b, t, la, s, k);
+    ensure_cell(b, t, la, s, j);
     const double *v = sel == 0 ? b->olr : sel == 1 ? b->alb : b->logf;
-    double t0 = vl_ct_grid_t(j), h = vl_ct_grid_t(j + 1) - t0, u = (temp - t0) / h;
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    double h00 = (1.0 + 2.0 * u) * (1.0 - u) * (1.0 - u), h10 = u * (1.0 - u) * (1.0 - u);
-    double h01 = u * u * (3.0 - 2.0 * u), h11 = u * u * (u - 1.0);
-    return h00 * v[j] + h10 * h * slope(v, j) + h01 * v[j + 1] + h11 * h * slope(v, j + 1);
+    double t0 = vl_ct_grid_t(j), w[4], c[4];
+    hermite_basis(t0, vl_ct_grid_t(j + 1) - t0, temp, w);
+    cell_coefficients(v, j, c);
+    return hermite_sum(w, c);
 }
 
 double vl_balance_olr(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
@@ -271,34 +304,21 @@ typedef struct {
 static void cell_curve_of(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                           int j, cell_curve *cc)
 {
-    for (int k = j - 1; k <= j + 2; k++)
-        if (k >= 0 && k < VL_CT_NT)
-            ensure(b, t, la, s, k);
+    ensure_cell(b, t, la, s, j);
     cc->j = j;
     cc->t0 = vl_ct_grid_t(j);
     cc->h = vl_ct_grid_t(j + 1) - cc->t0;
-    const double *v[2] = {b->olr, b->alb};
-    double *out[2] = {cc->olr, cc->alb};
-    for (int i = 0; i < 2; i++) {
-        out[i][0] = v[i][j];
-        out[i][1] = slope(v[i], j);
-        out[i][2] = v[i][j + 1];
-        out[i][3] = slope(v[i], j + 1);
-    }
+    cell_coefficients(b->olr, j, cc->olr);
+    cell_coefficients(b->alb, j, cc->alb);
 }
 
-/* vl_balance_net at temp inside cell cc->j: the same operations in the same order as
- * hermite(), so the same value to the bit, without the grid look-ups. */
+/* vl_balance_net at temp inside cell cc->j: hermite()'s basis and sums, so the same value
+ * to the bit, without the grid look-ups. */
 static double cell_net(const vl_balance *b, const cell_curve *cc, double temp)
 {
-    double h = cc->h, u = (temp - cc->t0) / h;
-    u = u < 0.0 ? 0.0 : u > 1.0 ? 1.0 : u;
-    double h00 = (1.0 + 2.0 * u) * (1.0 - u) * (1.0 - u), h10 = u * (1.0 - u) * (1.0 - u);
-    double h01 = u * u * (3.0 - 2.0 * u), h11 = u * u * (u - 1.0);
-    const double *a = cc->alb, *o = cc->olr;
-    double alb = h00 * a[0] + h10 * h * a[1] + h01 * a[2] + h11 * h * a[3];
-    double olr = h00 * o[0] + h10 * h * o[1] + h01 * o[2] + h11 * h * o[3];
-    return b->key.instellation * (1.0 - alb) / 4.0 - olr;
+    double w[4];
+    hermite_basis(cc->t0, cc->h, temp, w);
+    return b->key.instellation * (1.0 - hermite_sum(w, cc->alb)) / 4.0 - hermite_sum(w, cc->olr);
 }
 
 /* Root of N in grid cell j (N(j) > 0 >= N(j+1)) by bisection on the Hermite curve: 40
