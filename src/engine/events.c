@@ -6,6 +6,16 @@
 
 #include "integrate_internal.h"
 
+/* The armed reservoirs below their floor in y (bit r). */
+static unsigned long below_floor(const double *y, unsigned long armed)
+{
+    unsigned long ex = 0;
+    for (int r = 0; r < VL_NRES; r++)
+        if ((armed >> r & 1UL) && y[r] < vl_reservoir_floor(r))
+            ex |= 1UL << r;
+    return ex;
+}
+
 vl_signature vl_events_signature(const vl_ode *ode, double t, const double *y, int regime,
                                  unsigned long armed, double *cols)
 {
@@ -30,9 +40,7 @@ vl_signature vl_events_signature(const vl_ode *ode, double t, const double *y, i
         if (vl_model_classify(m, ode->w, y, &other) == regime)
             s.regime = regime;
     }
-    for (int r = 0; r < VL_NRES; r++)
-        if ((armed >> r & 1UL) && y[r] < vl_reservoir_floor(r))
-            s.exhausted |= 1UL << r;
+    s.exhausted = below_floor(y, armed);
     return s;
 }
 
@@ -73,6 +81,7 @@ int vl_events_roots(double t, N_Vector yv, double *g, void *pv)
      * escape drains) would switch at every round-off of the age */
     vl_signature s = vl_events_signature(ode, t, y, ode->regime, 0, ode->g_cols);
     g[VL_NRES] = s.regime == ode->regime || t < ode->hold_until ? 1.0 : -1.0;
+    ode->g_regime = s.regime;
     ode->g_t = t;
     memcpy(ode->g_y, y, sizeof ode->g_y);
     ode->g_valid = 1;
@@ -85,10 +94,10 @@ void vl_events_directions(int *dir)
         dir[k] = -1;
 }
 
-void vl_events_columns(vl_ode *ode, double t, const double *y, double *cols)
+vl_signature vl_events_at(vl_ode *ode, double t, const double *y, double *cols)
 {
-    if (ode->g_valid && ode->g_t == t && memcmp(ode->g_y, y, sizeof ode->g_y) == 0)
-        memcpy(cols, ode->g_cols, ode->m->ncolumns * sizeof *cols);
-    else
-        vl_events_signature(ode, t, y, ode->regime, 0, cols);
+    if (!(ode->g_valid && ode->g_t == t && memcmp(ode->g_y, y, sizeof ode->g_y) == 0))
+        return vl_events_signature(ode, t, y, ode->regime, ode->armed, cols);
+    memcpy(cols, ode->g_cols, ode->m->ncolumns * sizeof *cols);
+    return (vl_signature){ode->g_regime, below_floor(y, ode->armed)};
 }

@@ -208,9 +208,8 @@ static int emit_outputs(runner_t *r, vl_status *st)
 static int handle_event(runner_t *r, double t0, vl_status *st)
 {
     vl_ode *ode = r->ode;
-    vl_signature s = vl_events_signature(ode, r->t, r->y, ode->regime, ode->armed, NULL);
+    vl_signature s = vl_events_at(ode, r->t, r->y, r->now);
     s.exhausted |= vl_stepper_exhausted(r->s, ode->armed);
-    vl_events_columns(ode, r->t, r->y, r->now);
     account(r, t0);
     if (vl_events_same(s, ode->regime))
         return VL_OK;
@@ -250,7 +249,7 @@ static int advance(runner_t *r, vl_status *st)
         if (root) {
             rc = handle_event(r, t0, st);
         } else {
-            vl_events_columns(r->ode, r->t, r->y, r->now);
+            vl_events_at(r->ode, r->t, r->y, r->now);
             account(r, t0);
         }
     }

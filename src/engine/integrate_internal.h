@@ -32,7 +32,7 @@ typedef struct {
     long rhs_calls;
     double yt[VL_NSTATE], f1[VL_NSTATE]; /* Jacobian scratch */
     double g_t, g_y[VL_NSTATE], g_cols[VL_MAX_COLUMNS];
-    int g_valid;
+    int g_regime, g_valid;               /* the regime the conditions there call for */
 } vl_ode;
 
 /* CVODE with its context, state vector, tolerances, dense matrix and solver; the steps
@@ -95,8 +95,9 @@ unsigned long vl_events_rearm(const double *y, unsigned long armed);
 int vl_events_roots(double t, N_Vector y, double *g, void *pv);
 /* The root directions: every function is watched falling through zero. */
 void vl_events_directions(int *dir);
-/* The process flux columns at (t, y) under the regime in force: those of the last root
- * evaluation when it was at this very point, else evaluated. */
-void vl_events_columns(vl_ode *ode, double t, const double *y, double *cols);
+/* The signature at (t, y) under the regime in force, among the armed reservoirs, and the
+ * process flux columns there: from the last root evaluation when it was at this very
+ * point (no second model evaluation), else evaluated. */
+vl_signature vl_events_at(vl_ode *ode, double t, const double *y, double *cols);
 
 #endif
