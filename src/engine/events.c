@@ -68,10 +68,8 @@ unsigned long vl_events_rearm(const double *y, unsigned long armed)
     return armed;
 }
 
-int vl_events_roots(double t, N_Vector yv, double *g, void *pv)
+void vl_events_roots(vl_ode *ode, double t, const double *y, double *g)
 {
-    vl_ode *ode = pv;
-    const double *y = N_VGetArrayPointer(yv);
     for (int r = 0; r < VL_NRES; r++)
         g[r] = (ode->armed >> r & 1UL) ? y[r] - vl_reservoir_floor(r) : 1.0;
     /* the regime has no continuous margin (the column climate's regime is which branches
@@ -85,7 +83,6 @@ int vl_events_roots(double t, N_Vector yv, double *g, void *pv)
     ode->g_t = t;
     memcpy(ode->g_y, y, sizeof ode->g_y);
     ode->g_valid = 1;
-    return 0;
 }
 
 void vl_events_directions(int *dir)

@@ -33,9 +33,19 @@ typedef struct {
     double yt[VL_NSTATE], f1[VL_NSTATE]; /* Jacobian scratch */
     double g_t, g_y[VL_NSTATE], g_cols[VL_MAX_COLUMNS];
     int g_regime, g_valid;               /* the regime the conditions there call for */
+    /* The integrator's vector holds the na active components idx[0..na) (active.c);
+     * full is the whole state the right-hand side and the root functions see, its other
+     * components fixed at their (zero) start. */
+    int na, idx[VL_NSTATE];
+    double full[VL_NSTATE];
 } vl_ode;
 
-/* CVODE with its context, state vector, tolerances, dense matrix and solver; the steps
+/* The components of the state a history of m starting at y0 can change, in state order,
+ * into idx; returns their number (active.c). */
+int vl_active_components(const vl_model *m, const double *y0, int *idx);
+
+/* CVODE with its context, state vector (the active components), tolerances, dense
+ * matrix and solver sized to them; the steps
  * taken before its last re-initialisation (which resets CVODE's own count), and the
  * last error message CVODE reported. */
 typedef struct {
@@ -44,7 +54,8 @@ typedef struct {
     N_Vector y, abstol;
     SUNMatrix jm;
     SUNLinearSolver ls;
-    double end_s;
+    vl_ode *ode;
+    double end_s, norm_scale;
     long steps_before, jacs_before;
     char msg[200];
 } vl_stepper;
@@ -91,8 +102,8 @@ int vl_events_same(vl_signature sig, int regime);
 int vl_events_settle(const vl_ode *ode, double t, const double *y, int regime);
 /* armed plus the reservoirs well above their floor in y (each is logged once). */
 unsigned long vl_events_rearm(const double *y, unsigned long armed);
-/* CVODE's root functions (VL_NROOTS of them, CVRootFn) over the vl_ode in pv. */
-int vl_events_roots(double t, N_Vector y, double *g, void *pv);
+/* The root functions (VL_NROOTS of them) at (t, y), y the whole state. */
+void vl_events_roots(vl_ode *ode, double t, const double *y, double *g);
 /* The root directions: every function is watched falling through zero. */
 void vl_events_directions(int *dir);
 /* The signature at (t, y) under the regime in force, among the armed reservoirs, and the

@@ -2,8 +2,10 @@
  * (variable order, Newton iteration, dense linear solver) over the model's right-hand
  * side with a finite-difference Jacobian, per-reservoir absolute scales (floor / 1e3;
  * the mantle's potential temperature: TP_ABS_K), the run's relative tolerance, the
- * run's end as stop time, and the event watch's root functions. One SUNDIALS context
- * per stepper, so the runs of a sweep's threads and ranks share nothing. */
+ * run's end as stop time, and the event watch's root functions. CVODE's vector holds
+ * only the components the history can change (active.c): its error norm, Jacobian
+ * columns and linear solve are sized to them. One SUNDIALS context per stepper, so the
+ * runs of a sweep's threads and ranks share nothing. */
 #include <float.h>
 #include <math.h>
 #include <stdio.h>
@@ -25,6 +27,21 @@
 /* Size of state component j below which its Jacobian increment stops shrinking. */
 static double component_size(int j) { return j < VL_NRES ? vl_reservoir_floor(j) : TP_SIZE_K; }
 
+/* The whole state from the active components p (the others keep their start). */
+static double *unpack(vl_ode *c, const double *p)
+{
+    for (int k = 0; k < c->na; k++)
+        c->full[c->idx[k]] = p[k];
+    return c->full;
+}
+
+/* The active components of the whole state y into p. */
+static void pack(const vl_ode *c, const double *y, double *p)
+{
+    for (int k = 0; k < c->na; k++)
+        p[k] = y[c->idx[k]];
+}
+
 int vl_stepper_finite(const double *v, size_t n)
 {
     for (size_t i = 0; i < n; i++)
@@ -38,39 +55,49 @@ int vl_stepper_finite(const double *v, size_t n)
 static int rhs(double t, N_Vector yv, N_Vector fv, void *pv)
 {
     vl_ode *c = pv;
-    double *f = N_VGetArrayPointer(fv);
+    double f[VL_NSTATE];
     c->rhs_calls++;
-    vl_model_rhs(c->m, c->w, t, N_VGetArrayPointer(yv), c->regime, f, NULL, NULL);
+    vl_model_rhs(c->m, c->w, t, unpack(c, N_VGetArrayPointer(yv)), c->regime, f, NULL, NULL);
+    pack(c, f, N_VGetArrayPointer(fv));
     return vl_stepper_finite(f, VL_NSTATE) ? 0 : 1;
 }
 
-/* Forward-difference Jacobian (CVLsJacFn) from CVODE's f(t, y); increments scale with
- * each reservoir's floor band. */
+/* The event watch's root functions (CVRootFn) on the whole state. */
+static int roots(double t, N_Vector yv, double *g, void *pv)
+{
+    vl_ode *c = pv;
+    vl_events_roots(c, t, unpack(c, N_VGetArrayPointer(yv)), g);
+    return 0;
+}
+
+/* Forward-difference Jacobian (CVLsJacFn) of the active components from CVODE's f(t, y);
+ * increments scale with each reservoir's floor band. */
 static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vector t1,
                N_Vector t2, N_Vector t3)
 {
     (void)t1, (void)t2, (void)t3;
     vl_ode *c = pv;
-    const double *y = N_VGetArrayPointer(yv), *f0 = N_VGetArrayPointer(fy);
+    const double *f0 = N_VGetArrayPointer(fy);
     double sq = sqrt(DBL_EPSILON);
-    memcpy(c->yt, y, sizeof c->yt);
-    for (int j = 0; j < VL_NSTATE; j++) {
-        double *col = SUNDenseMatrix_Column(jm, j);
+    memcpy(c->yt, unpack(c, N_VGetArrayPointer(yv)), sizeof c->yt);
+    for (int k = 0; k < c->na; k++) {
+        int j = c->idx[k];
+        double *col = SUNDenseMatrix_Column(jm, k), yj = c->yt[j];
         /* no process reads space; a mantle that never was molten has no temperature */
-        if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && y[j] == 0.0)) {
-            for (int i = 0; i < VL_NSTATE; i++)
+        if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && yj == 0.0)) {
+            for (int i = 0; i < c->na; i++)
                 col[i] = 0.0;
             continue;
         }
-        double h = sq * fmax(fabs(y[j]), component_size(j));
-        c->yt[j] = y[j] + h;
+        double h = sq * fmax(fabs(yj), component_size(j));
+        c->yt[j] = yj + h;
         c->rhs_calls++;
         vl_model_rhs(c->m, c->w, t, c->yt, c->regime, c->f1, NULL, NULL);
         if (!vl_stepper_finite(c->f1, VL_NSTATE))
             return 1;
-        c->yt[j] = y[j];
-        for (int i = 0; i < VL_NSTATE; i++)
-            col[i] = (c->f1[i] - f0[i]) / h;
+        c->yt[j] = yj;
+        for (int i = 0; i < c->na; i++)
+            col[i] = (c->f1[c->idx[i]] - f0[i]) / h;
     }
     return 0;
 }
@@ -94,11 +121,11 @@ static int configure(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, vl_sta
     int dir[VL_NROOTS];
     vl_events_directions(dir);
     if (CVodeSetErrHandlerFn(s->cv, quiet, s) || CVodeSetUserData(s->cv, ode) ||
-        CVodeSVtolerances(s->cv, rp->rel_tol, s->abstol) ||
+        CVodeSVtolerances(s->cv, rp->rel_tol * s->norm_scale, s->abstol) ||
         CVodeSetMaxNumSteps(s->cv, rp->max_steps) || CVodeSetStopTime(s->cv, s->end_s) ||
         CVodeSetMaxErrTestFails(s->cv, 20) ||
         CVodeSetLinearSolver(s->cv, s->ls, s->jm) || CVodeSetJacFn(s->cv, jac) ||
-        CVodeRootInit(s->cv, VL_NROOTS, vl_events_roots) || CVodeSetRootDirection(s->cv, dir) ||
+        CVodeRootInit(s->cv, VL_NROOTS, roots) || CVodeSetRootDirection(s->cv, dir) ||
         CVodeSetNoInactiveRootWarn(s->cv))
         return setup_failed(st, s->msg[0] ? s->msg : "a setting was refused");
     return VL_OK;
@@ -109,20 +136,30 @@ int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, double 
 {
     memset(s, 0, sizeof *s);
     s->end_s = rp->end_s;
+    s->ode = ode;
+    memcpy(ode->full, y0, sizeof ode->full);
+    ode->na = vl_active_components(ode->m, y0, ode->idx);
+    int n = ode->na;
     if (SUNContext_Create(NULL, &s->ctx))
         return setup_failed(st, "no SUNDIALS context");
-    s->y = N_VNew_Serial(VL_NSTATE, s->ctx);
-    s->abstol = N_VNew_Serial(VL_NSTATE, s->ctx);
-    s->jm = SUNDenseMatrix(VL_NSTATE, VL_NSTATE, s->ctx);
+    s->y = N_VNew_Serial(n, s->ctx);
+    s->abstol = N_VNew_Serial(n, s->ctx);
+    s->jm = SUNDenseMatrix(n, n, s->ctx);
     s->ls = s->y && s->jm ? SUNLinSol_Dense(s->y, s->jm, s->ctx) : NULL;
     s->cv = CVodeCreate(CV_BDF, s->ctx);
     if (!s->y || !s->abstol || !s->jm || !s->ls || !s->cv)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    /* CVODE's error norm is a root mean square over its vector: the tolerances grow by
+     * sqrt(VL_NSTATE / n) so that the norm is the whole state's, the fixed components
+     * counting with zero error (the tolerances mean what they meant over the full state) */
+    s->norm_scale = sqrt((double)VL_NSTATE / n);
     double *a = N_VGetArrayPointer(s->abstol);
-    for (int i = 0; i < VL_NRES; i++)
-        a[i] = rp->abs_tol_kg * vl_reservoir_floor(i) / 1e3;
-    a[VL_S_MANTLE_TP] = TP_ABS_K;
-    memcpy(N_VGetArrayPointer(s->y), y0, VL_NSTATE * sizeof *y0);
+    for (int k = 0; k < n; k++) {
+        int j = ode->idx[k];
+        a[k] = s->norm_scale *
+               (j < VL_NRES ? rp->abs_tol_kg * vl_reservoir_floor(j) / 1e3 : TP_ABS_K);
+    }
+    pack(ode, y0, N_VGetArrayPointer(s->y));
     if (CVodeInit(s->cv, rhs, t0, s->y))
         return setup_failed(st, s->msg[0] ? s->msg : "CVodeInit");
     return configure(s, ode, rp, st);
@@ -162,9 +199,7 @@ int vl_stepper_restart(vl_stepper *s, double t, const double *y, double h0, vl_s
 {
     s->steps_before = vl_stepper_steps(s);
     s->jacs_before = vl_stepper_jacobians(s);
-    double *yv = N_VGetArrayPointer(s->y);
-    if (yv != y)
-        memcpy(yv, y, VL_NSTATE * sizeof *y);
+    pack(s->ode, y, N_VGetArrayPointer(s->y));
     /* the stop time is set again: a re-initialisation may forget it */
     if (CVodeReInit(s->cv, t, s->y) || CVodeSetInitStep(s->cv, fmin(h0, s->end_s - t)) ||
         CVodeSetStopTime(s->cv, s->end_s))
@@ -184,37 +219,43 @@ int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restar
 {
     double h = 0.0, t0 = *t;
     int rc = CVode(s->cv, s->end_s, s->y, t, CV_ONE_STEP);
+    size_t n = (size_t)s->ode->na;
     const double *yv = N_VGetArrayPointer(s->y);
-    for (int retry = 0; retry < 8 && (rc < 0 || !vl_stepper_finite(yv, VL_NSTATE)); retry++) {
+    for (int retry = 0; retry < 8 && (rc < 0 || !vl_stepper_finite(yv, n)); retry++) {
         /* CVODE leaves (t, y) at its last accepted point */
         if (retry == 0)
             CVodeGetLastStep(s->cv, &h);
         h = fmax(h, 1.0) * 1e-2;
         (*restarts)++;
-        if (!vl_stepper_finite(yv, VL_NSTATE)) {
+        double p[VL_NSTATE];
+        if (vl_stepper_finite(yv, n)) {
+            memcpy(p, yv, n * sizeof *p);
+        } else {
             *t = t0;
-            memcpy(N_VGetArrayPointer(s->y), y, VL_NSTATE * sizeof *y);
+            pack(s->ode, y, p);
         }
-        if (vl_stepper_restart(s, *t, yv, h, st) != VL_OK)
+        if (vl_stepper_restart(s, *t, unpack(s->ode, p), h, st) != VL_OK)
             return st->code;
         rc = CVode(s->cv, s->end_s, s->y, t, CV_ONE_STEP);
     }
-    if (rc < 0 || !vl_stepper_finite(yv, VL_NSTATE))
+    if (rc < 0 || !vl_stepper_finite(yv, n))
         return failed(s, st, *t);
-    memcpy(y, yv, VL_NSTATE * sizeof *y);
+    memcpy(y, unpack(s->ode, yv), VL_NSTATE * sizeof *y);
     *root = rc == CV_ROOT_RETURN;
     return VL_OK;
 }
 
 int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st)
 {
-    N_Vector v = N_VMake_Serial(VL_NSTATE, y, s->ctx);
+    double p[VL_NSTATE];
+    N_Vector v = N_VMake_Serial(s->ode->na, p, s->ctx);
     int rc = v ? CVodeGetDky(s->cv, t, 0, v) : -1;
     if (v)
         N_VDestroy(v);
     if (rc)
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "no dense output at age %.6g yr: %s",
                        t / VL_YR, s->msg);
+    memcpy(y, unpack(s->ode, p), VL_NSTATE * sizeof *y);
     return VL_OK;
 }
 
