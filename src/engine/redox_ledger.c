@@ -2,6 +2,7 @@
 #include "volev/redox_ledger.h"
 
 #include <math.h>
+#include <pthread.h>
 
 #include "volev/units.h"
 
@@ -67,12 +68,28 @@ void vl_redox_pools(const double *y, vl_redox_state *out)
     }
 }
 
+/* The surface reservoirs with a nonzero redox weight (H2O, CO2, N2 and deuterium weigh
+ * nothing: their terms add exact zeros), in state order, with their weights; built once
+ * per process. */
+static int surface_n, surface_r[VL_NRES];
+static double surface_w[VL_NRES];
+static pthread_once_t surface_once = PTHREAD_ONCE_INIT;
+
+static void surface_terms(void)
+{
+    for (int r = 0; r < VL_NRES; r++)
+        if (vl_redox_pool(r) == VL_POOL_SURFACE && vl_redox_weight_kg(r) != 0.0) {
+            surface_r[surface_n] = r;
+            surface_w[surface_n++] = vl_redox_weight_kg(r);
+        }
+}
+
 double vl_redox_surface_rate(const double *dydt)
 {
+    pthread_once(&surface_once, surface_terms);
     double s = 0.0;
-    for (int r = 0; r < VL_NRES; r++)
-        if (vl_redox_pool(r) == VL_POOL_SURFACE)
-            s += dydt[r] * vl_redox_weight_kg(r);
+    for (int k = 0; k < surface_n; k++)
+        s += dydt[surface_r[k]] * surface_w[k];
     return s;
 }
 
