@@ -6,6 +6,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "volev/numfmt.h"
 #include "volev/redox_ledger.h"
 #include "volev/schema.h"
 #include "volev/units.h"
@@ -106,6 +107,14 @@ int vl_series_write_header(FILE *f, const vl_model *m)
     return fputc('\n', f) == EOF ? -1 : 0;
 }
 
+/* sep then v as "%.10g" writes it (numfmt.h: the same bytes, a tenth of the work). */
+static void put_number(FILE *f, const char *sep, double v)
+{
+    char buf[48];
+    fputs(sep, f);
+    fwrite(buf, 1, (size_t)vl_format_g(buf, sizeof buf, 10, v), f);
+}
+
 int vl_series_write_row(FILE *f, const vl_row *r)
 {
     for (int id = 0; id < VL_NSERIES; id++) {
@@ -114,11 +123,11 @@ int vl_series_write_row(FILE *f, const vl_row *r)
         if (c->kind == VL_COL_CODE)
             fprintf(f, "%s%d", id ? "," : "", (int)v);
         else
-            fprintf(f, "%s%.10g", id ? "," : "", v);
+            put_number(f, id ? "," : "", v);
     }
     for (int q = 0; q < VL_NRES; q++)
-        fprintf(f, ",%.10g", clamp0(r->y[q]));
+        put_number(f, ",", clamp0(r->y[q]));
     for (size_t c = 0; c < r->m->ncolumns; c++) /* the redox columns are signed */
-        fprintf(f, ",%.10g", c < r->m->nflux ? clamp0(r->columns[c]) : r->columns[c]);
+        put_number(f, ",", c < r->m->nflux ? clamp0(r->columns[c]) : r->columns[c]);
     return fputc('\n', f) == EOF ? -1 : 0;
 }
