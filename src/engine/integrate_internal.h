@@ -60,6 +60,10 @@ typedef struct {
     char msg[200];
 } vl_stepper;
 
+/* A direct linear solver for CVODE on an n x n dense matrix (dense_lu.c); NULL when out
+ * of memory. */
+SUNLinearSolver vl_dense_lu_new(sunindextype n, SUNContext ctx);
+
 /* 1 when every entry of v is finite. */
 int vl_stepper_finite(const double *v, size_t n);
 /* A stepper over ode starting at (t0, y0) with the run's tolerances, root functions

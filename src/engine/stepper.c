@@ -13,7 +13,6 @@
 
 #include <cvode/cvode_ls.h>
 #include <nvector/nvector_serial.h>
-#include <sunlinsol/sunlinsol_dense.h>
 #include <sunmatrix/sunmatrix_dense.h>
 
 #include "integrate_internal.h"
@@ -145,7 +144,7 @@ int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, double 
     s->y = N_VNew_Serial(n, s->ctx);
     s->abstol = N_VNew_Serial(n, s->ctx);
     s->jm = SUNDenseMatrix(n, n, s->ctx);
-    s->ls = s->y && s->jm ? SUNLinSol_Dense(s->y, s->jm, s->ctx) : NULL;
+    s->ls = s->y && s->jm ? vl_dense_lu_new(n, s->ctx) : NULL;
     s->cv = CVodeCreate(CV_BDF, s->ctx);
     if (!s->y || !s->abstol || !s->jm || !s->ls || !s->cv)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
