@@ -178,6 +178,35 @@ void vl_model_free(vl_model *m)
     free(m);
 }
 
+/* Whether process p may write reservoir r's entry of its row: r, or r as the deuterium
+ * companion, in one of its declared transfers or reaction terms (flux.c writes no other). */
+static int may_write(const vl_process *p, int r)
+{
+    for (size_t k = 0; k < p->ntransfers; k++) {
+        int a = p->transfers[k].from, b = p->transfers[k].to;
+        if (a == r || b == r || vl_reservoir_deuterium(a) == r || vl_reservoir_deuterium(b) == r)
+            return 1;
+    }
+    for (size_t k = 0; k < p->nreactions; k++)
+        for (int q = 0; q < p->reactions[k].n; q++) {
+            int a = p->reactions[k].res[q];
+            if (a == r || vl_reservoir_deuterium(a) == r)
+                return 1;
+        }
+    return 0;
+}
+
+/* w->touch and w->ntouch for m. */
+static void touch_lists(const vl_model *m, vl_work *w)
+{
+    for (int r = 0; r < VL_NRES; r++) {
+        w->ntouch[r] = 0;
+        for (size_t k = 0; k < m->nproc; k++)
+            if (may_write(m->proc[m->sum_order[k]], r))
+                w->touch[(size_t)r * m->nproc + w->ntouch[r]++] = m->sum_order[k];
+    }
+}
+
 vl_work *vl_work_new(const vl_model *m, vl_status *st)
 {
     vl_work *w = calloc(1, sizeof *w);
@@ -186,7 +215,8 @@ vl_work *vl_work_new(const vl_model *m, vl_status *st)
         return NULL;
     }
     w->rows = calloc(m->nproc ? m->nproc : 1, sizeof *w->rows);
-    if (!w->rows) {
+    w->touch = calloc((size_t)VL_NRES * (m->nproc ? m->nproc : 1), sizeof *w->touch);
+    if (!w->rows || !w->touch) {
         vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
         vl_work_free(w);
         return NULL;
@@ -195,6 +225,7 @@ vl_work *vl_work_new(const vl_model *m, vl_status *st)
         vl_work_free(w);
         return NULL;
     }
+    touch_lists(m, w);
     return w;
 }
 
@@ -204,6 +235,7 @@ void vl_work_free(vl_work *w)
         return;
     vl_climate_work_free(w->climate);
     free(w->rows);
+    free(w->touch);
     free(w);
 }
 

@@ -18,6 +18,11 @@ struct vl_work {
      * that do not touch it reuse it) */
     vl_ocean_cache ocean[2];
     double (*rows)[VL_NRES];   /* owned; one tendency row per process (m->nproc) */
+    /* owned; for reservoir r, the processes that may write its row entry (a declared
+     * transfer or reaction term, or its deuterium companion), in m->sum_order's order:
+     * touch[r * m->nproc + k] for k < ntouch[r]; the others' entries stay exact zeros */
+    size_t *touch;
+    size_t ntouch[VL_NRES];
 };
 
 /* The magma-ocean stage (melt_stage.c): the melt and the volatiles it holds from the

@@ -148,10 +148,13 @@ void vl_model_rhs(const vl_model *m, vl_work *w, double t_s, const double *y, in
                       p->transfers, p->ntransfers, p->reactions, p->nreactions};
         p->rates(m->params[i], &v, &fx);
     }
+    /* the rows added up in name order; a process that cannot write r adds an exact +0,
+     * which changes no sum (a sum that starts at +0 is never -0), so it is skipped */
     for (int r = 0; r < VL_NRES; r++) {
         double s = 0.0;
-        for (size_t k = 0; k < m->nproc; k++)
-            s += w->rows[m->sum_order[k]][r];
+        const size_t *who = w->touch + (size_t)r * m->nproc;
+        for (size_t k = 0; k < w->ntouch[r]; k++)
+            s += w->rows[who[k]][r];
         dydt[r] = s;
     }
     dydt[VL_S_MANTLE_TP] = e->melt.dtp_dt;
