@@ -101,7 +101,7 @@ static void substitute(realtype **a, sunindextype n, const sunindextype *p, real
 static int lu_setup(SUNLinearSolver s, SUNMatrix m)
 {
     lu_content *c = CONTENT(s);
-    c->last = factor(SUNDenseMatrix_Cols(m), c->n, c->pivot);
+    c->last = factor(SM_COLS_D(m), c->n, c->pivot);
     return c->last > 0 ? SUNLS_LUFACT_FAIL : SUNLS_SUCCESS;
 }
 
@@ -109,10 +109,10 @@ static int lu_solve(SUNLinearSolver s, SUNMatrix m, N_Vector x, N_Vector b, real
 {
     (void)tol;
     lu_content *c = CONTENT(s);
-    realtype *xd = N_VGetArrayPointer(x), *bd = N_VGetArrayPointer(b);
+    realtype *xd = NV_DATA_S(x), *bd = NV_DATA_S(b);
     for (sunindextype i = 0; i < c->n; i++)
         xd[i] = bd[i];
-    substitute(SUNDenseMatrix_Cols(m), c->n, c->pivot, xd);
+    substitute(SM_COLS_D(m), c->n, c->pivot, xd);
     return SUNLS_SUCCESS;
 }
 

@@ -64,6 +64,12 @@ typedef struct {
  * of memory. */
 SUNLinearSolver vl_dense_lu_new(sunindextype n, SUNContext ctx);
 
+/* Install the project's compiled kernels for CVODE's hot operations in the tables of a
+ * serial vector (clones inherit them) and of a dense square matrix
+ * (sundials_kernels.c); the results are SUNDIALS's own to the bit. */
+void vl_kernels_vector(N_Vector v);
+void vl_kernels_matrix(SUNMatrix m);
+
 /* 1 when every entry of v is finite. */
 int vl_stepper_finite(const double *v, size_t n);
 /* A stepper over ode starting at (t0, y0) with the run's tolerances, root functions

@@ -148,6 +148,9 @@ int vl_stepper_init(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, double 
     s->cv = CVodeCreate(CV_BDF, s->ctx);
     if (!s->y || !s->abstol || !s->jm || !s->ls || !s->cv)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    vl_kernels_vector(s->y);
+    vl_kernels_vector(s->abstol);
+    vl_kernels_matrix(s->jm);
     /* CVODE's error norm is a root mean square over its vector: the tolerances grow by
      * sqrt(VL_NSTATE / n) so that the norm is the whole state's, the fixed components
      * counting with zero error (the tolerances mean what they meant over the full state) */
