@@ -1015,7 +1015,7 @@ def main(argv):
     have_v = a.volev_ms is not None and a.volev_rhs
     if a.volev_ms is not None:
         print("%-15s %10.2f %7s %9s %7s %5s %5s %9s %9s" % (
-            "volev msbdf", a.volev_ms, a.volev_steps if a.volev_steps is not None else "-",
+            "volev CVODE", a.volev_ms, a.volev_steps if a.volev_steps is not None else "-",
             a.volev_rhs if a.volev_rhs is not None else "-", "-", "-", "-", "1", "1"))
     for res in results + ([ref] if ref else []):
         if res["stalled"]:
