@@ -23,6 +23,14 @@
 #define TP_ABS_K 1e-3
 #define TP_SIZE_K 1.0
 
+/* The highest BDF order. BDF5 is stable only within 51.8 degrees of the negative real
+ * axis, BDF4 within 73.4 (Hairer & Wanner 1996, Solving Ordinary Differential Equations
+ * II, section V.2, Table 2.3): trace O2 and H2 coupled through water and oxidation have
+ * stiff modes that BDF5 cannot hold, and at order 5 some small, cold planets stalled
+ * with their O2 jumping between 2e3 and 4e4 kg from step to step (docs/model.md
+ * section 6); at order 4 they finish and the bundled scenarios take about as many steps. */
+#define MAX_ORDER 4
+
 /* Size of state component j below which its Jacobian increment stops shrinking. */
 static double component_size(int j) { return j < VL_NRES ? vl_reservoir_floor(j) : TP_SIZE_K; }
 
@@ -122,6 +130,7 @@ static int configure(vl_stepper *s, vl_ode *ode, const vl_run_params *rp, vl_sta
     if (CVodeSetErrHandlerFn(s->cv, quiet, s) || CVodeSetUserData(s->cv, ode) ||
         CVodeSVtolerances(s->cv, rp->rel_tol * s->norm_scale, s->abstol) ||
         CVodeSetMaxNumSteps(s->cv, rp->max_steps) || CVodeSetStopTime(s->cv, s->end_s) ||
+        CVodeSetMaxOrd(s->cv, MAX_ORDER) ||
         CVodeSetMaxErrTestFails(s->cv, 20) ||
         CVodeSetLinearSolver(s->cv, s->ls, s->jm) || CVodeSetJacFn(s->cv, jac) ||
         CVodeRootInit(s->cv, VL_NROOTS, roots) || CVodeSetRootDirection(s->cv, dir) ||
