@@ -30,7 +30,7 @@
 # bar, N2 0 or 1e-3-100 bar (each zero one time in ten), the XUV heating efficiency
 # 0.01-1, the column climate or the habitable-zone fit, impacts on or off, a molten
 # start or not (with the column climate, which a molten start needs). Teff is clamped to
-# star.teff_k's bounds (2600-7200 K) and the orbit to planet.orbit_au's (>= 0.005 au). Every fourth member sits on a corner (each ranged quantity at one of its
+# star.teff_k's bounds (2600-7200 K) and the orbit to planet.orbit_au's (0.005-100 au). Every fourth member sits on a corner (each ranged quantity at one of its
 # ends).
 #
 # Writes OUT/campaign.csv (one row per member: its overrides, exit code, class, seconds)
@@ -71,7 +71,8 @@ BEGIN {
         rp = mp ^ 0.27
         teq = lu(30, 2000, corner())
         a = (278.6 / teq) ^ 2 * sqrt(l)
-        if (a < 0.005) a = 0.005          # the lower bound of planet.orbit_au
+        if (a < 0.005) a = 0.005          # the bounds of planet.orbit_au
+        if (a > 100) a = 100
         w = zlu(1e-3, 1000, corner()); c = zlu(1e-4, 1e4, corner()); n2 = zlu(1e-3, 100, corner())
         eff = un(0.01, 1, corner())
         clim = rand() < 0.5 ? "column" : "hz_fit"
