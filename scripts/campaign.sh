@@ -86,10 +86,10 @@ BEGIN {
     }
 }' > "$out/design.txt"
 
-# Run one member (its design line in $1); print "n,exit,class,seconds".
+# Run member $1 (its line of design.txt); print "n,exit,class,seconds".
 run_member() {
-    n=${1%% *}
-    sets=${1#* }
+    n=$1
+    sets=$(awk -v n="$n" '$1 == n { sub(/^[0-9]+ /, ""); print; exit }' "$out/design.txt")
     dir="$out/runs/$n"
     rm -rf "$dir"
     t0=$(date +%s.%N)
@@ -123,8 +123,7 @@ run_member() {
 export bin out top limit
 export -f run_member
 : > "$out/results.txt"
-tr '\n' '\0' < "$out/design.txt" |
-    xargs -0 -P "$jobs" -I{} bash -c 'run_member "$1"' _ {} >> "$out/results.txt"
+seq 1 "$members" | xargs -P "$jobs" -n 1 bash -c 'run_member "$1"' _ >> "$out/results.txt"
 
 {
     echo "member,exit,class,seconds,overrides"
