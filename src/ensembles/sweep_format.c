@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "volev/climate.h"
+#include "volev/output.h"
 #include "volev/sweep.h"
 
 /* A growing text buffer; bad after an allocation failure. */
@@ -103,13 +104,13 @@ char *vl_sweep_header(const vl_sweep *sw)
     return done(&b);
 }
 
-/* ",V" with 10 significant digits, or "," for an undefined (non-finite) value. */
+/* ",V" with 10 significant digits, or "," for an undefined (non-finite) value: the
+ * number rule of every output file (vl_output_number). */
 static void put_num(buf_t *b, double v)
 {
-    if (isfinite(v))
-        put(b, ",%.10g", v);
-    else
-        put(b, ",");
+    char num[64];
+    vl_output_number(num, sizeof num, "%.10g", v);
+    put(b, ",%s", num);
 }
 
 /* The row of res, in the header's columns. */
@@ -129,10 +130,10 @@ char *vl_sweep_row(const vl_sweep *sw, const vl_member *res)
                 put_field(&b, sw->cat->cells[row][c]);
         }
         if (sw->nwaters)
-            put(&b, ",%.10g", sw->waters[(size_t)i % per]);
+            put_num(&b, sw->waters[(size_t)i % per]);
     } else {
         for (size_t a = 0; a < sw->k; a++)
-            put(&b, ",%.10g", sw->x[(size_t)i * sw->k + a]);
+            put_num(&b, sw->x[(size_t)i * sw->k + a]);
     }
     put(&b, ",%s,%s,%s", res->status == VL_OK ? "ok" : "failed", vl_class_name[res->cls],
         res->regime >= 0 ? vl_regime_name(res->regime) : "");

@@ -50,6 +50,12 @@ const vl_event_column vl_event_columns[VL_NEVENT_COLUMNS] = {
 
 void vl_schema_print_reference(FILE *out)
 {
+    fprintf(out, "A quantity that has no value in a row (the D/H ratio of water that is not "
+                 "there, an age of something that never happened, a ratio to a zero) is an "
+                 "empty field: no file volev writes (series.csv, events.csv, summary.csv, and a "
+                 "sweep's members.csv, ensemble_summary.csv, ensemble_series.csv, "
+                 "sensitivity.csv) ever holds `nan` or `inf`, and a zero is written `0`, never "
+                 "`-0`. The fields that can be empty are named below.\n\n");
     series_reference(out);
     fprintf(out, "\n## events.csv\n\n| column | unit | meaning |\n|---|---|---|\n");
     for (int i = 0; i < VL_NEVENT_COLUMNS; i++)
