@@ -10,6 +10,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "volev/folder.h"
 #include "volev/schema.h"
 #include "volev/units.h"
 
@@ -115,7 +116,7 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
         return NULL;
     }
     for (int i = 0; i < NFILES; i++) {
-        snprintf(o->tmp[i], sizeof o->tmp[i], "%s/.%s.%ld.tmp", dir, file_name[i], (long)getpid());
+        vl_folder_temp_name(o->tmp[i], sizeof o->tmp[i], dir, file_name[i]);
         o->f[i] = fopen(o->tmp[i], "w");
         if (!o->f[i]) {
             io_fail(st, o->tmp[i]);
