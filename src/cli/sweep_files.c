@@ -11,6 +11,7 @@
 #include <unistd.h>
 
 #include "sweep_internal.h"
+#include "volev/folder.h"
 #include "volev/output.h"
 #include "volev/params.h"
 #include "volev/scenario.h"
@@ -21,11 +22,11 @@ typedef struct {
     FILE *f;
 } outfile;
 
-/* Opens DIR/.NAME.tmp for writing, to become DIR/NAME. */
+/* Opens DIR/.NAME.PID.tmp (vl_folder_temp_name) for writing, to become DIR/NAME. */
 static int out_open(outfile *o, const char *dir, const char *name, vl_status *st)
 {
     snprintf(o->final, sizeof o->final, "%s/%s", dir, name);
-    snprintf(o->tmp, sizeof o->tmp, "%s/.%s.tmp", dir, name);
+    vl_folder_temp_name(o->tmp, sizeof o->tmp, dir, name);
     o->f = fopen(o->tmp, "w");
     if (!o->f)
         return vl_fail(st, VL_ERR_IO, o->tmp, 0, "cannot write: %s", strerror(errno));
