@@ -58,14 +58,29 @@ static char *done(buf_t *b)
     return b->s;
 }
 
-/* A CSV field: quoted when it holds a comma, quote or line break. */
-static void put_field(buf_t *b, const char *text)
+/* Whether text is one decimal number and nothing else ("-0.5", "1e3"). */
+static int is_number(const char *text)
 {
+    char *end;
+    errno = 0;
+    (void)strtod(text, &end);
+    return end != text && *end == '\0';
+}
+
+/* A CSV field: quoted when it holds a comma, quote or line break. Text that a spreadsheet
+ * would take for a formula -- starting with '=', '+', '-', '@', a tab or a carriage return
+ * -- gets a leading single quote (OWASP, "CSV Injection",
+ * https://owasp.org/www-community/attacks/CSV_Injection), unless number_ok and it is a
+ * plain number (a catalogue's "-0.5" stays a number). */
+static void put_field_as(buf_t *b, const char *text, int number_ok)
+{
+    const char *lead =
+        text[0] && strchr("=+-@\t\r", text[0]) && !(number_ok && is_number(text)) ? "'" : "";
     if (!strpbrk(text, ",\"\r\n")) {
-        put(b, "%s", text);
+        put(b, "%s%s", lead, text);
         return;
     }
-    put(b, "\"");
+    put(b, "\"%s", lead); /* the quote inside the quoted field */
     for (const char *p = text; *p; p++) {
         if (*p == '"')
             put(b, "\"\"");
@@ -76,6 +91,10 @@ static void put_field(buf_t *b, const char *text)
     }
     put(b, "\"");
 }
+
+/* A text field (a name, a header, a reason): neutralised whenever it starts like a
+ * formula. */
+static void put_field(buf_t *b, const char *text) { put_field_as(b, text, 0); }
 
 /* ------------------------------------------------------------------ members.csv */
 
@@ -126,8 +145,8 @@ char *vl_sweep_row(const vl_sweep *sw, const vl_member *res)
         put_field(&b, sw->cat->names[row]);
         for (size_t c = 0; c < sw->cat->ncols; c++) {
             put(&b, ",");
-            if (sw->cat->cells[row][c])
-                put_field(&b, sw->cat->cells[row][c]);
+            if (sw->cat->cells[row][c]) /* a value: a number stays one */
+                put_field_as(&b, sw->cat->cells[row][c], 1);
         }
         if (sw->nwaters)
             put_num(&b, sw->waters[(size_t)i % per]);
