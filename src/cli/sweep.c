@@ -136,6 +136,18 @@ static int conclude(vl_cli_sweep_ctx *c, vl_status *st)
     return rc;
 }
 
+/* Rank 0: the folder locked and checked (vl_cli_sweep_prepare_dir), a note on the
+ * leftovers it removed; *already: it holds this sweep's results. */
+static int prepare(vl_cli_sweep_ctx *c, int replace, int *already, vl_status *st)
+{
+    int p = vl_cli_sweep_prepare_dir(c, replace, st);
+    if (c->removed)
+        fprintf(stderr, "volev: note: %s: removed %ld temporary file%s left by a killed volev\n",
+                c->dir, c->removed, c->removed == 1 ? "" : "s");
+    *already = p < 0;
+    return p < 0 ? VL_OK : p;
+}
+
 /* Frees what the command holds. */
 static void release(vl_cli_sweep_ctx *c, char *done, vl_sweep *sw)
 {
@@ -167,14 +179,8 @@ int vl_cli_sweep(int argc, char **argv)
     vl_sweep *sw = vl_sweep_load(a.scenario, &st);
     char dir[1024], *done = NULL;
     int rc = sw ? start(&c, sw, a.out, dir, sizeof dir, &st) : st.code, already = 0;
-    if (rc == VL_OK && c.rank == 0) {
-        int p = vl_cli_sweep_prepare_dir(&c, a.replace, &st);
-        if (c.removed)
-            fprintf(stderr, "volev: note: %s: removed %ld temporary file%s left by a killed "
-                            "volev\n", dir, c.removed, c.removed == 1 ? "" : "s");
-        already = p < 0;
-        rc = p < 0 ? VL_OK : p;
-    }
+    if (rc == VL_OK && c.rank == 0)
+        rc = prepare(&c, a.replace, &already, &st);
     if (vl_cli_sweep_share_state(&c, &rc, already)) { /* another rank, told to stop */
         release(&c, done, sw);
         vl_cli_sweep_mpi_end();
