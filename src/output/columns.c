@@ -54,7 +54,8 @@ void vl_schema_print_reference(FILE *out)
                  "there, an age of something that never happened, a ratio to a zero) is an "
                  "empty field: no file volev writes (series.csv, events.csv, summary.csv, and a "
                  "sweep's members.csv, ensemble_summary.csv, ensemble_series.csv, "
-                 "sensitivity.csv) ever holds `nan` or `inf`, and a zero is written `0`, never "
+                 "sensitivity.csv; balance.csv, compare.csv) ever holds `nan` or `inf`, and a "
+                 "zero is written `0`, never "
                  "`-0`. The fields that can be empty are named below.\n\n");
     series_reference(out);
     fprintf(out, "\n## events.csv\n\n| column | unit | meaning |\n|---|---|---|\n");
