@@ -20,6 +20,7 @@
 
 #include "suites.h"
 #include "volev/csv.h"
+#include "volev/output.h"
 
 static char tmp[256];
 
@@ -42,6 +43,28 @@ static const char *quick =
     "run: { start_yr = 4.0e9; end_yr = 4.1e9; log_points = 20; linear_points = 20; };\n";
 
 /* ------------------------------------------------------------------ no nan, inf, -0 */
+
+/* The number rule itself (docs/columns.md, first paragraph): printf prints the sign of a
+ * negative zero and "nan"/"inf" (ISO/IEC 9899:2018 7.21.6.1); vl_output_number does not. */
+START_TEST(number_rule)
+{
+    char buf[64];
+    ck_assert_uint_eq(vl_output_number(buf, sizeof buf, "%.10g", -0.0), 1);
+    ck_assert_str_eq(buf, "0");
+    vl_output_number(buf, sizeof buf, "%.3e", -0.0);
+    ck_assert_str_eq(buf, "0.000e+00");
+    vl_output_number(buf, sizeof buf, "%.6f", -1e-9); /* rounds to a signed zero */
+    ck_assert_str_eq(buf, "0.000000");
+    ck_assert_uint_eq(vl_output_number(buf, sizeof buf, "%.10g", NAN), 0);
+    ck_assert_str_eq(buf, "");
+    vl_output_number(buf, sizeof buf, "%.10g", -INFINITY);
+    ck_assert_str_eq(buf, "");
+    vl_output_number(buf, sizeof buf, "%.10g", -1.5e-300); /* a tiny value keeps its sign */
+    ck_assert_str_eq(buf, "-1.5e-300");
+    vl_output_number(buf, sizeof buf, "%.6f", -0.25);
+    ck_assert_str_eq(buf, "-0.250000");
+}
+END_TEST
 
 /* Every field of every non-comment line of rel (split at commas; a quoted text piece is
  * no number) is no nan/inf and no signed zero; returns the data lines seen. The rule:
@@ -474,6 +497,7 @@ Suite *vl_suite_outputs(void)
     Suite *s = suite_create("outputs");
     TCase *tc = tcase_create("outputs");
     tcase_set_timeout(tc, 600);
+    tcase_add_test(tc, number_rule);
     tcase_add_test(tc, no_nan_once_the_water_is_gone);
     tcase_add_test(tc, catalogue_names_neutralised_and_no_nan);
     tcase_add_test(tc, run_folder_rules);

@@ -1,5 +1,5 @@
 /* folder.h: an output folder before a command writes into it (docs/hardening.md,
- * "Output folders"): what it holds, the temporaries a killed volev left in it, and the
+ * "Outputs"): what it holds, the temporaries a killed volev left in it, and the
  * lock that keeps a second writer out.
  *
  * volev writes every output file as a hidden temporary `.NAME.PID.tmp` in the folder

@@ -24,7 +24,7 @@ static int default_dir(const vl_scenario *sc, char *buf, size_t n)
 
 /* The folder -o names, before the run writes into it: temporaries a killed run left
  * there removed (and said so); refused when it holds anything else, unless --replace
- * (docs/hardening.md, "Output folders"). An empty or missing folder is fine. */
+ * (docs/hardening.md, "Outputs"). An empty or missing folder is fine. */
 static int check_folder(const char *dir, int replace, vl_status *st)
 {
     vl_folder_state fs;
