@@ -4,7 +4,9 @@
 #ifndef VOLEV_OUTPUT_H
 #define VOLEV_OUTPUT_H
 
+#include <stddef.h>
 #include <stdint.h>
+#include <stdio.h>
 
 #include "volev/integrate.h"
 #include "volev/model.h"
@@ -33,6 +35,14 @@ uint64_t vl_output_fnv1a(const char *s, size_t n, uint64_t h);
 /* D/H atom ratio of H-bearing reservoir r in state y (0 for a reservoir without
  * deuterium; NaN, undefined, when the reservoir is below its floor band). */
 double vl_output_dh(const double *y, int r);
+
+/* v printed with printf format fmt (one double conversion) into buf (size n): the one
+ * rule for every number volev writes into a CSV file. A value that is not finite (no
+ * value: NaN, or an infinity) is the empty string, never "nan" or "inf"; a zero is never
+ * written with a sign ("-0", "-0.000" become "0", "0.000"). Returns the length. */
+size_t vl_output_number(char *buf, size_t n, const char *fmt, double v);
+/* fprintf(f, "%s%s", sep, vl_output_number(v)): sep, then the number or nothing. */
+int vl_output_put(FILE *f, const char *sep, const char *fmt, double v);
 
 /* Version string "VERSION (git REV)". */
 const char *vl_version(void);

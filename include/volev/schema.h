@@ -74,7 +74,8 @@ typedef struct vl_summary {
     double co2_ppmv;           /* CO2 mole fraction of the whole atmosphere, ppmv */
     double surface_temp_k;     /* surface temperature, K */
     double surface_pressure_bar; /* total surface pressure, bar */
-    double dh_water;           /* D/H atom ratio of the surface water (NaN: exhausted) */
+    double dh_water;           /* D/H atom ratio of the surface water (once exhausted: of
+                                  its last water; NaN: none, no value) */
     double dh_enrichment;      /* dh_water over the initial D/H (NaN without either) */
 } vl_summary;
 

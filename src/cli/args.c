@@ -8,6 +8,16 @@
 #include "cli.h"
 #include "volev/model.h"
 
+/* What the arguments must hold together: a scenario; --replace only with -o. */
+static int check_args(const char *cmd, const vl_cli_args *a)
+{
+    if (!a->scenario)
+        return vl_cli_usage_error(cmd, "missing SCENARIO file");
+    if (a->replace && !a->out)
+        return vl_cli_usage_error(cmd, "--replace needs -o DIR (without it the folder is new)");
+    return 0;
+}
+
 int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
 {
     const char *cmd = argv[0];
@@ -27,6 +37,8 @@ int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
             if (i + 1 >= argc)
                 return vl_cli_usage_error(cmd, "%s needs a folder", s);
             a->out = argv[++i];
+        } else if (allow_out == 2 && strcmp(s, "--replace") == 0) {
+            a->replace = 1;
         } else if (s[0] == '-' && s[1] != '\0') {
             return vl_cli_usage_error(cmd, "unknown option '%s'", s);
         } else if (a->scenario) {
@@ -35,9 +47,7 @@ int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a)
             a->scenario = s;
         }
     }
-    if (!a->scenario)
-        return vl_cli_usage_error(cmd, "missing SCENARIO file");
-    return 0;
+    return check_args(cmd, a);
 }
 
 void vl_cli_args_free(vl_cli_args *a) { free(a->sets); }

@@ -9,11 +9,13 @@
 typedef struct vl_cli_args {
     const char *scenario;  /* borrowed from argv */
     const char *out;       /* -o DIR or NULL */
+    int replace;           /* --replace (allow_out 2 only) */
     const char **sets;     /* owned array of borrowed "KEY=VALUE" */
     size_t nsets;
 } vl_cli_args;
 
-/* Parse argv[1..]; argv[0] is the subcommand name. 0 or VL_ERR_USAGE (message printed). */
+/* Parse argv[1..]; argv[0] is the subcommand name; allow_out: 1 takes -o DIR, 2 also
+ * --replace. 0 or VL_ERR_USAGE (message printed). */
 int vl_cli_parse_args(int argc, char **argv, int allow_out, vl_cli_args *a);
 void vl_cli_args_free(vl_cli_args *a);
 

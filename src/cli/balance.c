@@ -71,9 +71,15 @@ static int write_curves(const char *path, const vl_model *m, const vl_env *env, 
     }
     fprintf(f, "%s\n", any ? "" : " none (absorbed exceeds OLR everywhere: runaway)");
     fprintf(f, "surface_temp_k,olr_w_m2,absorbed_w_m2,net_w_m2,albedo,strat_h2o\n");
-    for (size_t j = 0; j < n; j++)
-        fprintf(f, "%.6g,%.8g,%.8g,%.8g,%.6g,%.6g\n", cv->t_k[j], cv->olr[j], cv->absorbed[j],
-                cv->absorbed[j] - cv->olr[j], cv->albedo[j], cv->f_strat[j]);
+    for (size_t j = 0; j < n; j++) { /* the output number rule (vl_output_number) */
+        vl_output_put(f, "", "%.6g", cv->t_k[j]);
+        vl_output_put(f, ",", "%.8g", cv->olr[j]);
+        vl_output_put(f, ",", "%.8g", cv->absorbed[j]);
+        vl_output_put(f, ",", "%.8g", cv->absorbed[j] - cv->olr[j]);
+        vl_output_put(f, ",", "%.6g", cv->albedo[j]);
+        vl_output_put(f, ",", "%.6g", cv->f_strat[j]);
+        fputc('\n', f);
+    }
     if ((ferror(f) | fclose(f)) || rename(tmp, path) != 0) {
         unlink(tmp);
         return vl_fail(st, VL_ERR_IO, path, 0, "cannot write: %s", strerror(errno));

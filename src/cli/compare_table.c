@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "compare.h"
+#include "volev/output.h"
 
 typedef vl_compare_pair pair;
 typedef vl_compare_run run;
@@ -84,9 +85,9 @@ void vl_compare_table_derived(const double *a, const double *b, char *diff, char
     diff[0] = ratio[0] = '\0';
     if (!a || !b || !isfinite(*a) || !isfinite(*b))
         return;
-    snprintf(diff, n, "%.10g", *b - *a);
+    vl_output_number(diff, n, "%.10g", *b - *a); /* the output number rule: no -0 */
     if (*a != 0.0)
-        snprintf(ratio, n, "%.10g", *b / *a);
+        vl_output_number(ratio, n, "%.10g", *b / *a);
 }
 
 /* ---------------------------------------------------------------- printing */

@@ -13,12 +13,12 @@ static const struct {
     int (*fn)(int, char **);
     const char *usage;
 } commands[] = {
-    {"run", vl_cli_run, "run SCENARIO [-o DIR] [--set KEY=VALUE]...  simulate one history"},
+    {"run", vl_cli_run, "run SCENARIO [-o DIR [--replace]] [--set KEY=VALUE]...  simulate one history (DIR empty or new, unless --replace)"},
     {"validate", vl_cli_validate, "validate SCENARIO [--set KEY=VALUE]...  check a scenario, list every parameter"},
     {"balance", vl_cli_balance, "balance SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...  energy-balance curves at one age"},
     {"processes", vl_cli_processes, "processes  list processes and parameters with units, defaults, bounds, references"},
     {"columns", vl_cli_columns, "columns  list every output column and summary row with its unit and meaning"},
-    {"sweep", vl_cli_sweep, "sweep SCENARIO [-o DIR] [-j THREADS] [--quiet]  run the ensemble of the scenario's sweep group"},
+    {"sweep", vl_cli_sweep, "sweep SCENARIO [-o DIR] [-j THREADS] [--quiet] [--replace]  run the ensemble of the scenario's sweep group (resumes an interrupted one)"},
     {"plot", vl_cli_plot, "plot DIR [--format png|pdf|svg]  render the history figure of a run"},
     {"compare", vl_cli_compare, "compare DIR_A DIR_B [-o DIR] [--format png|pdf|svg] [--labels A,B]  side-by-side table and figure of two runs"},
     {NULL, NULL, NULL},
@@ -33,7 +33,8 @@ static void help(FILE *f)
         fprintf(f, "  volev %s\n", commands[i].usage);
     fprintf(f, "  volev --help | --version\n\n"
                "exit codes: 0 success, 1 internal error, 2 bad command line,\n"
-               "  3 bad scenario or input data, 4 integration failed, 5 file I/O error,\n"
+               "  3 bad scenario or input data, 4 integration failed, 5 file I/O error\n"
+               "  (or the output folder is taken: not empty, or locked by another sweep),\n"
                "  6 external program (gnuplot) missing or failed,\n"
                "  128 + signal: stopped by SIGINT or SIGTERM (nothing incomplete left behind)\n"
                "See volev(1) and docs/model.md.\n");

@@ -78,8 +78,39 @@ static vl_csv_table *head_of(const char *path, vl_status *st)
     return vl_csv_read(path, &head, st);
 }
 
-/* path must hold every column of need (and extra, if not NULL), for figure `kind`, and at
- * least one data row. */
+/* A scan's callback: the line of the last record. */
+static int last_line(void *ctx, const vl_csv_record *rec, vl_status *st)
+{
+    (void)st;
+    *(int *)ctx = rec->line;
+    return VL_OK;
+}
+
+/* The whole of path is a complete output file: every row has the header's field count
+ * (the CSV reader's check, FILE:LINE) and the last line ends with a line end, as every
+ * file volev writes does; a file cut short by a killed writer, a full disk or a copy
+ * fails one or the other (docs/figures.md). flags: the CSV reader's (events.csv's detail
+ * takes the rest of its line). Streams, so the size does not matter. */
+static int check_complete(const char *path, unsigned flags, vl_status *st)
+{
+    const vl_csv_options whole = {flags, SIZE_MAX, 0, 0, NULL, NULL};
+    int line = 0;
+    if (vl_csv_scan(path, &whole, last_line, &line, st) != VL_OK)
+        return st->code;
+    FILE *f = fopen(path, "rb");
+    if (!f)
+        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
+    int end = fseek(f, -1, SEEK_END) == 0 ? getc(f) : '\n'; /* an empty file: no last line */
+    fclose(f);
+    if (end != '\n')
+        return vl_fail(st, VL_ERR_INPUT, path, line,
+                       "the last line is cut short (no line end): the file is incomplete; "
+                       "rerun the command that wrote it");
+    return VL_OK;
+}
+
+/* path must hold every column of need (and extra, if not NULL), for figure `kind`, at
+ * least one data row, and be complete (check_complete). */
 static int check_columns(const char *path, const char *const *need, const char *const *extra,
                          int kind, vl_status *st)
 {
@@ -98,6 +129,8 @@ static int check_columns(const char *path, const char *const *need, const char *
     if (st->code == VL_OK && t->nrows == 0)
         vl_fail(st, VL_ERR_INPUT, path, t->header_line, "no data rows below the header");
     vl_csv_free(t);
+    if (st->code == VL_OK)
+        check_complete(path, 0, st);
     return st->code;
 }
 
@@ -210,7 +243,10 @@ static int plot_run(job_t *j, int kind, const char *dir, vl_status *st)
     if (rc)
         return rc;
     if (kind == K_HISTORY) {
-        const char *args[] = {data, "", readable(dir, "events.csv") ? events : "", j->title};
+        int have_events = readable(dir, "events.csv");
+        if (have_events && check_complete(events, VL_CSV_REST, st) != VL_OK)
+            return st->code;
+        const char *args[] = {data, "", have_events ? events : "", j->title};
         return render(j, kind, dir, args, 4, 1, st);
     }
     const char *args[] = {data, "", j->title};

@@ -1,4 +1,4 @@
-/* run.c: `volev run SCENARIO [-o DIR] [--set KEY=VALUE]...` */
+/* run.c: `volev run SCENARIO [-o DIR [--replace]] [--set KEY=VALUE]...` */
 #include <errno.h>
 #include <stdio.h>
 #include <string.h>
@@ -6,6 +6,7 @@
 
 #include "args.h"
 #include "cli.h"
+#include "volev/folder.h"
 #include "volev/integrate.h"
 #include "volev/output.h"
 #include "volev/schema.h"
@@ -19,6 +20,27 @@ static int default_dir(const vl_scenario *sc, char *buf, size_t n)
     for (int k = 1; k < 10000 && stat(buf, &sb) == 0; k++)
         snprintf(buf, n, "%s.%d", sc->name, k);
     return stat(buf, &sb) == 0 ? -1 : 0;
+}
+
+/* The folder -o names, before the run writes into it: temporaries a killed run left
+ * there removed (and said so); refused when it holds anything else, unless --replace
+ * (docs/hardening.md, "Outputs"). An empty or missing folder is fine. */
+static int check_folder(const char *dir, int replace, vl_status *st)
+{
+    vl_folder_state fs;
+    if (vl_folder_inspect(dir, &fs, st) != VL_OK)
+        return st->code;
+    if (fs.removed)
+        fprintf(stderr, "volev: note: %s: removed %ld temporary file%s left by a killed run\n",
+                dir, fs.removed, fs.removed == 1 ? "" : "s");
+    if (fs.entries == 0 || replace)
+        return VL_OK;
+    return vl_fail(st, VL_ERR_IO, dir, 0,
+                   "the output folder is not empty (%s); choose another -o, or add --replace "
+                   "to write this run's files over it",
+                   fs.busy  ? "another volev run is writing into it"
+                   : fs.volev ? "it holds the results of an earlier volev command"
+                              : "it holds files volev did not write");
 }
 
 static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
@@ -41,7 +63,7 @@ int vl_cli_run(int argc, char **argv)
     vl_scenario *sc;
     vl_model *m;
     vl_cli_cache_start();
-    if (vl_cli_start(argc, argv, 1, &a, &sc, &m, &st)) {
+    if (vl_cli_start(argc, argv, 2, &a, &sc, &m, &st)) {
         vl_cli_args_free(&a);
         return VL_ERR_USAGE;
     }
@@ -53,9 +75,10 @@ int vl_cli_run(int argc, char **argv)
                 "scenario\n",
                 sc->path, sc->sweep_line);
     if (m) {
-        if (a.out)
+        if (a.out) {
             snprintf(dir, sizeof dir, "%s", a.out);
-        else if (default_dir(sc, dir, sizeof dir) != 0)
+            check_folder(dir, a.replace, &st);
+        } else if (default_dir(sc, dir, sizeof dir) != 0)
             vl_fail(&st, VL_ERR_IO, NULL, 0, "no free output folder name for '%s'", sc->name);
         if (st.code == VL_OK)
             out = vl_output_open(dir, m, &st);

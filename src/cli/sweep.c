@@ -1,4 +1,4 @@
-/* sweep.c: `volev sweep SCENARIO [-o DIR] [-j THREADS] [--quiet]`: run the members of the
+/* sweep.c: `volev sweep SCENARIO [-o DIR] [-j THREADS] [--quiet] [--replace]`: run the members of the
  * scenario's sweep group (src/ensembles/sweep.c) on threads (OpenMP) and, in a `make MPI=1` build,
  * on MPI ranks; write members.csv, ensemble_summary.csv, ensemble_series.csv and, for a
  * saltelli design, sensitivity.csv (docs/ensembles.md).
@@ -19,15 +19,16 @@
 
 #include "cli.h"
 #include "sweep_internal.h"
+#include "volev/folder.h"
 
 /* ------------------------------------------------------------------ arguments */
 
 typedef struct {
     const char *scenario, *out;
-    int threads, quiet;
+    int threads, quiet, replace;
 } sweep_args;
 
-/* SCENARIO, -o DIR, -j THREADS, --quiet. */
+/* SCENARIO, -o DIR, -j THREADS, --quiet, --replace. */
 static int parse(int argc, char **argv, sweep_args *a)
 {
     memset(a, 0, sizeof *a);
@@ -48,6 +49,8 @@ static int parse(int argc, char **argv, sweep_args *a)
             }
         } else if (strcmp(s, "--quiet") == 0) {
             a->quiet = 1;
+        } else if (strcmp(s, "--replace") == 0) {
+            a->replace = 1;
         } else if (s[0] == '-') {
             return vl_cli_usage_error("sweep", "unknown option '%s'", s);
         } else if (!a->scenario) {
@@ -133,11 +136,26 @@ static int conclude(vl_cli_sweep_ctx *c, vl_status *st)
     return rc;
 }
 
+/* Rank 0: the folder locked and checked (vl_cli_sweep_prepare_dir), a note on the
+ * leftovers it removed; *already: it holds this sweep's results. */
+static int prepare(vl_cli_sweep_ctx *c, int replace, int *already, vl_status *st)
+{
+    int p = vl_cli_sweep_prepare_dir(c, replace, st);
+    if (c->removed)
+        fprintf(stderr, "volev: note: %s: removed %ld temporary file%s left by a killed volev\n",
+                c->dir, c->removed, c->removed == 1 ? "" : "s");
+    *already = p < 0;
+    return p < 0 ? VL_OK : p;
+}
+
 /* Frees what the command holds. */
 static void release(vl_cli_sweep_ctx *c, char *done, vl_sweep *sw)
 {
     if (c->journal)
         fclose(c->journal);
+    c->journal = NULL;
+    vl_folder_unlock(c->dir, c->lock);
+    c->lock = -1;
     for (long i = 0; c->rec && i < sw->members; i++)
         free(c->rec[i].reason);
     free(c->rec);
@@ -153,6 +171,7 @@ int vl_cli_sweep(int argc, char **argv)
     if (parse(argc, argv, &a))
         return VL_ERR_USAGE;
     vl_cli_sweep_ctx c = {0};
+    c.lock = -1;
     vl_cli_sweep_mpi_start(&argc, &argv, &c, &a.threads);
     vl_status st;
     vl_status_clear(&st);
@@ -160,11 +179,8 @@ int vl_cli_sweep(int argc, char **argv)
     vl_sweep *sw = vl_sweep_load(a.scenario, &st);
     char dir[1024], *done = NULL;
     int rc = sw ? start(&c, sw, a.out, dir, sizeof dir, &st) : st.code, already = 0;
-    if (rc == VL_OK && c.rank == 0) {
-        int p = vl_cli_sweep_prepare_dir(&c, &st);
-        already = p < 0;
-        rc = p < 0 ? VL_OK : p;
-    }
+    if (rc == VL_OK && c.rank == 0)
+        rc = prepare(&c, a.replace, &already, &st);
     if (vl_cli_sweep_share_state(&c, &rc, already)) { /* another rank, told to stop */
         release(&c, done, sw);
         vl_cli_sweep_mpi_end();

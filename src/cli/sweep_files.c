@@ -11,6 +11,7 @@
 #include <unistd.h>
 
 #include "sweep_internal.h"
+#include "volev/folder.h"
 #include "volev/output.h"
 #include "volev/params.h"
 #include "volev/scenario.h"
@@ -21,11 +22,11 @@ typedef struct {
     FILE *f;
 } outfile;
 
-/* Opens DIR/.NAME.tmp for writing, to become DIR/NAME. */
+/* Opens DIR/.NAME.PID.tmp (vl_folder_temp_name) for writing, to become DIR/NAME. */
 static int out_open(outfile *o, const char *dir, const char *name, vl_status *st)
 {
     snprintf(o->final, sizeof o->final, "%s/%s", dir, name);
-    snprintf(o->tmp, sizeof o->tmp, "%s/.%s.tmp", dir, name);
+    vl_folder_temp_name(o->tmp, sizeof o->tmp, dir, name);
     o->f = fopen(o->tmp, "w");
     if (!o->f)
         return vl_fail(st, VL_ERR_IO, o->tmp, 0, "cannot write: %s", strerror(errno));
@@ -135,17 +136,21 @@ static void write_summary(const vl_cli_sweep_ctx *c, FILE *f, double *buf)
         double sum = 0.0;
         for (size_t k = 0; k < n; k++)
             sum += buf[k];
-        fprintf(f, ",%.10g,%.10g", sum / (double)n, buf[0]);
+        vl_output_put(f, ",", "%.10g", sum / (double)n);
+        vl_output_put(f, ",", "%.10g", buf[0]);
         for (int q = 0; q < 5; q++)
-            fprintf(f, ",%.10g", vl_quantile_sorted(buf, n, quantile_p[q]));
-        fprintf(f, ",%.10g,\n", buf[n - 1]);
+            vl_output_put(f, ",", "%.10g", vl_quantile_sorted(buf, n, quantile_p[q]));
+        vl_output_put(f, ",", "%.10g", buf[n - 1]);
+        fprintf(f, ",\n");
     }
     long count[VL_NCLASS] = {0};
     for (long i = 0; i < c->sw->members; i++)
         count[c->rec[i].cls]++;
-    for (int k = 0; k < VL_NCLASS; k++)
-        fprintf(f, "class,%s,,%ld,,,,,,,,,%.10g\n", vl_class_name[k], count[k],
-                (double)count[k] / (double)c->sw->members);
+    for (int k = 0; k < VL_NCLASS; k++) {
+        fprintf(f, "class,%s,,%ld,,,,,,,,", vl_class_name[k], count[k]);
+        vl_output_put(f, ",", "%.10g", (double)count[k] / (double)c->sw->members);
+        fputc('\n', f);
+    }
 }
 
 /* ensemble_series.csv: water and O2 quantiles at the common ages. */
@@ -163,12 +168,13 @@ static void write_series(const vl_cli_sweep_ctx *c, FILE *f, double *buf)
     fputc('\n', f);
     for (size_t j = 0; j < VL_SWEEP_NT; j++) {
         size_t n = gather(c, get_water, j, buf);
-        fprintf(f, "%.10g,%zu", c->sw->t_grid_s[j] / 3.15576e7, n);
+        vl_output_put(f, "", "%.10g", c->sw->t_grid_s[j] / 3.15576e7);
+        fprintf(f, ",%zu", n);
         for (int k = 0; k < 5; k++)
-            n ? fprintf(f, ",%.10g", vl_quantile_sorted(buf, n, quantile_p[k])) : fprintf(f, ",");
+            vl_output_put(f, ",", "%.10g", n ? vl_quantile_sorted(buf, n, quantile_p[k]) : NAN);
         n = gather(c, get_o2, j, buf);
         for (int k = 0; k < 5; k++)
-            n ? fprintf(f, ",%.10g", vl_quantile_sorted(buf, n, quantile_p[k])) : fprintf(f, ",");
+            vl_output_put(f, ",", "%.10g", n ? vl_quantile_sorted(buf, n, quantile_p[k]) : NAN);
         fputc('\n', f);
     }
 }
@@ -199,10 +205,14 @@ static int write_sensitivity(const vl_cli_sweep_ctx *c, FILE *f, vl_status *st)
             fprintf(f, "# %s: %s\n", vl_outcome_name[o], e.msg);
             continue;
         }
-        for (size_t a = 0; a < sw->k; a++)
-            fprintf(f, "%s,%s,%.6g,%.6g,%.6g,%.6g,%.6g,%.6g,%ld\n", vl_outcome_name[o],
-                    sw->axes[a].key, idx[a].s1, idx[a].s1_lo, idx[a].s1_hi, idx[a].st,
-                    idx[a].st_lo, idx[a].st_hi, used);
+        for (size_t a = 0; a < sw->k; a++) {
+            const double v[6] = {idx[a].s1, idx[a].s1_lo, idx[a].s1_hi,
+                                 idx[a].st, idx[a].st_lo, idx[a].st_hi};
+            fprintf(f, "%s,%s", vl_outcome_name[o], sw->axes[a].key);
+            for (int q = 0; q < 6; q++) /* an index without a value: empty */
+                vl_output_put(f, ",", "%.6g", v[q]);
+            fprintf(f, ",%ld\n", used);
+        }
     }
     free(y);
     free(idx);

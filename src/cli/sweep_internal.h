@@ -38,6 +38,8 @@ typedef struct vl_cli_sweep_ctx {
     double t_start, t_last;
     long done_at_start;
     int rank, size;
+    int lock;               /* rank 0: the folder's lock (vl_folder_lock), -1 if none */
+    long removed;           /* rank 0: temporaries of a killed volev removed from the folder */
 } vl_cli_sweep_ctx;
 
 /* ---- sweep_journal.c */
@@ -48,10 +50,13 @@ void vl_cli_sweep_keep(vl_cli_sweep_ctx *c, const vl_member *m);
 void vl_cli_sweep_unpack(const vl_cli_sweep_ctx *c, long i, vl_member *m);
 /* Rank 0: a finished member's journal line into the journal and the records. */
 void vl_cli_sweep_take_line(vl_cli_sweep_ctx *c, const char *line);
-/* Rank 0: the output folder and its earlier state: members read back from the journal
- * of an interrupted sweep with the same hash, the journal opened for appending.
- * Returns VL_OK to go on, -1 if the folder holds this sweep's results already. */
-int vl_cli_sweep_prepare_dir(vl_cli_sweep_ctx *c, vl_status *st);
+/* Rank 0: the output folder, locked against a second writer (c->lock), its leftover
+ * temporaries removed (c->removed), and its earlier state: members read back from the
+ * journal of an interrupted sweep with the same hash, the journal opened for appending.
+ * A folder holding anything else (another sweep's results or journal, other files) is
+ * refused, unless replace: then an earlier sweep's files are removed first. Returns
+ * VL_OK to go on, -1 if the folder holds this sweep's results already (and not replace). */
+int vl_cli_sweep_prepare_dir(vl_cli_sweep_ctx *c, int replace, vl_status *st);
 
 /* ---- sweep_ranks.c */
 

@@ -10,6 +10,7 @@
 #include <unistd.h>
 
 #include "sweep_internal.h"
+#include "volev/folder.h"
 
 /* Copies m into its record, unless the member is kept already. */
 void vl_cli_sweep_keep(vl_cli_sweep_ctx *c, const vl_member *m)
@@ -87,7 +88,8 @@ static int read_journal(vl_cli_sweep_ctx *c, const char *path, vl_status *st)
             if (strcmp(line, want) != 0) {
                 rc = vl_fail(st, VL_ERR_INPUT, path, 1,
                              "this folder holds an interrupted sweep with other settings (or "
-                             "another volev version); remove it or choose another -o");
+                             "another volev version); choose another -o, or add --replace to "
+                             "remove it and run this one");
                 break;
             }
             good_end = ftell(f);
@@ -126,8 +128,58 @@ static void finished_hash(const char *path, char out[17])
     fclose(f);
 }
 
-/* Rank 0: output folder, earlier state. Returns VL_OK to go on, -1 if already finished. */
-int vl_cli_sweep_prepare_dir(vl_cli_sweep_ctx *c, vl_status *st)
+/* The files of an earlier sweep in the folder, removed for --replace: its final files,
+ * then its journal. */
+static int remove_earlier(const vl_cli_sweep_ctx *c, vl_status *st)
+{
+    static const char *const names[] = {"members.csv", "ensemble_summary.csv",
+                                        "ensemble_series.csv", "sensitivity.csv",
+                                        "scenario.resolved.cfg", VL_CLI_JOURNAL, NULL};
+    char path[1200];
+    for (int k = 0; names[k]; k++) {
+        snprintf(path, sizeof path, "%s/%s", c->dir, names[k]);
+        if (unlink(path) != 0 && errno != ENOENT)
+            return vl_fail(st, VL_ERR_IO, path, 0, "cannot remove (--replace): %s",
+                           strerror(errno));
+    }
+    return VL_OK;
+}
+
+/* What the folder holds decides (the lock held, leftovers removed, fs its state): a
+ * finished sweep (-1 if it is this one), an interrupted one (its journal), or nothing;
+ * anything else is refused unless replace, which removes an earlier sweep's files. */
+static int check_content(vl_cli_sweep_ctx *c, const vl_folder_state *fs, int replace,
+                         vl_status *st)
+{
+    char path[1200];
+    snprintf(path, sizeof path, "%s/members.csv", c->dir);
+    int finished = access(path, F_OK) == 0;
+    snprintf(path, sizeof path, "%s/%s", c->dir, VL_CLI_JOURNAL);
+    int journal = access(path, F_OK) == 0;
+    if (replace)
+        return remove_earlier(c, st);
+    if (finished) {
+        char h[17];
+        snprintf(path, sizeof path, "%s/members.csv", c->dir);
+        finished_hash(path, h);
+        if (strcmp(h, c->sw->hash) == 0)
+            return -1;
+        return vl_fail(st, VL_ERR_IO, c->dir, 0,
+                       "holds the results of another sweep; choose another -o, or add "
+                       "--replace to remove them and run this one");
+    }
+    if (!journal && fs->entries > 0)
+        return vl_fail(st, VL_ERR_IO, c->dir, 0,
+                       "the output folder is not empty (%s); choose another -o, or add "
+                       "--replace to write this sweep's files over it",
+                       fs->volev ? "it holds the results of an earlier volev command"
+                                 : "it holds files volev did not write");
+    return VL_OK;
+}
+
+/* Rank 0: output folder, lock, earlier state. Returns VL_OK to go on, -1 if already
+ * finished. */
+int vl_cli_sweep_prepare_dir(vl_cli_sweep_ctx *c, int replace, vl_status *st)
 {
     char path[1200];
     if (mkdir(c->dir, 0777) != 0 && errno != EEXIST)
@@ -135,17 +187,18 @@ int vl_cli_sweep_prepare_dir(vl_cli_sweep_ctx *c, vl_status *st)
     struct stat sb;
     if (stat(c->dir, &sb) != 0 || !S_ISDIR(sb.st_mode))
         return vl_fail(st, VL_ERR_IO, c->dir, 0, "not a folder");
-    snprintf(path, sizeof path, "%s/members.csv", c->dir);
-    if (access(path, F_OK) == 0) {
-        char h[17];
-        finished_hash(path, h);
-        if (strcmp(h, c->sw->hash) == 0)
-            return -1;
-        return vl_fail(st, VL_ERR_IO, c->dir, 0,
-                       "holds the results of another sweep; remove it or choose another -o");
-    }
+    c->lock = vl_folder_lock(c->dir, st);
+    if (c->lock < 0)
+        return st->code;
+    vl_folder_state fs;
+    if (vl_folder_inspect(c->dir, &fs, st) != VL_OK)
+        return st->code;
+    c->removed = fs.removed;
+    int rc = check_content(c, &fs, replace, st);
+    if (rc)
+        return rc;
     snprintf(path, sizeof path, "%s/%s", c->dir, VL_CLI_JOURNAL);
-    int rc = read_journal(c, path, st);
+    rc = read_journal(c, path, st);
     if (rc)
         return rc;
     c->journal = fopen(path, "a");

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "volev/climate.h"
+#include "volev/output.h"
 #include "volev/sweep.h"
 
 /* A growing text buffer; bad after an allocation failure. */
@@ -57,14 +58,29 @@ static char *done(buf_t *b)
     return b->s;
 }
 
-/* A CSV field: quoted when it holds a comma, quote or line break. */
-static void put_field(buf_t *b, const char *text)
+/* Whether text is one decimal number and nothing else ("-0.5", "1e3"). */
+static int is_number(const char *text)
 {
+    char *end;
+    errno = 0;
+    (void)strtod(text, &end);
+    return end != text && *end == '\0';
+}
+
+/* A CSV field: quoted when it holds a comma, quote or line break. Text that a spreadsheet
+ * would take for a formula -- starting with '=', '+', '-', '@', a tab or a carriage return
+ * -- gets a leading single quote (OWASP, "CSV Injection",
+ * https://owasp.org/www-community/attacks/CSV_Injection), unless number_ok and it is a
+ * plain number (a catalogue's "-0.5" stays a number). */
+static void put_field_as(buf_t *b, const char *text, int number_ok)
+{
+    const char *lead =
+        text[0] && strchr("=+-@\t\r", text[0]) && !(number_ok && is_number(text)) ? "'" : "";
     if (!strpbrk(text, ",\"\r\n")) {
-        put(b, "%s", text);
+        put(b, "%s%s", lead, text);
         return;
     }
-    put(b, "\"");
+    put(b, "\"%s", lead); /* the quote inside the quoted field */
     for (const char *p = text; *p; p++) {
         if (*p == '"')
             put(b, "\"\"");
@@ -75,6 +91,10 @@ static void put_field(buf_t *b, const char *text)
     }
     put(b, "\"");
 }
+
+/* A text field (a name, a header, a reason): neutralised whenever it starts like a
+ * formula. */
+static void put_field(buf_t *b, const char *text) { put_field_as(b, text, 0); }
 
 /* ------------------------------------------------------------------ members.csv */
 
@@ -103,13 +123,13 @@ char *vl_sweep_header(const vl_sweep *sw)
     return done(&b);
 }
 
-/* ",V" with 10 significant digits, or "," for an undefined (non-finite) value. */
+/* ",V" with 10 significant digits, or "," for an undefined (non-finite) value: the
+ * number rule of every output file (vl_output_number). */
 static void put_num(buf_t *b, double v)
 {
-    if (isfinite(v))
-        put(b, ",%.10g", v);
-    else
-        put(b, ",");
+    char num[64];
+    vl_output_number(num, sizeof num, "%.10g", v);
+    put(b, ",%s", num);
 }
 
 /* The row of res, in the header's columns. */
@@ -125,14 +145,14 @@ char *vl_sweep_row(const vl_sweep *sw, const vl_member *res)
         put_field(&b, sw->cat->names[row]);
         for (size_t c = 0; c < sw->cat->ncols; c++) {
             put(&b, ",");
-            if (sw->cat->cells[row][c])
-                put_field(&b, sw->cat->cells[row][c]);
+            if (sw->cat->cells[row][c]) /* a value: a number stays one */
+                put_field_as(&b, sw->cat->cells[row][c], 1);
         }
         if (sw->nwaters)
-            put(&b, ",%.10g", sw->waters[(size_t)i % per]);
+            put_num(&b, sw->waters[(size_t)i % per]);
     } else {
         for (size_t a = 0; a < sw->k; a++)
-            put(&b, ",%.10g", sw->x[(size_t)i * sw->k + a]);
+            put_num(&b, sw->x[(size_t)i * sw->k + a]);
     }
     put(&b, ",%s,%s,%s", res->status == VL_OK ? "ok" : "failed", vl_class_name[res->cls],
         res->regime >= 0 ? vl_regime_name(res->regime) : "");

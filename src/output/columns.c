@@ -11,6 +11,13 @@ static void series_reference(FILE *out)
     char codes[256];
     fprintf(out, "## series.csv\n\nOne row per output age and per event, columns in this "
                  "order. Masses and fluxes print an integrator overshoot below zero as 0.\n\n");
+    fprintf(out, "Empty fields: a quantity that has no value (the D/H ratio of water that "
+                 "is not there, the age of something that never happened, a ratio to zero) "
+                 "is an empty field. No file volev writes (series.csv, events.csv, "
+                 "summary.csv; a sweep's members.csv, ensemble_summary.csv, "
+                 "ensemble_series.csv, sensitivity.csv; balance.csv, compare.csv) ever holds "
+                 "`nan` or `inf`, and a zero is written `0`, never `-0`. The summary rows that "
+                 "can be empty say so below; a sweep's outcomes: docs/ensembles.md.\n\n");
     fprintf(out, "| column | unit | meaning |\n|---|---|---|\n");
     for (int id = 0; id < VL_NSERIES; id++) {
         const vl_series_column *c = &vl_series_columns[id];

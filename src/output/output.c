@@ -10,6 +10,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "volev/folder.h"
 #include "volev/schema.h"
 #include "volev/units.h"
 
@@ -115,7 +116,7 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
         return NULL;
     }
     for (int i = 0; i < NFILES; i++) {
-        snprintf(o->tmp[i], sizeof o->tmp[i], "%s/.%s.%ld.tmp", dir, file_name[i], (long)getpid());
+        vl_folder_temp_name(o->tmp[i], sizeof o->tmp[i], dir, file_name[i]);
         o->f[i] = fopen(o->tmp[i], "w");
         if (!o->f[i]) {
             io_fail(st, o->tmp[i]);
@@ -135,6 +136,32 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st)
 
 double vl_output_dh(const double *y, int r) { return vl_reservoir_dh(y, r); }
 
+size_t vl_output_number(char *buf, size_t n, const char *fmt, double v)
+{
+    if (n == 0)
+        return 0;
+    buf[0] = '\0';
+    if (!isfinite(v)) /* no value: an empty field */
+        return 0;
+    int len = snprintf(buf, n, fmt, v == 0.0 ? 0.0 : v); /* -0 as 0 */
+    if (len < 0) {
+        buf[0] = '\0';
+        return 0;
+    }
+    if (buf[0] == '-' && strtod(buf, NULL) == 0.0) { /* rounded to zero, e.g. "-0.000" */
+        memmove(buf, buf + 1, strlen(buf));
+        len--;
+    }
+    return (size_t)len < n ? (size_t)len : n - 1;
+}
+
+int vl_output_put(FILE *f, const char *sep, const char *fmt, double v)
+{
+    char buf[64];
+    vl_output_number(buf, sizeof buf, fmt, v);
+    return fprintf(f, "%s%s", sep, buf);
+}
+
 static int row_cb(void *ctx, double t, const double *y, const double *dydt, const vl_env *env,
                   const double *columns, vl_status *st)
 {
@@ -149,7 +176,8 @@ static int event_cb(void *ctx, double t, const char *name, const char *detail, v
 {
     vl_output *o = ctx;
     vl_event_firsts_note(&o->events, name, t);
-    if (fprintf(o->f[F_EVENTS], "%.10g,%s,%s\n", t / VL_YR, name, detail) < 0)
+    if (vl_output_put(o->f[F_EVENTS], "", "%.10g", t / VL_YR) < 0 ||
+        fprintf(o->f[F_EVENTS], ",%s,%s\n", name, detail) < 0)
         return io_fail(st, o->tmp[F_EVENTS]);
     return VL_OK;
 }

@@ -1,7 +1,8 @@
 /* series.c: the columns of series.csv (schema.h, series.def): how each is computed, the
  * header comments and header line, and the rows. Masses and fluxes are written clamped
  * at 0: an integrator overshoot below zero (restored by the depletion ramp, at the
- * level of the tolerances) is not a mass, and fluxes are one-way by name. */
+ * level of the tolerances) is not a mass, and fluxes are one-way by name. Every number
+ * follows vl_output_number's rule: a quantity without a value is an empty field. */
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
@@ -107,12 +108,15 @@ int vl_series_write_header(FILE *f, const vl_model *m)
     return fputc('\n', f) == EOF ? -1 : 0;
 }
 
-/* sep then v as "%.10g" writes it (numfmt.h: the same bytes, a tenth of the work). */
+/* sep then v as "%.10g" writes it (numfmt.h: the same bytes, a tenth of the work), under
+ * the output number rule (vl_output_number): a value that is not finite has none and is
+ * an empty field, a zero is written without a sign. */
 static void put_number(FILE *f, const char *sep, double v)
 {
     char buf[48];
     fputs(sep, f);
-    fwrite(buf, 1, (size_t)vl_format_g(buf, sizeof buf, 10, v), f);
+    if (isfinite(v))
+        fwrite(buf, 1, (size_t)vl_format_g(buf, sizeof buf, 10, v == 0.0 ? 0.0 : v), f);
 }
 
 int vl_series_write_row(FILE *f, const vl_row *r)
@@ -120,9 +124,9 @@ int vl_series_write_row(FILE *f, const vl_row *r)
     for (int id = 0; id < VL_NSERIES; id++) {
         const vl_series_column *c = &vl_series_columns[id];
         double v = c->value(r);
-        if (c->kind == VL_COL_CODE)
+        if (c->kind == VL_COL_CODE && isfinite(v))
             fprintf(f, "%s%d", id ? "," : "", (int)v);
-        else
+        else /* no value (not finite): an empty field */
             put_number(f, id ? "," : "", v);
     }
     for (int q = 0; q < VL_NRES; q++)

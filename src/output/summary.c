@@ -34,9 +34,9 @@ void vl_summary_derive(const vl_model *m, const vl_run_stats *stats, vl_summary 
     out->surface_temp_k = env->t_surf_k;
     out->surface_pressure_bar = env->p_surf_pa / VL_BAR;
     out->dh_water = vl_output_dh(y, VL_R_WATER);
-    if (isnan(out->dh_water)) /* exhausted: the ratio of its last water */
-        out->dh_water = stats->water_dh_last;
-    out->dh_enrichment = dh0 > 0.0 ? out->dh_water / dh0 : 0.0;
+    if (isnan(out->dh_water)) /* exhausted: the ratio of its last water, if it had any */
+        out->dh_water = stats->water_dh_last > 0.0 ? stats->water_dh_last : NAN;
+    out->dh_enrichment = dh0 > 0.0 ? out->dh_water / dh0 : NAN; /* NaN: no value */
 }
 
 void vl_event_firsts_note(vl_event_firsts *e, const char *name, double t_s)
@@ -72,14 +72,16 @@ typedef struct {
     int (*group)(FILE *f, const ctx *c);
 } item;
 
+/* "name,value,unit": the value through vl_output_number (no value: an empty field). */
 static int row(FILE *f, const char *name, const char *unit, int format, double v)
 {
-    switch (format) {
-    case SCI3: return fprintf(f, "%s,%.3e,%s\n", name, v, unit);
-    case COUNT: return fprintf(f, "%s,%ld,%s\n", name, (long)v, unit);
-    case SECONDS: return fprintf(f, "%s,%.6f,%s\n", name, v, unit);
-    default: return fprintf(f, "%s,%.10g,%s\n", name, v, unit);
-    }
+    char num[64];
+    if (format == COUNT && isfinite(v))
+        snprintf(num, sizeof num, "%ld", (long)v);
+    else
+        vl_output_number(num, sizeof num,
+                         format == SCI3 ? "%.3e" : format == SECONDS ? "%.6f" : "%.10g", v);
+    return fprintf(f, "%s,%s,%s\n", name, num, unit);
 }
 
 static int final_reservoirs(FILE *f, const ctx *c)
@@ -198,9 +200,9 @@ static const item items[] = {
     {"o2_accumulated", "bar", REAL10, "atmospheric O2 at the end (pressure of the gas alone)",
      o2, NULL},
     {"final_dh_water", "ratio", REAL10,
-     "D/H atom ratio of the surface water at the end (once exhausted: of its last water above the depletion floor)", dh, NULL},
+     "D/H atom ratio of the surface water at the end (once exhausted: of its last water above the depletion floor); empty when there is none: no surface water above that floor at the end nor a nonzero ratio at any step before (a run that starts dry, or carries no deuterium and loses its water)", dh, NULL},
     {"dh_enrichment", "ratio", REAL10,
-     "final_dh_water over inventory.initial_dh", dh_enrichment, NULL},
+     "final_dh_water over inventory.initial_dh; empty when final_dh_water is, or inventory.initial_dh is 0", dh_enrichment, NULL},
     {"final_co2", "bar", REAL10, "CO2 in the air at the end (pressure of the gas alone)", co2,
      NULL},
     {"final_ocean_co2", "kg", REAL10, "CO2 dissolved in the ocean at the end", ocean_co2, NULL},
