@@ -623,7 +623,9 @@ class Core:
         b = 1.0 / ((1.0 - w) / (1.89e21 * math.pow(tk / 293.0, 0.75))
                    + w / (4.8e19 * math.pow(tk, 0.75)))
         dm = m_bg - m_c
-        diffusion = 2.0 * f_t * b * self.g * dm / (K_BOLTZMANN * tk) if dm > 0.0 else math.inf
+        # H atoms per particle: f_T diluted by the dissociated water's extra particles
+        x_h = 2.0 * f_t / (1.0 + 2.0 * w * f_t)
+        diffusion = x_h * b * self.g * dm / (K_BOLTZMANN * tk) if dm > 0.0 else math.inf
         # Jeans limit
         h_h = K_BOLTZMANN * e.t_exo / (m_h * e.g_exo)
         n_h = 2.0 * f_t * e.n_tb * math.exp(-(e.r_exo - e.r_tb) / h_h)
@@ -639,18 +641,28 @@ class Core:
         jeans = min(esc_h_jeans, h_el)
         cap = (1.0 - hydro) * jeans + hydro * h_el
         e.esc_h_flux = diffusion if diffusion <= cap else cap
-        # deuterium fractionation factors and their blend (vl_upper_d_fractionation, f_el = 1)
-        w2 = min(max(e.f_strat, 0.0), 1.0)
-        m_bg2 = (1.0 - w2) * e.m_background + w2 * m_o
-        if not m_bg2 > m_d:
-            f_dl = 1.0
+        # deuterium fractionation factors and their blend (vl_escape_d_fractionation,
+        # f_el = 1): the diffusion factor with carriers HD/H2 (molecular part) and D/H
+        # (atomic part), b ~ mu^-1/2 (vl_escape_diffusion_fractionation)
+        m_hd = m_h + m_d
+        m_cd = (1.0 - w) * m_hd + w * m_d
+        if not m_bg > m_cd:
+            f_dl = 0.0
         else:
-            mu_h = m_h * m_bg2 / (m_h + m_bg2)
-            mu_d = m_d * m_bg2 / (m_d + m_bg2)
-            f_dl = math.sqrt(mu_h / mu_d) * (m_bg2 - m_d) / (m_bg2 - m_h)
+            def b_iso(b_ref, m_ref, m, m_b):
+                mu_ref = m_ref * m_b / (m_ref + m_b)
+                return b_ref * math.sqrt(mu_ref / (m * m_b / (m + m_b)))
+            b_d = 1.0 / ((1.0 - w) / b_iso(1.89e21 * math.pow(tk / 293.0, 0.75), 2.0 * m_h,
+                                           m_hd, e.m_background)
+                         + w / b_iso(4.8e19 * math.pow(tk, 0.75), m_h, m_d, m_o))
+            f_dl = min((b_d / b) * (m_bg - m_cd) / (m_bg - m_c), 1.0)
+        # the Jeans factor times the diffusive separation between homopause and exobase
+        dr = max(e.r_exo - e.r_tb, 0.0)
+        xs = dr * (AW_D - AW_H) * AMU * e.g_exo / (K_BOLTZMANN * e.t_exo)
+        sep = math.exp(-xs) if xs > 0.0 else 1.0
         rr = AW_D / AW_H
         ld = lam * rr
-        f_jeans = math.sqrt(1.0 / rr) * (1.0 + ld) / (1.0 + lam) * math.exp(lam - ld)
+        f_jeans = math.sqrt(1.0 / rr) * (1.0 + ld) / (1.0 + lam) * math.exp(lam - ld) * sep
         f_el = 1.0
         s_j = smaller_weight(esc_h_jeans, h_el)
         f_kin = s_j * f_jeans + (1.0 - s_j) * f_el
