@@ -219,7 +219,7 @@ static const item items[] = {
      "time integral of each process flux column <flux>_kg_s (trapezoid over accepted steps); for a redox column redox_<process>_kg_s, total_redox_<process> in kg O-eq, signed",
      NULL, channel_totals},
     {"residual_<element>", "relative", SCI3,
-     "|final - initial| / max(initial, 1e8 x resolution): the element's inventory over every reservoir, space included, as written (a dip below zero as 0); the resolution is the largest absolute tolerance of a reservoir holding the element times its mass fraction there, so an element the planet lacks is judged against the mass the integrator resolves (docs/hardening.md); a run stops before this exceeds 1e-8",
+     "|final - initial| / max(initial, 1e8 x resolution): the element's inventory over every reservoir, space included, as written (a dip below zero as 0); the resolution is the largest absolute tolerance of a reservoir holding the element times its mass fraction there, so an element the planet lacks is judged against the mass the integrator resolves; a run stops once the residual of the state as integrated exceeds 1e-8, and this one differs from it by the final dips written as 0 (docs/hardening.md, Physical invariants)",
      NULL, residuals},
     {"redox_surface_initial", REDOX_UNIT, REAL10,
      "redox content of the air and ocean at the start, oxygen equivalents relative to H2O, CO2 and N2 (positive: free oxidant; docs/model.md section 1)",
