@@ -79,6 +79,12 @@ double vl_hz_seff_2013(int limit, double teff_k);
  * Earth masses, interpolated linearly in log mass between the 0.1, 1 and 5 M_earth
  * fits and clamped outside [0.1, 5]. */
 double vl_hz_seff_runaway_2014(double mass_mearth, double teff_k);
+/* hz_fit's greenhouse term bounded below: g for g >= 2 K, 0 for g <= -2 K, a C1
+ * quadratic between (never negative, never below g). */
+double vl_hzfit_greenhouse_knee(double g_k);
+/* hz_fit's equilibrium temperature, K: [S (1 - A) / (4 sigma) + T_CMB^4]^(1/4) for
+ * instellation S (W/m^2) and Bond albedo A; at least VL_T_CMB_K. */
+double vl_hzfit_equilibrium_temp(double instellation, double bond_albedo);
 
 const char *vl_regime_name(int regime);
 

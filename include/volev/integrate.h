@@ -19,9 +19,13 @@ typedef struct vl_run_stats {
     double wall_s;             /* wall-clock time */
     double y_final[VL_NSTATE];
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
+    double written1[VL_NELEMENTS]; /* ... at the end as written: dips below zero as 0 */
     vl_redox_state redox0, redox1; /* the redox ledger at the start and the end */
     double time_in_regime_s[VL_NREGIMES];
-    double min_mass_kg;        /* smallest reservoir mass seen in an output row (>= -tolerance) */
+    double min_mass_kg;        /* smallest reservoir mass seen in an output row */
+    double overshoot_tolerances; /* deepest dip below zero in an output row, in units of
+                                    the reservoir's tolerance (invariants.h; at most
+                                    VL_DIP_TOLERANCES in a run that succeeded) */
     double channel_kg[VL_MAX_COLUMNS]; /* time integral of each output column, kg (of mass,
                                           or of O-equivalent for a redox column; trapezoid
                                           over accepted steps) */

@@ -146,6 +146,8 @@ typedef struct vl_run_params {
     long linear_points;        /* output rows linearly spaced in age */
     double event_tol_s;        /* event times located to within this */
     long max_steps;            /* give up after this many accepted steps */
+    long max_rhs;              /* ... or right-hand-side evaluations (the work bound) */
+    double max_cpu_s;          /* ... or seconds of CPU time (0: no limit) */
 } vl_run_params;
 
 /* One process's switch and parameter block (layout owned by the process file). */

@@ -38,6 +38,10 @@
 
 #define VL_BAR 1.0e5                   /* Pa */
 
+/* Temperature of the cosmic microwave background today, 2.72548 +- 0.00057 K (Fixsen 2009,
+ * ApJ 707:916): the coldest a surface in radiative equilibrium can be. */
+#define VL_T_CMB_K 2.72548             /* K */
+
 #define VL_PI 3.14159265358979323846
 
 /* Standard atomic weights, abridged (IUPAC CIAAW 2021), in g/mol == u. */

@@ -15,7 +15,8 @@ double vl_water_psat_liquid(double t_k);
 double vl_water_psat_ice(double t_k);
 
 /* Saturation pressure over the stable condensed phase: ice below the triple point,
- * liquid up to T_c; above T_c returns +INFINITY (no condensed phase). */
+ * liquid up to T_c; above T_c returns +INFINITY (no condensed phase); 0 at and below
+ * 0 K (the ice curve's limit), NaN for NaN. */
 double vl_water_psat(double t_k);
 
 /* The temperature at which vl_water_psat equals p_pa, K (its inverse, by bisection in

@@ -17,6 +17,7 @@
 #include <gsl/gsl_errno.h>
 
 #include "integrate_internal.h"
+#include "volev/invariants.h"
 #include "volev/reservoir.h"
 #include "volev/units.h"
 
@@ -42,7 +43,18 @@ typedef struct {
     long window_end, slow_windows; /* the stall watch */
     double window_t;
     double prev[VL_MAX_COLUMNS], now[VL_MAX_COLUMNS];
+    vl_guard guard;  /* the physical invariants (invariants.h) */
+    double cpu0_s;   /* the thread's CPU time at the start (the work bound) */
 } runner_t;
+
+/* CPU time of the calling thread, s (a sweep runs one member per thread). */
+static double thread_cpu_s(void)
+{
+    struct timespec ts;
+    if (clock_gettime(CLOCK_THREAD_CPUTIME_ID, &ts) != 0)
+        return 0.0;
+    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
 
 /* Emit an output row at (t, y) under the run's regime. */
 static int emit_row(runner_t *r, double t, const double *y, vl_status *st)
@@ -53,6 +65,11 @@ static int emit_row(runner_t *r, double t, const double *y, vl_status *st)
     if (!cols)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
     vl_model_rhs(r->m, r->ode->w, t, y, r->ode->regime, dydt, cols, &env);
+    if (vl_guard_row(&r->guard, t, y, dydt, &env, cols, r->m->col_name, r->m->ncolumns, st) !=
+        VL_OK) {
+        free(cols);
+        return st->code;
+    }
     for (int i = 0; i < VL_NRES; i++)
         if (y[i] < r->stats->min_mass_kg)
             r->stats->min_mass_kg = y[i];
@@ -168,8 +185,31 @@ static int stalled(runner_t *r, vl_status *st)
                    r->t / VL_YR, STALL_WINDOW * STALL_WINDOWS, 1e-7 * STALL_WINDOWS * r->t / VL_YR);
 }
 
-/* One accepted step (or up to a root within it), with the stop request and the step
- * limit checked. */
+/* The run's work bound: right-hand-side evaluations (run.max_rhs_evaluations) and, when
+ * set, the thread's CPU time (run.max_cpu_s): a run that stops progressing ends with a
+ * message instead of holding a sweep for ever. */
+static int work_bound(runner_t *r, vl_status *st)
+{
+    const vl_run_params *rp = &r->m->sc->run;
+    if (r->ode->rhs_calls > rp->max_rhs)
+        return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
+                       "work bound reached: more than run.max_rhs_evaluations = %ld "
+                       "right-hand-side evaluations by age %.6g yr (%ld steps; raise the "
+                       "bound if the run is progressing)",
+                       rp->max_rhs, r->t / VL_YR, r->stats->steps);
+    if (rp->max_cpu_s > 0.0) {
+        double used = thread_cpu_s() - r->cpu0_s;
+        if (used > rp->max_cpu_s)
+            return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
+                           "work bound reached: more than run.max_cpu_s = %g s of CPU time "
+                           "by age %.6g yr (%ld steps)",
+                           rp->max_cpu_s, r->t / VL_YR, r->stats->steps);
+    }
+    return VL_OK;
+}
+
+/* One accepted step (or up to a root within it), with the stop request, the step limit,
+ * the work bound and the physical invariants checked. */
 static int step(runner_t *r, int *root, vl_status *st)
 {
     const vl_run_params *rp = &r->m->sc->run;
@@ -184,6 +224,8 @@ static int step(runner_t *r, int *root, vl_status *st)
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0,
                        "more than run.max_steps = %ld steps by age %.6g yr", rp->max_steps,
                        r->t / VL_YR);
+    if (work_bound(r, st) != VL_OK || vl_guard_state(&r->guard, r->t, r->y, st) != VL_OK)
+        return st->code;
     return stalled(r, st);
 }
 
@@ -265,6 +307,8 @@ static int run_loop(runner_t *r, vl_status *st)
     r->k = 1;
     r->t = rp->start_s;
     vl_model_initial_state(r->m, r->y);
+    vl_guard_init(&r->guard, rp, r->y);
+    r->cpu0_s = thread_cpu_s();
     vl_ledger_totals(r->y, r->stats->totals0);
     vl_redox_pools(r->y, &r->stats->redox0);
     r->ode->regime = vl_events_settle(r->ode, r->t, r->y, VL_REGIME_TEMPERATE);
@@ -285,6 +329,8 @@ static int run_loop(runner_t *r, vl_status *st)
     vl_stepper_free(r->s);
     memcpy(r->stats->y_final, r->y, sizeof r->y);
     vl_ledger_totals(r->y, r->stats->totals1);
+    vl_written_totals(r->y, r->stats->written1);
+    r->stats->overshoot_tolerances = r->guard.row_dip_tol;
     vl_redox_pools(r->y, &r->stats->redox1);
     free(r->tout);
     return rc;

@@ -354,6 +354,12 @@ const vl_param vl_core_params[] = {
          "", NULL),
     INT("run.max_steps", 1000000, 100, 1000000000, run.max_steps,
         "give up after this many accepted integrator steps", ""),
+    INT("run.max_rhs_evaluations", 2000000, 1000, 1000000000000, run.max_rhs,
+        "work bound: give up after this many right-hand-side evaluations (Jacobians included; exit 4)",
+        "at least 50 times what any bundled scenario needs (docs/hardening.md)"),
+    REAL("run.max_cpu_s", "s", 1.0, 0.0, 0.0, 1e9, run.max_cpu_s,
+         "work bound: give up after this much CPU time of the run's thread (exit 4); 0: no limit",
+         "off by default: CPU time depends on the machine, results must not", NULL),
 };
 
 const size_t vl_core_nparams = sizeof vl_core_params / sizeof vl_core_params[0];

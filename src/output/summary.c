@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "output_internal.h"
+#include "volev/invariants.h"
 #include "volev/output.h"
 #include "volev/redox_ledger.h"
 #include "volev/schema.h"
@@ -135,14 +136,16 @@ static int channel_totals(FILE *f, const ctx *c)
     return rc;
 }
 
+/* on the state as written (dips below zero as 0), invariants.h's vl_residual: the start
+ * holds no dip, so its written and integrated inventories are the same */
 static int residuals(FILE *f, const ctx *c)
 {
     char name[64];
     int rc = 0;
     for (int el = 0; el < VL_NELEMENTS && rc >= 0; el++) {
-        double t0 = c->s->totals0[el], d = fabs(c->s->totals1[el] - t0);
         snprintf(name, sizeof name, "residual_%s", vl_element_name(el));
-        rc = row(f, name, "relative", SCI3, t0 > 0.0 ? d / t0 : d);
+        rc = row(f, name, "relative", SCI3,
+                 vl_residual(&c->m->sc->run, el, c->s->totals0[el], c->s->written1[el]));
     }
     return rc;
 }
@@ -184,6 +187,7 @@ static double overshoot(const ctx *c)
 {
     return c->s->min_mass_kg < 0.0 ? -c->s->min_mass_kg : 0.0;
 }
+static double overshoot_tolerances(const ctx *c) { return c->s->overshoot_tolerances; }
 static double rhs_calls(const ctx *c) { return (double)c->s->rhs_calls; }
 static double steps(const ctx *c) { return (double)c->s->steps; }
 static double events(const ctx *c) { return (double)c->s->events; }
@@ -215,7 +219,7 @@ static const item items[] = {
      "time integral of each process flux column <flux>_kg_s (trapezoid over accepted steps); for a redox column redox_<process>_kg_s, total_redox_<process> in kg O-eq, signed",
      NULL, channel_totals},
     {"residual_<element>", "relative", SCI3,
-     "|final - initial| / initial inventory of the element over every reservoir, space included",
+     "|final - initial| / max(initial, 1e8 x resolution): the element's inventory over every reservoir, space included, as written (a dip below zero as 0); the resolution is the largest absolute tolerance of a reservoir holding the element times its mass fraction there, so an element the planet lacks is judged against the mass the integrator resolves; a run stops once the residual of the state as integrated exceeds 1e-8, and this one differs from it by the final dips written as 0 (docs/hardening.md, Physical invariants)",
      NULL, residuals},
     {"redox_surface_initial", REDOX_UNIT, REAL10,
      "redox content of the air and ocean at the start, oxygen equivalents relative to H2O, CO2 and N2 (positive: free oxidant; docs/model.md section 1)",
@@ -234,7 +238,10 @@ static const item items[] = {
      "|change of the surface's content - sum of the total_redox_<process> rows| / the same gross: the trapezoid quadrature error of the per-process attribution (not round-off)",
      redox_attribution, NULL},
     {"reservoir_overshoot", "kg", REAL10,
-     "deepest integrator overshoot of a reservoir below zero seen in a row", overshoot, NULL},
+     "deepest integrator overshoot of a reservoir below zero in an output row (written as 0 there)", overshoot, NULL},
+    {"reservoir_overshoot_tolerances", "tolerances", REAL10,
+     "deepest overshoot below zero in an output row in units of its reservoir's tolerance, run.abs_tolerance_kg x floor / 1e3 kg + run.rel_tolerance x the largest mass the reservoir held; a run stops beyond 1000 (docs/hardening.md)",
+     overshoot_tolerances, NULL},
     {"rhs_evaluations", "count", COUNT, "right-hand-side evaluations, Jacobians included",
      rhs_calls, NULL},
     {"steps", "count", COUNT, "accepted integrator steps", steps, NULL},

@@ -153,7 +153,7 @@ double vl_climate_saturated_vapour(double p_sat_pa, double g, double area_m2,
     double c = p * air->mol * vl_species_molar_mass(VL_SP_H2O);
     double d = sqrt(b * b + 4.0 * c);
     double mv = b > 0.0 ? 2.0 * c / (b + d) : 0.5 * (d - b);
-    return fmin(mv, water_kg);
+    return isnan(mv) ? mv : fmin(mv, water_kg); /* fmin would turn a NaN into all the water */
 }
 
 void vl_climate_partition(double water_kg, int all_vapour, const vl_dry_air *air, vl_env *env)

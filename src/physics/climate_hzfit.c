@@ -68,20 +68,51 @@ double vl_hz_seff_runaway_2014(double mass_mearth, double teff_k)
     return s0 + w * (s1 - s0);
 }
 
-/* Temperate energy balance: T = T_e + G0 + (dT_2x / ln 2) ln(pCO2_dry / pCO2_ref), with
- * T_e = [S (1 - A) / (4 sigma)]^(1/4) (Stefan-Boltzmann, absorbed flux spread over the
- * sphere), G0 and dT_2x the calibrated greenhouse and doubling warming, and
- * pCO2_dry = x_CO2,dry M_dry g / area. pCO2_dry is floored at 1e-9 pCO2_ref (a numerical
- * guard of ours, about 30 doublings below the reference) so the logarithm stays finite
- * and continuous as CO2 runs out. */
+/* Greenhouse warming never negative: g itself above KNEE_K, 0 below -KNEE_K, and between
+ * them the quadratic (g + KNEE_K)^2 / (4 KNEE_K), which meets both with the same value and
+ * slope (a C1 "soft max" of g and 0, common practice), so the right-hand side stays
+ * smooth for the integrator. The linear-in-ln pCO2 fit is calibrated around present
+ * Earth; far below its reference pCO2 it would predict a cooling greenhouse (about -56 K
+ * at the floor below), which no atmosphere of non-condensing gases produces: an
+ * atmosphere transparent in the thermal infrared leaves the surface at the equilibrium
+ * temperature. The knee lifts g by at most KNEE_K / 4 and only where |g| < KNEE_K. */
+#define KNEE_K 2.0
+
+double vl_hzfit_greenhouse_knee(double g_k)
+{
+    if (g_k >= KNEE_K)
+        return g_k;
+    if (g_k <= -KNEE_K)
+        return 0.0;
+    return (g_k + KNEE_K) * (g_k + KNEE_K) / (4.0 * KNEE_K);
+}
+
+/* Equilibrium temperature T_e = [S (1 - A) / (4 sigma) + T_CMB^4]^(1/4): the absorbed
+ * stellar flux spread over the sphere (Stefan-Boltzmann) plus the cosmic microwave
+ * background every surface also absorbs, so that T_e >= T_CMB however faint the star
+ * (T_CMB = VL_T_CMB_K, Fixsen 2009). The background adds T_CMB^4 / (4 T_e^3), 1e-6 K at
+ * 255 K. */
+double vl_hzfit_equilibrium_temp(double instellation, double bond_albedo)
+{
+    double t4 = VL_T_CMB_K * VL_T_CMB_K * VL_T_CMB_K * VL_T_CMB_K;
+    return pow(instellation * (1.0 - bond_albedo) / (4.0 * VL_SIGMA_SB) + t4, 0.25);
+}
+
+/* Temperate energy balance: T = T_e + knee(G0 + (dT_2x / ln 2) ln(pCO2_dry / pCO2_ref)),
+ * with T_e the equilibrium temperature above, G0 and dT_2x the calibrated greenhouse and
+ * doubling warming, and pCO2_dry = x_CO2,dry M_dry g / area. pCO2_dry is floored at
+ * 1e-9 pCO2_ref (a numerical guard of ours, about 30 doublings below the reference) so
+ * the logarithm stays finite and continuous as CO2 runs out. Invariant: T >= T_e >=
+ * T_CMB > 0 (the greenhouse term is never negative). */
 static double balance_temp(const vl_climate_params *cp, const vl_env *env,
                            const vl_dry_air *air)
 {
-    double te = pow(env->instellation * (1.0 - cp->bond_albedo) / (4.0 * VL_SIGMA_SB), 0.25);
+    double te = vl_hzfit_equilibrium_temp(env->instellation, cp->bond_albedo);
     double p_dry = air->mass_kg * env->g / env->area_m2;
     double pco2 = air->mol > 0.0 ? air->co2_mol / air->mol * p_dry : 0.0;
     pco2 = fmax(pco2, 1e-9 * cp->co2_ref_pa);
-    return te + cp->greenhouse_ref_k + cp->co2_doubling_k / log(2.0) * log(pco2 / cp->co2_ref_pa);
+    double g = cp->greenhouse_ref_k + cp->co2_doubling_k / log(2.0) * log(pco2 / cp->co2_ref_pa);
+    return te + vl_hzfit_greenhouse_knee(g);
 }
 
 /* Stratospheric total-hydrogen mixing ratio: the cold-trap value of the regime; in a

@@ -32,6 +32,10 @@ double vl_water_psat_ice(double t_k)
  * At the triple point the two formulas agree to about 2e-9 relative. */
 double vl_water_psat(double t_k)
 {
+    if (isnan(t_k)) /* passed on: the invariant guard names it */
+        return t_k;
+    if (t_k <= 0.0) /* the limit of the ice curve as T -> 0: no vapour */
+        return 0.0;
     if (t_k < VL_WATER_TTRIPLE_K)
         return vl_water_psat_ice(t_k);
     if (t_k <= VL_WATER_TC_K)

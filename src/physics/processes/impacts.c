@@ -129,12 +129,16 @@ static double impacts_between(const params *p, double a_s, double b_s)
     return early + p->bg_per_s * (b_s - a_s);
 }
 
-/* Tangent-plane fraction X = h/(2R), capped at 1 (Schlichting, Sari & Yalinewich 2015). */
+/* Tangent-plane fraction X = h/(2R), within [0, 1] (Schlichting, Sari & Yalinewich 2015).
+ * A scale height is positive; a surface temperature at or below 0 K (which no climate
+ * should give: the run's invariant guard stops one) would make it negative and run the
+ * erosion reactions backwards, building air out of the empty space reservoirs. A NaN
+ * passes on for the guard to see. */
 static double tangent_fraction(const vl_planet *pl, const vl_env *env)
 {
     double h = VL_K_BOLTZMANN * env->t_surf_k / (env->m_mean_kg * env->g);
     double x = h / (2.0 * pl->radius_m);
-    return x < 1.0 ? x : 1.0;
+    return x > 1.0 ? 1.0 : x < 0.0 ? 0.0 : x;
 }
 
 /* The rate at run start must be finite; delivery must have something to deliver, and
