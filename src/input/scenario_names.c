@@ -144,7 +144,7 @@ int vl_names_open(vl_names *n, char open, int line, int value)
     if (n->depth == VL_SCENARIO_DEPTH_MAX)
         return vl_fail(n->st, VL_ERR_INPUT, n->path, line,
                        "groups, lists and arrays nested too deep (more than %d levels; the "
-                       "parameters need 4)", VL_SCENARIO_DEPTH_MAX);
+                       "parameters need 3)", VL_SCENARIO_DEPTH_MAX);
     char key[VL_SCENARIO_KEY_MAX], index[32];
     snprintf(key, sizeof key, "%s", n->key);
     if (value) {
