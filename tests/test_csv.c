@@ -276,7 +276,7 @@ START_TEST(test_not_regular)
     const vl_csv_options track = {0, 0, 0, 0, "star track", NULL};
     /* /dev/null is a character device (POSIX) */
     ck_assert_ptr_null(vl_csv_read("/dev/null", &track, &st));
-    ck_assert_int_eq(st.code, VL_ERR_IO);
+    ck_assert_int_eq(st.code, VL_ERR_INPUT); /* the wrong kind of file: bad input */
     ck_assert_int_eq(st.line, 0);
     ck_assert_str_eq(st.file, "/dev/null");
     ck_assert_str_eq(st.msg, "cannot read star track: it is a character device, not a regular "
@@ -284,13 +284,13 @@ START_TEST(test_not_regular)
     char dir[256], path[512];
     vl_test_tmp_make(dir, sizeof dir, "volev-csv");
     ck_assert_ptr_null(vl_csv_read(dir, NULL, &st));
-    ck_assert_int_eq(st.code, VL_ERR_IO);
+    ck_assert_int_eq(st.code, VL_ERR_INPUT);
     ck_assert_str_eq(st.msg, "cannot read CSV file: it is a folder, not a regular file");
     /* a FIFO with no writer: refused at once instead of waited on */
     snprintf(path, sizeof path, "%s/fifo", dir);
     ck_assert_int_eq(mkfifo(path, 0600), 0);
     ck_assert_ptr_null(vl_csv_read(path, NULL, &st));
-    ck_assert_int_eq(st.code, VL_ERR_IO);
+    ck_assert_int_eq(st.code, VL_ERR_INPUT);
     ck_assert_ptr_nonnull(strstr(st.msg, "it is a FIFO (named pipe), not a regular file"));
     /* a missing file */
     snprintf(path, sizeof path, "%s/none.csv", dir);

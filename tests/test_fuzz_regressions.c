@@ -172,11 +172,10 @@ START_TEST(scenario_parse_errors)
     ck_assert_double_eq(sc->star.teff_k, 5000.0);
     ck_assert_str_eq(sc->name, "len");
     vl_scenario_free(sc);
-    /* nothing at all is the all-defaults scenario */
-    sc = vl_scenario_parse(NULL, 0, NULL, &st);
-    ck_assert_msg(sc != NULL, "%s", st.msg);
-    ck_assert_str_eq(sc->path, "(text)");
-    vl_scenario_free(sc);
+    /* nothing at all, or only blanks and comments, is refused: it would run on defaults */
+    expect_parse_error(NULL, 0, NULL, 0, "the scenario is empty");
+    expect_parse_error(TEXT(" \n\t# a comment\n/* another */\n// and one more\n"), "c.cfg", 0,
+                       "the scenario is empty");
 }
 END_TEST
 

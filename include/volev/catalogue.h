@@ -24,6 +24,7 @@ typedef struct vl_catalogue {
     char **names;            /* candidate names */
     char ***cells;           /* cells[r][c]: override text, or NULL for an empty cell */
     int *lines;              /* source line of each candidate */
+    int header_line;         /* source line of the header */
 } vl_catalogue;
 
 /* Reads and validates path; on error returns NULL and fills st (VL_ERR_IO when the

@@ -82,8 +82,8 @@ typedef struct vl_csv_record {
 typedef int (*vl_csv_fn)(void *ctx, const vl_csv_record *rec, vl_status *st);
 
 /* Reads the file path record by record, calling fn for each; returns VL_OK or the code of
- * the first error (VL_ERR_IO when it cannot be opened or read or is not a regular file,
- * VL_ERR_INPUT for its content or size, VL_ERR_INTERNAL when out of memory), st filled.
+ * the first error (VL_ERR_IO when it cannot be opened or read, VL_ERR_INPUT when it is not
+ * a regular file or for its content or size, VL_ERR_INTERNAL when out of memory), st filled.
  * A file without a header is not an error here: fn is simply never called with one. */
 int vl_csv_scan(const char *path, const vl_csv_options *o, vl_csv_fn fn, void *ctx,
                 vl_status *st);

@@ -190,6 +190,18 @@ size_t vl_param_count(void);
 void vl_param_at(const vl_scenario *sc, size_t i, const vl_param **p, void **base,
                  const char **prefix);
 
+/* Limits of a scenario's text (docs/hardening.md, "Input limits"); the bundled scenarios
+ * are under 3 KiB and nest 3 deep. A file beyond them is refused with a message naming
+ * the limit, before libconfig sees it. */
+#define VL_SCENARIO_SIZE_MAX ((size_t)1 << 20) /* bytes of a scenario (1 MiB) */
+#define VL_SCENARIO_DEPTH_MAX 16               /* groups, lists and arrays open at once */
+#define VL_SCENARIO_GROUP_MAX 256              /* settings in one group */
+#define VL_SCENARIO_LIST_MAX 65536             /* elements of one list or array */
+
+/* 1 if key is the full key of a parameter; else 0 with msg filled ("unknown key 'K'
+ * (did you mean ...)" or "'K' is a group, not a parameter"; K a bounded excerpt). */
+int vl_scenario_check_key(const char *key, char *msg, size_t n);
+
 /* Allocate a scenario holding every default. Returns NULL on allocation failure. */
 vl_scenario *vl_scenario_new(void);
 void vl_scenario_free(vl_scenario *sc);
@@ -200,8 +212,9 @@ void vl_scenario_free(vl_scenario *sc);
 vl_scenario *vl_scenario_load(const char *path, const char *const *overrides, size_t n_overrides,
                               vl_status *st);
 
-/* The same checks on scenario text held in memory (len bytes; a NUL or control byte
- * among them is an input error: binary data), without overrides: defaults, the text,
+/* The same checks on scenario text held in memory (len bytes, at most
+ * VL_SCENARIO_SIZE_MAX; a NUL or control byte among them is an input error: binary
+ * data), without overrides: defaults, the text,
  * the cross-checks. label (NULL: "(text)") stands for the file name in messages and in
  * sc->path / sc->name; relative paths in the text (star.track_file, sweep.catalogue)
  * resolve against the current folder. On error returns NULL and fills st. A top-level

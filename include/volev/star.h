@@ -35,6 +35,9 @@ void vl_star_eval(const vl_star *s, double t_s, vl_star_state *out);
 
 /* 1 if the star's XUV comes from a track column (xuv_lsun), so star.xuv.* is unused. */
 int vl_star_xuv_from_track(const vl_star *s);
+/* 1 if the star's effective temperature comes from a track column (teff_k), so
+ * star.teff_k is unused. */
+int vl_star_teff_from_track(const vl_star *s);
 
 /* Orbit-averaged flux at distance a (m) with eccentricity e: L / (4 pi a^2 sqrt(1-e^2)). */
 double vl_star_orbit_flux(double l_w, double a_m, double e);

@@ -10,6 +10,10 @@
 
 typedef struct vl_star_track vl_star_track;   /* opaque; a checked luminosity table */
 
+/* Largest track file, bytes (16 MiB: some 300 000 rows of four columns; published
+ * evolutionary tracks have thousands). A larger one is refused before it is read. */
+#define VL_TRACK_SIZE_MAX ((size_t)16 << 20)
+
 /* Columns of a track; the age column is the abscissa. */
 enum vl_track_column { VL_TRACK_AGE, VL_TRACK_LUM, VL_TRACK_TEFF, VL_TRACK_XUV, VL_TRACK_NCOL };
 

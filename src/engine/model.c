@@ -12,23 +12,27 @@
 #include "volev/redox_ledger.h"
 #include "volev/units.h"
 
-/* A track with an xuv_lsun column replaces star.xuv.*: setting those keys is an error,
- * not a silent no-op. */
-static int check_xuv_source(const vl_scenario *sc, const vl_star *star, vl_status *st)
+/* A track column replaces keys: xuv_lsun replaces star.xuv.*, teff_k replaces
+ * star.teff_k. Setting a replaced key is an error, not a silent no-op. */
+static int check_track_keys(const vl_scenario *sc, const vl_star *star, vl_status *st)
 {
-    if (!vl_star_xuv_from_track(star))
-        return VL_OK;
-    for (size_t i = 0; i < vl_param_count(); i++) {
+    int xuv = vl_star_xuv_from_track(star), teff = vl_star_teff_from_track(star);
+    for (size_t i = 0; (xuv || teff) && i < vl_param_count(); i++) {
         const vl_param *p;
         void *base;
         const char *prefix;
         vl_param_at(sc, i, &p, &base, &prefix);
-        if (prefix[0] == '\0' && strncmp(p->key, "star.xuv.", 9) == 0 &&
-            sc->origin[i] != VL_FROM_DEFAULT)
-            return vl_fail(st, VL_ERR_INPUT, sc->origin[i] == VL_FROM_FILE ? sc->path : NULL,
-                           sc->line[i],
+        if (prefix[0] != '\0' || sc->origin[i] == VL_FROM_DEFAULT)
+            continue;
+        const char *where = sc->origin[i] == VL_FROM_FILE ? sc->path : NULL;
+        if (xuv && strncmp(p->key, "star.xuv.", 9) == 0)
+            return vl_fail(st, VL_ERR_INPUT, where, sc->line[i],
                            "%s is not used: the XUV history comes from the xuv_lsun column of %s",
                            p->key, sc->star.track_file);
+        if (teff && strcmp(p->key, "star.teff_k") == 0)
+            return vl_fail(st, VL_ERR_INPUT, where, sc->line[i],
+                           "%s is not used: the effective temperature comes from the teff_k "
+                           "column of %s", p->key, sc->star.track_file);
     }
     return VL_OK;
 }
@@ -138,7 +142,7 @@ vl_model *vl_model_new_with(const vl_scenario *sc, const vl_process *const *proc
     m->sc = sc;
     vl_planet_from_scenario(sc, &m->planet);
     m->star = vl_star_new(&sc->star, sc->run.start_s, sc->run.end_s, st);
-    if (!m->star || check_xuv_source(sc, m->star, st) != VL_OK ||
+    if (!m->star || check_track_keys(sc, m->star, st) != VL_OK ||
         !(m->climate = vl_climate_new(sc, st)) ||
         take_processes(m, procs, params, n, st) != VL_OK) {
         vl_model_free(m);

@@ -12,6 +12,7 @@
 
 #include "sweep_internal.h"
 #include "volev/params.h"
+#include "volev/text.h"
 
 /* Fails st with an input error at line of the sweep's scenario file. */
 __attribute__((format(printf, 4, 5)))
@@ -284,11 +285,27 @@ static const char *without_set(const char *msg)
     return colon ? colon + 2 : msg;
 }
 
+/* Every column of the catalogue names a parameter: an unknown key is an error at the
+ * header's line, not at the first candidate's. */
+static int check_columns(const vl_sweep *sw, vl_status *st)
+{
+    char msg[VL_MSG_MAX], shown[VL_EXCERPT_SIZE];
+    for (size_t c = 0; c < sw->cat->ncols; c++)
+        if (!vl_scenario_check_key(sw->cat->keys[c], msg, sizeof msg))
+            return vl_fail(st, VL_ERR_INPUT, sw->cat_path, sw->cat->header_line,
+                           "column '%s': %s",
+                           vl_text_excerpt_str(sw->cat->headers[c], shown, sizeof shown), msg);
+    return VL_OK;
+}
+
 /* Every candidate's values must load onto the base scenario: a key that does not
  * exist or a value out of its bounds is an error at the catalogue's line, before any
  * member runs (docs/catalogue.md). */
 int vl_sweep_check_candidates(const vl_sweep *sw, vl_status *st)
 {
+    int rc = check_columns(sw, st);
+    if (rc)
+        return rc;
     for (size_t r = 0; r < sw->cat->nrows; r++) {
         char **ov = calloc(sw->cat->ncols + 1, sizeof *ov);
         if (!ov)
@@ -301,9 +318,11 @@ int vl_sweep_check_candidates(const vl_sweep *sw, vl_status *st)
         vl_status e;
         vl_scenario *probe = vl_scenario_load(sw->path, (const char *const *)ov, n, &e);
         vl_sweep_free_overrides(ov, n);
+        char shown[VL_EXCERPT_SIZE];
         if (!probe)
             return vl_fail(st, e.code, sw->cat_path, sw->cat->lines[r], "candidate '%s': %s",
-                           sw->cat->names[r], without_set(e.msg));
+                           vl_text_excerpt_str(sw->cat->names[r], shown, sizeof shown),
+                           without_set(e.msg));
         vl_scenario_free(probe);
     }
     return VL_OK;
@@ -331,9 +350,12 @@ int vl_sweep_check_axes(const vl_sweep *sw, vl_status *st)
         const char *one[] = {ov};
         vl_status tmp;
         vl_scenario *probe = vl_scenario_load(sw->path, one, 1, &tmp);
+        char shown[VL_EXCERPT_SIZE];
         if (!probe)
             return vl_fail(st, VL_ERR_INPUT, sw->sweep_path, x->line,
-                           "sweep.axes: axis '%s' at %g: %s", x->key, v, without_set(tmp.msg));
+                           "sweep.axes: axis '%s' at %g: %s",
+                           vl_text_excerpt_str(x->key, shown, sizeof shown), v,
+                           without_set(tmp.msg));
         vl_scenario_free(probe);
     }
     return VL_OK;

@@ -15,8 +15,10 @@
 #include <string.h>
 
 #include "volev/csv.h"
+#include "volev/number.h"
 #include "volev/params.h"
 #include "volev/scenario.h"
+#include "volev/text.h"
 
 /* Short column names and the scenario keys they stand for; their values are numbers. */
 static const struct {
@@ -39,7 +41,6 @@ static const struct {
 #define NSHORT (sizeof short_names / sizeof short_names[0])
 
 #define NAME_COLUMN "name"
-#define SHOWN_MAX 48      /* bytes of an offending value quoted in a message */
 
 /* The CSV reader's settings for catalogues: double quotes, the catalogue's line limit. */
 static const vl_csv_options catalogue_csv = {VL_CSV_QUOTES, 0, VL_CATALOGUE_LINE_MAX, 0,
@@ -77,37 +78,20 @@ static int out_of_memory(vl_status *st)
     return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
 }
 
-/* s shortened to SHOWN_MAX bytes (at a UTF-8 character boundary, with "...") into buf. */
+/* The bounded, escaped excerpt of s that messages quote (text.h). */
 static const char *shown(const char *s, char *buf, size_t n)
 {
-    size_t len = strlen(s);
-    if (len <= SHOWN_MAX && len < n) {
-        memcpy(buf, s, len + 1);
-        return buf;
-    }
-    size_t cut = SHOWN_MAX < n - 4 ? SHOWN_MAX : n - 4;
-    while (cut > 0 && ((unsigned char)s[cut] & 0xC0) == 0x80)
-        cut--;
-    memcpy(buf, s, cut);
-    memcpy(buf + cut, "...", 4);
-    return buf;
+    return vl_text_excerpt_str(s, buf, n);
 }
 
 /* ---------------------------------------------------------------- value checks */
 
-/* A whole-field finite decimal number: digits, sign, point, exponent and nothing else
- * (so no "nan", "inf", hex floats, spaces or trailing text), within double range. */
+/* A whole-field finite decimal number (number.h: no "nan", "inf", hexadecimal, spaces,
+ * trailing text or underflow). */
 static int is_number(const char *s)
 {
-    if (!*s)
-        return 0;
-    for (const char *q = s; *q; q++)
-        if (!strchr("0123456789+-.eE", *q))
-            return 0;
-    char *end;
-    errno = 0;
-    double v = strtod(s, &end);
-    return end != s && *end == '\0' && isfinite(v);
+    double v;
+    return vl_number_parse_str(s, &v) == VL_NUMBER_OK;
 }
 
 /* A bare word [A-Za-z_][A-Za-z0-9_]* that does not read as a non-finite number ("nan", "inf"). */
@@ -183,7 +167,7 @@ static int unique_leaf(const char *name, char *buf, size_t n)
  * short name. */
 static int unknown_column(const parser *p, const char *f, vl_status *st)
 {
-    char hint[600], full[512], list[512], fs[SHOWN_MAX + 4];
+    char hint[600], full[512], list[512], fs[VL_EXCERPT_SIZE];
     size_t used = (size_t)snprintf(list, sizeof list, "%s", NAME_COLUMN);
     const char *best = NAME_COLUMN;
     size_t best_d = vl_edit_distance(f, NAME_COLUMN);
@@ -210,7 +194,7 @@ static int unknown_column(const parser *p, const char *f, vl_status *st)
 static int read_header(parser *p, const vl_csv_record *rec, vl_status *st)
 {
     size_t n = rec->n;
-    char fs[SHOWN_MAX + 4];
+    char fs[VL_EXCERPT_SIZE], fs2[VL_EXCERPT_SIZE];
     if (n > VL_CATALOGUE_COLS_MAX)
         return fail(p, st, "the header has %zu columns; at most %d are allowed (name included)",
                     n, VL_CATALOGUE_COLS_MAX);
@@ -247,8 +231,9 @@ static int read_header(parser *p, const vl_csv_record *rec, vl_status *st)
             if (strcmp(c->keys[j], key) != 0)
                 continue;
             if (strcmp(c->headers[j], f) == 0)
-                return fail(p, st, "column '%s' appears twice", f);
-            return fail(p, st, "columns '%s' and '%s' both set %s", c->headers[j], f, key);
+                return fail(p, st, "column '%s' appears twice", shown(f, fs, sizeof fs));
+            return fail(p, st, "columns '%s' and '%s' both set %s",
+                        shown(c->headers[j], fs2, sizeof fs2), shown(f, fs, sizeof fs), key);
         }
         p->numeric[col] = (unsigned char)numeric_key(key);
         if (!(c->headers[col] = strdup(f)) || !(c->keys[col] = strdup(key)))
@@ -260,6 +245,7 @@ static int read_header(parser *p, const vl_csv_record *rec, vl_status *st)
                     "a name)");
     c->ncols = n - 1;
     p->header_line = p->line;
+    p->cat->header_line = p->line;
     return VL_OK;
 }
 
@@ -329,12 +315,17 @@ static int rows_grow(parser *p, vl_status *st)
  * word (other full keys), at most VL_CATALOGUE_FIELD_MAX bytes. */
 static int check_cell(const parser *p, size_t col, const char *f, vl_status *st)
 {
-    char fs[SHOWN_MAX + 4];
+    char fs[VL_EXCERPT_SIZE];
     const char *h = p->cat->headers[col];
     if (strlen(f) > VL_CATALOGUE_FIELD_MAX)
         return fail(p, st, "column '%s': value longer than %d bytes", h, VL_CATALOGUE_FIELD_MAX);
     if (!*f || is_number(f))
         return VL_OK;
+    double v;
+    int kind = vl_number_parse_str(f, &v);
+    if (kind == VL_NUMBER_HEX || kind == VL_NUMBER_UNDERFLOW)
+        return fail(p, st, "column '%s': '%s' %s", h, shown(f, fs, sizeof fs),
+                    vl_number_why(kind));
     if (p->numeric[col])
         return fail(p, st, "column '%s': expected a finite number, got '%s'", h,
                     shown(f, fs, sizeof fs));
@@ -350,7 +341,7 @@ static int check_cell(const parser *p, size_t col, const char *f, vl_status *st)
 static int read_row(parser *p, const vl_csv_record *rec, vl_status *st)
 {
     vl_catalogue *c = p->cat;
-    char fs[SHOWN_MAX + 4];
+    char fs[VL_EXCERPT_SIZE];
     size_t n = rec->n;
     char *const *field = rec->field;
     if (c->nrows >= VL_CATALOGUE_ROWS_MAX)

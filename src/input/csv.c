@@ -454,9 +454,9 @@ static FILE *open_regular(const reader *r, const char *path, vl_status *st)
     if (fstat(fd, &sb) != 0 || (flags = fcntl(fd, F_GETFL)) < 0 ||
         fcntl(fd, F_SETFL, flags & ~O_NONBLOCK) != 0)
         vl_fail(st, VL_ERR_IO, path, 0, "cannot read %s: %s", r->noun, strerror(errno));
-    else if (!S_ISREG(sb.st_mode))
-        vl_fail(st, VL_ERR_IO, path, 0, "cannot read %s: it is %s, not a regular file", r->noun,
-                file_kind(sb.st_mode));
+    else if (!S_ISREG(sb.st_mode)) /* the wrong kind of input, not a failed read */
+        vl_fail(st, VL_ERR_INPUT, path, 0, "cannot read %s: it is %s, not a regular file",
+                r->noun, file_kind(sb.st_mode));
     else if ((uintmax_t)sb.st_size > r->size_max)
         fail_size(r, (uintmax_t)sb.st_size, st);
     else if (!(f = fdopen(fd, "rb")))

@@ -8,6 +8,7 @@
 
 #include "scenario_internal.h"
 #include "volev/process.h"
+#include "volev/units.h"
 
 /* ------------------------------------------------------------------ table sanity */
 
@@ -196,7 +197,32 @@ static int check_required(const vl_scenario *sc, vl_status *st)
     return VL_OK;
 }
 
-/* The run ends after it starts; a luminosity table has a file. */
+/* The largest mean density of a planet, kg/m^3: about twice that of a pure-iron planet
+ * of 20 Earth masses, the largest planet.mass_mearth (radius 1.74 Earth radii, about
+ * 21 g/cm^3, from the mass-radius fit of Seager et al. 2007, ApJ 669:1279, eq. 23 and
+ * table 4; from memory); a smaller iron planet is less compressed, so less dense. There
+ * is no lower bound: planets with thick envelopes measure below 0.1 g/cm^3. */
+#define DENSITY_MAX 40000.0
+
+/* The planet's mass and radius give a mean density a planet can have. */
+static int check_density(const vl_scenario *sc, vl_status *st)
+{
+    double r = sc->planet.radius_m;
+    double rho = sc->planet.mass_kg / (4.0 / 3.0 * VL_PI * r * r * r);
+    if (rho <= DENSITY_MAX)
+        return VL_OK;
+    size_t mass = (size_t)vl_scenario_find_key("planet.mass_mearth");
+    size_t radius = (size_t)vl_scenario_find_key("planet.radius_rearth");
+    size_t at = sc->origin[radius] != VL_FROM_DEFAULT ? radius : mass;
+    return fail_param(sc, at, st,
+                      "planet.mass_mearth = %.6g and planet.radius_rearth = %.6g give a mean "
+                      "density of %.3g g/cm^3, above %g g/cm^3: denser than a planet of pure "
+                      "iron can be",
+                      sc->file_value[mass], sc->file_value[radius], rho / 1000.0,
+                      DENSITY_MAX / 1000.0);
+}
+
+/* The run ends after it starts; a luminosity table has a file; the planet's density. */
 static int check_consistency(const vl_scenario *sc, vl_status *st)
 {
     size_t start = (size_t)vl_scenario_find_key("run.start_yr");
@@ -214,7 +240,7 @@ static int check_consistency(const vl_scenario *sc, vl_status *st)
         return fail_param(sc, (size_t)vl_scenario_find_key("planet.interior.magma_ocean.molten_start"),
                           st, "a molten start needs climate.model = column (the hot surface's "
                               "outgoing radiation comes from the column)");
-    return VL_OK;
+    return check_density(sc, st);
 }
 
 /* The check hook of every enabled process. */

@@ -4,9 +4,11 @@
 #include <stdarg.h>
 #include <stdint.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "scenario_internal.h"
+#include "volev/text.h"
 
 /* ------------------------------------------------------------------ messages */
 
@@ -46,10 +48,55 @@ void vl_scenario_list_text(const char *list, const char *joiner, char *buf, size
 /* ------------------------------------------------------------------ the index */
 
 /* Full keys of every parameter, built once (the tables are constant): lookups by key
- * run on every load and every resolved-scenario write. */
+ * run on every load and every resolved-scenario write. by_key lists the rows in the
+ * byte order of their keys and groups every group's full name (a proper prefix of some
+ * key that ends before a dot) in the same order, so that a lookup is a binary search
+ * (O(log n)) rather than a pass over every row. */
 static char key_cache[VL_SCENARIO_CACHE_MAX][VL_SCENARIO_CACHE_KEY];
 static size_t key_cache_n;
+static size_t by_key[VL_SCENARIO_CACHE_MAX];
+typedef struct group_name {
+    const char *text; /* a key of key_cache ... */
+    size_t len;       /* ... cut before the dot at this length */
+} group_name;
+static group_name *groups; /* NULL if out of memory: then no path is a group */
+static size_t ngroups;
 static pthread_once_t key_cache_once = PTHREAD_ONCE_INIT;
+
+static int cmp_rows(const void *a, const void *b)
+{
+    return strcmp(key_cache[*(const size_t *)a], key_cache[*(const size_t *)b]);
+}
+
+/* Byte order of two group names (as strcmp on the cut texts). */
+static int cmp_groups(const void *a, const void *b)
+{
+    const group_name *x = a, *y = b;
+    size_t m = x->len < y->len ? x->len : y->len;
+    int c = memcmp(x->text, y->text, m);
+    return c ? c : (x->len > y->len) - (x->len < y->len);
+}
+
+/* Every group name of every key into groups[], sorted, without repeats. */
+static void build_groups(void)
+{
+    size_t n = 0;
+    for (size_t i = 0; i < key_cache_n; i++)
+        for (const char *dot = strchr(key_cache[i], '.'); dot; dot = strchr(dot + 1, '.'))
+            n++;
+    groups = malloc((n ? n : 1) * sizeof *groups);
+    if (!groups)
+        return;
+    n = 0;
+    for (size_t i = 0; i < key_cache_n; i++)
+        for (const char *dot = strchr(key_cache[i], '.'); dot; dot = strchr(dot + 1, '.'))
+            groups[n++] = (group_name){key_cache[i], (size_t)(dot - key_cache[i])};
+    qsort(groups, n, sizeof *groups, cmp_groups);
+    ngroups = 0;
+    for (size_t k = 0; k < n; k++)
+        if (ngroups == 0 || cmp_groups(&groups[ngroups - 1], &groups[k]) != 0)
+            groups[ngroups++] = groups[k];
+}
 
 static void build_key_cache(void)
 {
@@ -61,7 +108,10 @@ static void build_key_cache(void)
         const char *prefix;
         vl_param_at(NULL, i, &p, &base, &prefix);
         snprintf(key_cache[i], VL_SCENARIO_CACHE_KEY, "%s%s", prefix, p->key);
+        by_key[i] = i;
     }
+    qsort(by_key, key_cache_n, sizeof *by_key, cmp_rows);
+    build_groups();
 }
 
 /* The full key of parameter i (cached). */
@@ -101,25 +151,46 @@ vl_slot vl_scenario_row_slot(vl_scenario *sc, size_t i)
     return t;
 }
 
-/* Global index of the row whose full key is key, or -1. */
+/* Global index of the row whose full key is key, or -1 (binary search of by_key). */
 long vl_scenario_find_key(const char *key)
 {
-    size_t n = vl_param_count();
-    for (size_t i = 0; i < n; i++)
-        if (strcmp(key, vl_scenario_key(i)) == 0)
-            return (long)i;
+    pthread_once(&key_cache_once, build_key_cache);
+    size_t lo = 0, hi = key_cache_n;
+    while (lo < hi) {
+        size_t mid = lo + (hi - lo) / 2;
+        int c = strcmp(key, key_cache[by_key[mid]]);
+        if (c == 0)
+            return (long)by_key[mid];
+        if (c < 0)
+            hi = mid;
+        else
+            lo = mid + 1;
+    }
     return -1;
 }
 
-/* 1 if path is a group: the full key of some row continues it with a dot. */
+/* 1 if path is a group: the full key of some row continues it with a dot (binary search
+ * of the group names). */
 int vl_scenario_is_group(const char *path)
 {
-    size_t len = strlen(path), n = vl_param_count();
-    for (size_t i = 0; i < n; i++) {
-        const char *key = vl_scenario_key(i);
-        if (strncmp(key, path, len) == 0 && key[len] == '.')
-            return 1;
+    pthread_once(&key_cache_once, build_key_cache);
+    group_name g = {path, strlen(path)};
+    return groups && bsearch(&g, groups, ngroups, sizeof *groups, cmp_groups) != NULL;
+}
+
+int vl_scenario_check_key(const char *key, char *msg, size_t n)
+{
+    char shown[VL_EXCERPT_SIZE], hint[VL_SCENARIO_KEY_MAX + 32] = "";
+    if (vl_scenario_find_key(key) >= 0)
+        return 1;
+    vl_text_excerpt_str(key, shown, sizeof shown);
+    if (vl_scenario_is_group(key)) {
+        snprintf(msg, n, "'%s' is a group, not a parameter", shown);
+        return 0;
     }
+    if (strlen(key) < VL_SCENARIO_KEY_MAX)
+        vl_scenario_suggest(key, 0, hint, sizeof hint);
+    snprintf(msg, n, "unknown key '%s'%s", shown, hint);
     return 0;
 }
 

@@ -5,6 +5,8 @@
  *   scenario_value.c     typed values: one libconfig setting read and stored with its
  *                        type, bounds and choices (every input of a scenario file)
  *   scenario_prescan.c   the lexical pre-scan of the text before libconfig parses it
+ *   scenario_names.c     what the pre-scan sees of the structure: groups, lists and
+ *                        arrays open, setting names (full keys, repeats) and the limits
  *   scenario_read.c      the file walk: text -> libconfig -> settings -> rows
  *   sweep_spec.c         the top-level `sweep` group -> vl_sweep_spec
  *   scenario_override.c  --set KEY=VALUE
@@ -109,14 +111,73 @@ int vl_scenario_join_path(const char *dir, const char *rel, char *out, size_t n)
 /* The current working directory into buf, or an I/O error. */
 int vl_scenario_current_dir(char *buf, size_t n, vl_status *st);
 
+/* ---- scenario_names.c */
+
+/* One open group, list or array (or the root) as the pre-scan sees it. */
+typedef struct vl_scope {
+    char open;        /* '{', '(' or '['; '\0' for the root */
+    int line;         /* where it was opened */
+    size_t id;        /* unique per scope: a setting name may appear once per scope */
+    size_t count;     /* settings (group, root) or elements (list, array) so far */
+    size_t key_len;   /* length of its full key in vl_names.key */
+} vl_scope;
+
+/* A setting name seen, for the repeat check: its scope, text (in the scanned text) and
+ * line. */
+typedef struct vl_name_seen {
+    size_t scope;
+    const char *name;
+    size_t len;
+    int line;
+} vl_name_seen;
+
+/* The structure of a scenario's text as the pre-scan walks it: the scopes open, the full
+ * key of the innermost and of the last setting named, the names seen per scope. Every
+ * check here is linear in the text (a hash of the names), so a hostile file costs no more
+ * than its size before libconfig, whose repeat check is quadratic in a group's size,
+ * sees it. */
+typedef struct vl_names {
+    const char *path;                    /* the scenario, for messages */
+    vl_status *st;
+    vl_scope scope[VL_SCENARIO_DEPTH_MAX + 1];
+    size_t depth;                        /* scopes open besides the root */
+    size_t next_id;
+    char key[VL_SCENARIO_KEY_MAX];       /* full key of the innermost scope ("" at the root) */
+    char setting[VL_SCENARIO_KEY_MAX];   /* full key of the last setting named */
+    vl_name_seen *seen;                  /* open-addressing hash; NULL before the first name */
+    size_t cap, used;
+} vl_names;
+
+void vl_names_init(vl_names *n, const char *path, vl_status *st);
+void vl_names_free(vl_names *n);
+/* 1 if the innermost scope is a list or an array (its elements have no names). */
+int vl_names_in_list(const vl_names *n);
+/* A name followed by '=' or ':' in a group or at the root, at line: counted against
+ * VL_SCENARIO_GROUP_MAX, refused if its scope has it already (naming both lines) or if
+ * its full key is too long; n->setting becomes its full key. */
+int vl_names_setting(vl_names *n, const char *name, size_t len, int line);
+/* A value starting inside a list or array: counted against VL_SCENARIO_LIST_MAX. */
+int vl_names_element(vl_names *n, int line);
+/* A bracket opened at line (value: right after a setting's '=' or ':'), refused beyond
+ * VL_SCENARIO_DEPTH_MAX; a bracket closed, refused when it closes nothing or another
+ * kind. */
+int vl_names_open(vl_names *n, char open, int line, int value);
+int vl_names_close(vl_names *n, char close, int line);
+/* The end of the text: refused while a bracket is open (at the innermost one's line). */
+int vl_names_end(vl_names *n);
+
 /* ---- scenario_prescan.c */
 
 /* Refuses len bytes of text holding a NUL or control byte (binary data). */
 int vl_scenario_check_bytes(const char *text, size_t len, const char *path, vl_status *st);
-/* Lexical pass over text (NUL-terminated, modified in place) for what libconfig would
- * accept but mishandle: oversized integers, directives, and a string literal where the
- * grammar allows none (defused). */
-int vl_scenario_prescan(char *text, const char *path, vl_status *st);
+/* Lexical pass over len bytes of text for what libconfig would refuse with a vague message
+ * or accept but mishandle: an empty text, an unterminated string or comment, a bracket
+ * never closed, nesting, group and list sizes beyond the limits, a repeated setting,
+ * hexadecimal or underflowing numbers, oversized integers, directives. Returns the text
+ * for libconfig, NUL-terminated (a new allocation, with integers beyond 32 bits given the
+ * L suffix libconfig needs, and a string literal where the grammar allows none defused),
+ * or NULL with st filled. */
+char *vl_scenario_prescan(const char *text, size_t len, const char *path, vl_status *st);
 
 /* ---- scenario_read.c */
 

@@ -3,9 +3,13 @@
  * full dotted key names a row of the parameter index, or a group some row lives in;
  * values are read by scenario_value.c. */
 #include <errno.h>
+#include <fcntl.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
+#include <unistd.h>
 
 #include "scenario_internal.h"
 #include "volev/process.h"
@@ -104,11 +108,26 @@ static int walk_group(vl_loader *ld, const config_setting_t *g, const char *pref
 
 /* ------------------------------------------------------------------ the text */
 
+static int too_large(const char *path, vl_status *st);
+
+/* A UTF-8 byte-order mark at the very start is skipped, as by the CSV reader (csv.h). */
+static const char *skip_bom(const char *text, size_t *len)
+{
+    if (*len >= 3 && memcmp(text, "\xEF\xBB\xBF", 3) == 0) {
+        *len -= 3;
+        return text + 3;
+    }
+    return text;
+}
+
 int vl_scenario_read_memory(vl_scenario *sc, const char *text, size_t len, const char *dir,
                             vl_status *st)
 {
     vl_loader ld = {sc, st, sc->path, ""};
     snprintf(ld.dir, sizeof ld.dir, "%s", dir);
+    if (len > VL_SCENARIO_SIZE_MAX)
+        return too_large(sc->path, st);
+    text = skip_bom(text, &len);
     int rc = vl_scenario_check_bytes(text, len, sc->path, st);
     if (rc)
         return rc;
@@ -117,50 +136,99 @@ int vl_scenario_read_memory(vl_scenario *sc, const char *text, size_t len, const
         return vl_fail(st, VL_ERR_INTERNAL, sc->path, 0, "out of memory reading the scenario");
     memcpy(copy, text, len);
     copy[len] = '\0';
-    rc = vl_scenario_prescan(copy, sc->path, st);
-    if (rc) {
-        free(copy);
-        return rc;
-    }
+    char *parsed = vl_scenario_prescan(copy, len, sc->path, st);
+    free(copy);
+    if (!parsed)
+        return st->code;
     config_t cfg;
     config_init(&cfg);
-    if (!config_read_string(&cfg, copy))
+    if (!config_read_string(&cfg, parsed))
         rc = vl_fail(st, VL_ERR_INPUT, sc->path, config_error_line(&cfg), "%s",
                      config_error_text(&cfg));
     else
         rc = walk_group(&ld, config_root_setting(&cfg), "");
     config_destroy(&cfg);
-    free(copy);
+    free(parsed);
     return rc;
 }
 
 /* ------------------------------------------------------------------ the file */
 
+/* What a file that is not a regular file is. */
+static const char *file_kind(mode_t m)
+{
+    if (S_ISDIR(m))
+        return "a folder";
+    if (S_ISCHR(m))
+        return "a character device";
+    if (S_ISBLK(m))
+        return "a block device";
+    if (S_ISFIFO(m))
+        return "a FIFO (named pipe)";
+    if (S_ISSOCK(m))
+        return "a socket";
+    return "not a regular file";
+}
+
+static int too_large(const char *path, vl_status *st)
+{
+    return vl_fail(st, VL_ERR_INPUT, path, 0,
+                   "the scenario is larger than the limit of %zu bytes (1 MiB)",
+                   VL_SCENARIO_SIZE_MAX);
+}
+
+/* Opens path for reading if it is a regular file of at most VL_SCENARIO_SIZE_MAX bytes;
+ * -1 otherwise, st filled. Opened without blocking, so a FIFO is refused, not waited on;
+ * a device or a folder is refused before anything is read. */
+static int open_regular(const char *path, vl_status *st)
+{
+    int fd = open(path, O_RDONLY | O_NONBLOCK | O_CLOEXEC), flags;
+    if (fd < 0) {
+        vl_fail(st, VL_ERR_IO, path, 0, "cannot open the scenario: %s", strerror(errno));
+        return -1;
+    }
+    struct stat sb;
+    if (fstat(fd, &sb) != 0 || (flags = fcntl(fd, F_GETFL)) < 0 ||
+        fcntl(fd, F_SETFL, flags & ~O_NONBLOCK) != 0)
+        vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario: %s", strerror(errno));
+    else if (!S_ISREG(sb.st_mode))
+        vl_fail(st, VL_ERR_INPUT, path, 0, "cannot read the scenario: it is %s, not a regular file",
+                file_kind(sb.st_mode));
+    else if ((uintmax_t)sb.st_size > VL_SCENARIO_SIZE_MAX)
+        too_large(path, st);
+    else
+        return fd;
+    close(fd);
+    return -1;
+}
+
 /* The whole file into a new buffer (NUL-terminated; *len bytes before the terminator,
- * which may include NULs: vl_scenario_check_bytes rejects them). */
+ * which may include NULs: vl_scenario_check_bytes rejects them). At most
+ * VL_SCENARIO_SIZE_MAX bytes are read even if the file grows meanwhile. */
 static int slurp(const char *path, char **text, size_t *len_out, vl_status *st)
 {
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot open the scenario: %s", strerror(errno));
-    size_t len = 0, cap = 4096;
+    int fd = open_regular(path, st);
+    if (fd < 0)
+        return st->code;
+    size_t len = 0, cap = VL_SCENARIO_SIZE_MAX + 2;
     char *buf = malloc(cap);
-    while (buf) {
-        len += fread(buf + len, 1, cap - len - 1, f);
-        if (len < cap - 1)
-            break;
-        char *bigger = realloc(buf, cap *= 2);
-        if (!bigger)
-            free(buf);
-        buf = bigger;
+    ssize_t got = 1;
+    while (buf && len < cap - 1 && got > 0) {
+        got = read(fd, buf + len, cap - 1 - len);
+        if (got > 0)
+            len += (size_t)got;
+        else if (got < 0 && errno == EINTR)
+            got = 1;
     }
-    int bad = ferror(f), why = errno;
-    fclose(f);
+    int why = errno;
+    close(fd);
     if (!buf)
         return vl_fail(st, VL_ERR_INTERNAL, path, 0, "out of memory reading the scenario");
-    if (bad) {
+    if (got < 0 || len > VL_SCENARIO_SIZE_MAX) {
         free(buf);
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario: %s", strerror(why));
+        return got < 0 ? vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario: %s",
+                                 strerror(why))
+                       : too_large(path, st);
     }
     buf[len] = '\0';
     *text = buf;

@@ -9,6 +9,7 @@
 #include <unistd.h>
 
 #include "scenario_internal.h"
+#include "volev/text.h"
 
 /* ------------------------------------------------------------------ storing */
 
@@ -40,11 +41,12 @@ int vl_scenario_assign_int(const vl_slot *t, long v, const vl_where *w, vl_statu
 int vl_scenario_assign_choice(const vl_slot *t, const char *name, const vl_where *w,
                               vl_status *st)
 {
-    char list[512];
+    char list[512], shown[VL_EXCERPT_SIZE];
     int k = vl_choice_index(t->p->choices, name);
     if (k < 0) {
         vl_scenario_list_text(t->p->choices, ",", list, sizeof list);
-        return vl_scenario_fail_at(st, w, "%s = \"%s\" is not one of: %s", t->key, name, list);
+        return vl_scenario_fail_at(st, w, "%s = \"%s\" is not one of: %s", t->key,
+                                   vl_text_excerpt_str(name, shown, sizeof shown), list);
     }
     *(int *)t->at = k;
     return VL_OK;
@@ -208,9 +210,10 @@ int vl_scenario_read_text(const config_setting_t *s, const char *key, const char
     size_t len = strlen(text);
     if (len == 0)
         return vl_scenario_fail_at(st, w, "%s must name %s, not be empty", key, what);
+    char shown[VL_EXCERPT_SIZE];
     if (len >= n)
-        return vl_scenario_fail_at(st, w, "%s: \"%.40s...\" is longer than %zu bytes", key,
-                                   text, n - 1);
+        return vl_scenario_fail_at(st, w, "%s: \"%s\" is longer than %zu bytes", key,
+                                   vl_text_excerpt(text, len, shown, sizeof shown), n - 1);
     memcpy(buf, text, len + 1);
     return VL_OK;
 }

@@ -12,7 +12,9 @@
 #include <gsl/gsl_interp.h>
 
 #include "volev/csv.h"
+#include "volev/number.h"
 #include "volev/scenario.h"
+#include "volev/text.h"
 #include "volev/units.h"
 
 enum { COL_AGE = VL_TRACK_AGE, COL_LUM = VL_TRACK_LUM, COL_TEFF = VL_TRACK_TEFF,
@@ -53,7 +55,7 @@ typedef struct reader {
 } reader;
 
 /* The reader's settings for track files: plain fields, its own words in messages. */
-static const vl_csv_options track_csv = {0, 0, 0, 0, "star track", "a track CSV"};
+static const vl_csv_options track_csv = {0, VL_TRACK_SIZE_MAX, 0, 0, "star track", "a track CSV"};
 
 /* Index of the column called name, or -1. */
 static int column_index(const char *name)
@@ -68,6 +70,7 @@ static int column_index(const char *name)
 static int read_header(reader *r, const vl_csv_record *rec, vl_status *st)
 {
     int have[NCOL] = {0};
+    char shown[VL_EXCERPT_SIZE];
     track *t = r->t;
     for (size_t k = 0; k < rec->n; k++) {
         const char *name = rec->field[k];
@@ -75,7 +78,7 @@ static int read_header(reader *r, const vl_csv_record *rec, vl_status *st)
         if (c < 0)
             return vl_fail(st, VL_ERR_INPUT, r->path, r->line,
                            "unknown column '%s' (columns: age_yr, luminosity_lsun, optional "
-                           "teff_k, xuv_lsun)", name);
+                           "teff_k, xuv_lsun)", vl_text_excerpt_str(name, shown, sizeof shown));
         if (have[c])
             return vl_fail(st, VL_ERR_INPUT, r->path, r->line, "column '%s' appears twice",
                            name);
@@ -109,14 +112,15 @@ static void lum_bounds(double *lo, double *hi)
 /* Convert one field: a finite positive number in the column's file unit, in range. */
 static int read_value(const reader *r, const char *text, int c, double *v, vl_status *st)
 {
-    char *end;
-    *v = strtod(text, &end);
-    if (end == text || *end != '\0')
-        return vl_fail(st, VL_ERR_INPUT, r->path, r->line, "%s: '%s' is not a number",
-                       columns[c].name, text);
+    char shown[VL_EXCERPT_SIZE];
+    int kind = vl_number_parse_str(text, v);
+    vl_text_excerpt_str(text, shown, sizeof shown);
+    if (kind != VL_NUMBER_OK && kind != VL_NUMBER_WORD && kind != VL_NUMBER_OVERFLOW)
+        return vl_fail(st, VL_ERR_INPUT, r->path, r->line, "%s: '%s' %s", columns[c].name,
+                       shown, vl_number_why(kind));
     if (!isfinite(*v) || !isfinite(*v * columns[c].to_si))
         return vl_fail(st, VL_ERR_INPUT, r->path, r->line, "%s: '%s' is not finite (in SI)",
-                       columns[c].name, text);
+                       columns[c].name, shown);
     if (*v <= 0.0)
         return vl_fail(st, VL_ERR_INPUT, r->path, r->line, "%s = %g must be positive",
                        columns[c].name, *v);

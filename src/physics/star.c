@@ -166,6 +166,11 @@ int vl_star_xuv_from_track(const vl_star *s)
     return s->p.luminosity_model == VL_LUM_TABLE && vl_star_track_has(s->tab, VL_TRACK_XUV);
 }
 
+int vl_star_teff_from_track(const vl_star *s)
+{
+    return s->p.luminosity_model == VL_LUM_TABLE && vl_star_track_has(s->tab, VL_TRACK_TEFF);
+}
+
 /* XUV luminosity, W: the track's column when present, else the XUV model.
  * Ratio (Luger & Barnes 2015, Astrobiology 15:119): f_sat L_bol, times (t/t_sat)^-beta
  * after saturation. Solar: Ribas et al. 2005 flux at 1 au times 4 pi au^2. */
@@ -187,9 +192,8 @@ void vl_star_eval(const vl_star *s, double t_s, vl_star_state *out)
 {
     const vl_star_params *p = &s->p;
     out->l_bol_w = star_lbol(s, t_s);
-    int table_teff =
-        p->luminosity_model == VL_LUM_TABLE && vl_star_track_has(s->tab, VL_TRACK_TEFF);
-    out->teff_k = table_teff ? vl_star_track_eval(s->tab, VL_TRACK_TEFF, t_s) : p->teff_k;
+    out->teff_k = vl_star_teff_from_track(s) ? vl_star_track_eval(s->tab, VL_TRACK_TEFF, t_s)
+                                              : p->teff_k;
     out->l_xuv_w = star_lxuv(s, t_s, out->l_bol_w);
     /* Assumption (no published law): the H2O-dissociating photon output scales with the
      * XUV luminosity, normalised so that the present Sun (Ribas et al. 2005 at 4.57 Gyr)
