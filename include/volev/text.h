@@ -5,6 +5,7 @@
 #define VOLEV_TEXT_H
 
 #include <stddef.h>
+#include <sys/types.h>
 
 /* What is wrong with a byte that is not text. */
 enum vl_text_fault {
@@ -32,5 +33,9 @@ size_t vl_text_scan(const char *s, size_t len, int *fault);
 char *vl_text_excerpt(const char *s, size_t len, char *buf, size_t n);
 /* The same for a NUL-terminated string. */
 char *vl_text_excerpt_str(const char *s, char *buf, size_t n);
+
+/* What a file of mode m that is not a regular file is ("a folder", "a character
+ * device", ...), for messages refusing it. */
+const char *vl_text_file_kind(mode_t m);
 
 #endif

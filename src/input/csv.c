@@ -423,22 +423,6 @@ static int read_stream(reader *r, FILE *f, vl_status *st)
     return rc;
 }
 
-/* What a file that is not a regular file is. */
-static const char *file_kind(mode_t m)
-{
-    if (S_ISDIR(m))
-        return "a folder";
-    if (S_ISCHR(m))
-        return "a character device";
-    if (S_ISBLK(m))
-        return "a block device";
-    if (S_ISFIFO(m))
-        return "a FIFO (named pipe)";
-    if (S_ISSOCK(m))
-        return "a socket";
-    return "not a regular file";
-}
-
 /* Opens path for reading if it is a regular file within the size limit; NULL otherwise,
  * st filled. Opened without blocking, so that a FIFO is refused instead of waited on. */
 static FILE *open_regular(const reader *r, const char *path, vl_status *st)
@@ -456,7 +440,7 @@ static FILE *open_regular(const reader *r, const char *path, vl_status *st)
         vl_fail(st, VL_ERR_IO, path, 0, "cannot read %s: %s", r->noun, strerror(errno));
     else if (!S_ISREG(sb.st_mode)) /* the wrong kind of input, not a failed read */
         vl_fail(st, VL_ERR_INPUT, path, 0, "cannot read %s: it is %s, not a regular file",
-                r->noun, file_kind(sb.st_mode));
+                r->noun, vl_text_file_kind(sb.st_mode));
     else if ((uintmax_t)sb.st_size > r->size_max)
         fail_size(r, (uintmax_t)sb.st_size, st);
     else if (!(f = fdopen(fd, "rb")))

@@ -13,6 +13,7 @@
 
 #include "scenario_internal.h"
 #include "volev/process.h"
+#include "volev/text.h"
 
 /* ------------------------------------------------------------------ settings */
 
@@ -154,22 +155,6 @@ int vl_scenario_read_memory(vl_scenario *sc, const char *text, size_t len, const
 
 /* ------------------------------------------------------------------ the file */
 
-/* What a file that is not a regular file is. */
-static const char *file_kind(mode_t m)
-{
-    if (S_ISDIR(m))
-        return "a folder";
-    if (S_ISCHR(m))
-        return "a character device";
-    if (S_ISBLK(m))
-        return "a block device";
-    if (S_ISFIFO(m))
-        return "a FIFO (named pipe)";
-    if (S_ISSOCK(m))
-        return "a socket";
-    return "not a regular file";
-}
-
 static int too_large(const char *path, vl_status *st)
 {
     return vl_fail(st, VL_ERR_INPUT, path, 0,
@@ -193,7 +178,7 @@ static int open_regular(const char *path, vl_status *st)
         vl_fail(st, VL_ERR_IO, path, 0, "cannot read the scenario: %s", strerror(errno));
     else if (!S_ISREG(sb.st_mode))
         vl_fail(st, VL_ERR_INPUT, path, 0, "cannot read the scenario: it is %s, not a regular file",
-                file_kind(sb.st_mode));
+                vl_text_file_kind(sb.st_mode));
     else if ((uintmax_t)sb.st_size > VL_SCENARIO_SIZE_MAX)
         too_large(path, st);
     else

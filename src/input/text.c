@@ -4,6 +4,7 @@
 
 #include <stdio.h>
 #include <string.h>
+#include <sys/stat.h>
 
 /* Length of the well-formed UTF-8 sequence at s (n >= 1 bytes left), 0 if there is none
  * (Unicode 15, table 3-7: overlong forms, surrogates and code points above U+10FFFF are
@@ -114,4 +115,20 @@ char *vl_text_excerpt(const char *s, size_t len, char *buf, size_t n)
 char *vl_text_excerpt_str(const char *s, char *buf, size_t n)
 {
     return vl_text_excerpt(s, strlen(s), buf, n);
+}
+
+/* What a file that is not a regular file is. */
+const char *vl_text_file_kind(mode_t m)
+{
+    if (S_ISDIR(m))
+        return "a folder";
+    if (S_ISCHR(m))
+        return "a character device";
+    if (S_ISBLK(m))
+        return "a block device";
+    if (S_ISFIFO(m))
+        return "a FIFO (named pipe)";
+    if (S_ISSOCK(m))
+        return "a socket";
+    return "not a regular file";
 }
