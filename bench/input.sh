@@ -1,7 +1,9 @@
 #!/bin/sh
 # bench/input.sh BIN [OLD_BIN] [N] -- the cost of reading large and hostile scenarios.
 # Each case is a generated file read by `volev validate FILE` (no run): unknown keys in
-# one group and spread over groups, a file at the 1 MiB limit, larger files, devices.
+# one group and spread over groups, full groups up to the 1 MiB limit, a valid file
+# at the limit, 16 MiB and 200 MiB files,
+# devices.
 # Reported per case: the file size, the exit status, the median wall time of N runs
 # (default 3) and the peak memory (GNU time's maximum resident set, "-" without it), for
 # BIN and, given, OLD_BIN (a build from before the input limits, to compare). A case that
@@ -44,10 +46,26 @@ spread() {
         print "};"
     }'
 }
-# a valid scenario padded with comment lines to BYTES bytes
+# the costliest text for libconfig within the limits: groups of 256 settings (the limit)
+# with short names, 200 such groups in each of three outer groups, about 1 MiB; the first
+# setting is an unknown key, so the walk stops at once and the time is libconfig's parse
+full_groups() {
+    awk -v v="$valid" 'BEGIN {
+        print v
+        for (g = 0; g < 520; g++) {
+            if (g % 200 == 0) printf "%so%d = {\n", g ? "};\n" : "", g / 200
+            printf "g%d = {\n", g
+            for (i = 0; i < 256; i++) printf "k%d=1;\n", i
+            print "};"
+        }
+        print "};"
+    }'
+}
+# a valid scenario padded with comment lines to BYTES bytes, the last byte a newline
 padded() {
     { echo "$valid"; yes '# a comment line of padding, 64 bytes long, for the size cases.' ; } |
-        head -c "$1"
+        head -c "$(($1 - 1))"
+    echo
 }
 
 one_group 5000 > "$dir/keys5k.cfg"
@@ -56,8 +74,10 @@ one_group 20000 > "$dir/keys20k.cfg"
 spread 5000 > "$dir/spread5k.cfg"
 spread 10000 > "$dir/spread10k.cfg"
 spread 20000 > "$dir/spread20k.cfg"
-padded 1048575 > "$dir/pad1m.cfg"; echo >> "$dir/pad1m.cfg"   # 1 MiB exactly
+full_groups > "$dir/groups1m.cfg"
+padded 1048576 > "$dir/pad1m.cfg"     # 1 MiB: the limit
 padded 16777216 > "$dir/pad16m.cfg"
+padded 209715200 > "$dir/pad200m.cfg" # the 200 MB scenario of issue 18
 printf 'star = { luminosity_model = "table"; track_file = "/dev/zero"; };\n%s\n' "$valid" \
     > "$dir/track-zero.cfg"
 
@@ -86,7 +106,8 @@ measure() {
 }
 
 printf '%-12s %10s   %-24s %s\n' case bytes "new: s KB exit" "old: s KB exit"
-for c in keys5k keys10k keys20k spread5k spread10k spread20k pad1m pad16m dev-zero track-zero; do
+for c in keys5k keys10k keys20k spread5k spread10k spread20k groups1m pad1m pad16m pad200m dev-zero \
+    track-zero; do
     limit=120
     case "$c" in
         dev-zero) f=/dev/zero; bytes=-; limit=10 ;;

@@ -192,6 +192,10 @@ START_TEST(test_messages_bounded)
     ck_assert_ptr_nonnull(strstr(st.msg, "(102 bytes)' is not a number"));
     vl_scenario_free(sc);
     free(text);
+    /* names the sweep group quotes later (axis keys, outcomes) are printable ASCII */
+    refused(VALID "sweep = { design = \"grid\";\n axes = ( { key = \"planet.orbit\xFF" "au\"; "
+            "spacing = \"linear\"; from = 1.0; to = 1.1; points = 2; } ); };\n", 3,
+            "sweep.axes.key: \"planet.orbit\\xFFau\" is not a scenario key");
 }
 END_TEST
 
@@ -443,6 +447,27 @@ START_TEST(test_track_size)
 }
 END_TEST
 
+/* The command line: `volev run /dev/zero` and a track file /dev/zero end at once with
+ * status 3 (bad input) and one message line, leaving no output folder. The test's own
+ * timeout bounds "at once": reading /dev/zero never ends. */
+START_TEST(test_cli_devices)
+{
+    char dir[256];
+    vl_test_tmp_make(dir, sizeof dir, "volev-limits");
+    ck_assert_int_eq(vl_test_sh(dir, "'%s' run /dev/zero -o out", vl_test_bin()), 3);
+    vl_test_file_contains(dir, "err.txt", "volev: /dev/zero: cannot read the scenario: it is a "
+                                          "character device, not a regular file");
+    ck_assert(!vl_test_exists(dir, "out"));
+    vl_test_write(dir, "t.cfg", VALID "star = { luminosity_model = \"table\"; track_file = "
+                                "\"/dev/zero\"; };\nrun = { start_yr = 1e7; end_yr = 1e9; };\n");
+    ck_assert_int_eq(vl_test_sh(dir, "'%s' run t.cfg -o out", vl_test_bin()), 3);
+    vl_test_file_contains(dir, "err.txt", "/dev/zero: cannot read star track: it is a character "
+                                          "device, not a regular file");
+    ck_assert(!vl_test_exists(dir, "out"));
+    vl_test_tmp_remove(dir);
+}
+END_TEST
+
 /* ---------------------------------------------------------------- cross-checks */
 
 /* Mean density rho = 3 M / (4 pi R^3) with Earth's 5.513 g/cm^3 (IAU 2015 nominal mass
@@ -481,6 +506,7 @@ Suite *vl_suite_input_limits(void)
     tcase_add_test(tc, test_scenario_size);
     tcase_add_test(tc, test_not_regular);
     tcase_add_test(tc, test_track_size);
+    tcase_add_test(tc, test_cli_devices);
     tcase_add_test(tc, test_density);
     suite_add_tcase(s, tc);
     return s;

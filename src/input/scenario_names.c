@@ -116,6 +116,9 @@ int vl_names_setting(vl_names *n, const char *name, size_t len, int line)
     if (rc)
         return rc;
     vl_name_seen *e = slot_of(n->seen, n->cap, sc->id, name, len);
+    if (e->name && e->line == line)
+        return vl_fail(n->st, VL_ERR_INPUT, n->path, line, "'%s' is given twice on this line: "
+                       "keep one", n->setting);
     if (e->name)
         return vl_fail(n->st, VL_ERR_INPUT, n->path, line,
                        "'%s' is given twice, on lines %d and %d: keep one", n->setting, e->line,

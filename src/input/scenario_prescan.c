@@ -36,7 +36,7 @@ int vl_scenario_check_bytes(const char *text, size_t len, const char *path, vl_s
 typedef struct scanner {
     const char *text, *s;      /* the text (NUL-terminated) and the next character */
     int line;
-    char prev;                 /* last token: punctuation, '"' string, 'w' word or number */
+    char prev;                 /* last token: punctuation, '"' string, 'w' word, 'n' number */
     const char *word;          /* the last word and its length and line: a setting's name */
     size_t word_len;           /*   when '=' or ':' follows it */
     size_t tokens;             /* tokens seen: none means an empty scenario */
@@ -234,21 +234,21 @@ static int check_number(scanner *z, const char *key)
 {
     char shown[VL_EXCERPT_SIZE];
     const char *t = z->s;
-    int hex, real;
+    int hex, real, kind = VL_NUMBER_OK;
     const char *c = number_end(t, &hex, &real);
-    z->s = c;
-    vl_text_excerpt(t, (size_t)(c - t), shown, sizeof shown);
-    if (hex)
-        return vl_fail(z->st, VL_ERR_INPUT, z->path, z->line,
-                       "%s%s%s %s", key ? key : "", key ? " = " : "", shown,
-                       vl_number_why(VL_NUMBER_HEX));
-    if (!real)
-        return check_integer(z, t, c, key);
     double v;
-    if (vl_number_parse(t, (size_t)(c - t), &v) == VL_NUMBER_UNDERFLOW)
-        return vl_fail(z->st, VL_ERR_INPUT, z->path, z->line, "%s%s%s %s", key ? key : "",
-                       key ? " = " : "", shown, vl_number_why(VL_NUMBER_UNDERFLOW));
-    return VL_OK;
+    z->s = c;
+    if (hex)
+        kind = VL_NUMBER_HEX;
+    else if (!real)
+        return check_integer(z, t, c, key);
+    else if (vl_number_parse(t, (size_t)(c - t), &v) == VL_NUMBER_UNDERFLOW)
+        kind = VL_NUMBER_UNDERFLOW;
+    if (kind == VL_NUMBER_OK)
+        return VL_OK;
+    return vl_fail(z->st, VL_ERR_INPUT, z->path, z->line, "%s%s%s %s", key ? key : "",
+                   key ? " = " : "", vl_text_excerpt(t, (size_t)(c - t), shown, sizeof shown),
+                   vl_number_why(kind));
 }
 
 /* ------------------------------------------------------------------ tokens */
@@ -328,7 +328,7 @@ static int scan_token(scanner *z)
     }
     if (starts_number(z->s)) {
         const char *key = z->prev == '=' || z->prev == ':' ? z->names.setting : NULL;
-        z->prev = 'w';
+        z->prev = 'n'; /* a number names no setting */
         return check_number(z, key);
     }
     return scan_punct(z);

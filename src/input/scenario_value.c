@@ -214,6 +214,12 @@ int vl_scenario_read_text(const config_setting_t *s, const char *key, const char
     if (len >= n)
         return vl_scenario_fail_at(st, w, "%s: \"%s\" is longer than %zu bytes", key,
                                    vl_text_excerpt(text, len, shown, sizeof shown), n - 1);
+    for (size_t i = 0; i < len; i++) /* names are printable ASCII: messages quote them */
+        if (text[i] <= ' ' || text[i] > '~')
+            return vl_scenario_fail_at(st, w, "%s: \"%s\" is not %s (a space, control "
+                                       "character or non-ASCII byte at byte %zu)", key,
+                                       vl_text_excerpt(text, len, shown, sizeof shown), what,
+                                       i + 1);
     memcpy(buf, text, len + 1);
     return VL_OK;
 }
