@@ -87,7 +87,8 @@ static int extend_key(const vl_names *n, const char *sep, const char *name, size
         return 0;
     memcpy(out, n->key, base);
     memcpy(out + base, sep, strlen(sep));
-    memcpy(out + base + strlen(sep), name, len);
+    if (len > 0) /* an unnamed scope passes no name (NULL, 0): memcpy may not see NULL */
+        memcpy(out + base + strlen(sep), name, len);
     out[need] = '\0';
     return 1;
 }
