@@ -184,7 +184,9 @@ int vl_cli_sweep(int argc, char **argv)
     if (vl_cli_sweep_share_state(&c, &rc, already)) { /* another rank, told to stop */
         release(&c, done, sw);
         vl_cli_sweep_mpi_end();
-        return rc;
+        /* rank 0 reports and carries the status: a non-zero exit here would let mpirun
+         * abort rank 0 before its message is written */
+        return VL_OK;
     }
     if (rc == VL_OK && !already)
         rc = vl_cli_sweep_share_done(&c, &done, &st);
