@@ -25,14 +25,19 @@ double vl_flux_ramp(int r, double m_kg) { return vl_flux_ramp_for(r, m_kg, 0.0);
 /* Deuterium carried by hydrogen leaving reservoir `from` at rate kg/s (of `from`'s
  * species): the same share of its deuterium companion, times the fractionation factor
  * f_d (D/H of the flux over D/H of the source). 0 for a reservoir without deuterium or
- * with no mass. */
+ * with no mass. A companion the integrator has carried below zero (its step overshot a
+ * draining reservoir by up to its local error, rel_tol of the mass at the step's start)
+ * gives a negative share: the deuterium flows back from where the hydrogen goes, so the
+ * dip relaxes to zero at the hydrogen's own rate, as vl_flux_ramp_for does for masses,
+ * instead of staying frozen and showing in the written residual (docs/hardening.md,
+ * "Physical invariants"). Conservative either way: the destination gets exactly what
+ * leaves. */
 static double deuterium_out(const vl_flux *fx, int from, double rate, double f_d)
 {
     int d = vl_reservoir_deuterium(from);
     if (d < 0 || !(fx->y[from] > 0.0))
         return 0.0;
-    double yd = fx->y[d] > 0.0 ? fx->y[d] : 0.0;
-    return f_d * rate / fx->y[from] * yd;
+    return f_d * rate / fx->y[from] * fx->y[d];
 }
 
 /* A declaration index outside the process's tables is a programming error that the
