@@ -22,6 +22,8 @@ int vl_scenario_assign_real(const vl_slot *t, double v, const vl_where *w, vl_st
         return vl_scenario_fail_at(st, w, "%s = %.10g is out of bounds [%g, %g]%s%s", t->key,
                                    v, p->lo, p->hi, vl_scenario_unit_sep(p),
                                    vl_scenario_unit(p));
+    if (v == 0.0)
+        v = 0.0; /* "-0" is zero: no negative zero reaches the model or scenario.resolved.cfg */
     *(double *)t->at = v * p->to_si;
     if (t->file_value)
         *t->file_value = v;

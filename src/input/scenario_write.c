@@ -43,7 +43,7 @@ static double file_real(const vl_scenario *sc, size_t i)
 
 /* Row i's real in file units, as text that reads back to the same double (the shortest
  * of %.15g, %.16g, %.17g that does; %.17g always does) and that the file format reads as
- * a real (so "-0" keeps its sign). */
+ * a real (a ".0" added to an integer-looking text; a "-0" read is stored as 0). */
 static void real_text(const vl_scenario *sc, size_t i, char *buf, size_t n)
 {
     double x = file_real(sc, i);
