@@ -4,7 +4,6 @@
  * files are listed in sweep_internal.h. */
 #include "volev/sweep.h"
 
-#include <errno.h>
 #include <math.h>
 #include <stdint.h>
 #include <stdio.h>
@@ -38,19 +37,26 @@ static int spec_text(const vl_sweep *sw, char *buf, size_t n)
     return len > 0 && (size_t)len < n ? len : -1;
 }
 
-/* The whole catalogue file's bytes into the hash. */
-static int hash_file(const char *path, uint64_t *h, vl_status *st)
+/* Text t and its terminating NUL into the hash (so "ab","c" and "a","bc" differ); an
+ * empty cell (NULL) as a lone 0x01, which no cell text holds. */
+static uint64_t hash_text(const char *t, uint64_t h)
 {
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot read: %s", strerror(errno));
-    char buf[8192];
-    size_t got;
-    while ((got = fread(buf, 1, sizeof buf, f)) > 0)
-        *h = vl_output_fnv1a(buf, got, *h);
-    int bad = ferror(f);
-    fclose(f);
-    return bad ? vl_fail(st, VL_ERR_IO, path, 0, "read error") : VL_OK;
+    return t ? vl_output_fnv1a(t, strlen(t) + 1, h) : vl_output_fnv1a("\1", 1, h);
+}
+
+/* The catalogue as read (vl_catalogue_read bounded the file): its keys, then every
+ * candidate's name and cells. The parsed content, not a second read of the file, so the
+ * hash describes exactly the members this sweep runs. */
+static uint64_t hash_catalogue(const vl_catalogue *c, uint64_t h)
+{
+    for (size_t k = 0; k < c->ncols; k++)
+        h = hash_text(c->keys[k], h);
+    for (size_t r = 0; r < c->nrows; r++) {
+        h = hash_text(c->names[r], h);
+        for (size_t k = 0; k < c->ncols; k++)
+            h = hash_text(c->cells[r][k], h);
+    }
+    return h;
 }
 
 /* Catalogue mode: the candidates (each must load onto the base scenario), times the
@@ -89,7 +95,7 @@ static int design_members(vl_sweep *sw, vl_status *st)
 }
 
 /* The sweep hash: FNV-1a of the version, the resolved base scenario, the settings and
- * the catalogue's bytes. */
+ * the catalogue's content. */
 static int sweep_hash(vl_sweep *sw, const vl_scenario *base, vl_status *st)
 {
     char base_hash[17], spec[1 << 14];
@@ -101,8 +107,8 @@ static int sweep_hash(vl_sweep *sw, const vl_scenario *base, vl_status *st)
     uint64_t h = vl_output_fnv1a(vl_version(), strlen(vl_version()), VL_FNV_OFFSET);
     h = vl_output_fnv1a(base_hash, 16, h);
     h = vl_output_fnv1a(spec, strlen(spec), h);
-    if (sw->catalogue_mode && (rc = hash_file(sw->cat_path, &h, st)))
-        return rc;
+    if (sw->catalogue_mode)
+        h = hash_catalogue(sw->cat, h);
     snprintf(sw->hash, sizeof sw->hash, "%016llx", (unsigned long long)h);
     return VL_OK;
 }
