@@ -13,31 +13,55 @@
  * demand of 1e5 kg/s on a 1e3 kg floor band leaves a millisecond time scale that a
  * float clock at 1e14-1e17 s (resolution 0.02-64 s) cannot step through, and the stiff
  * stepper fails (seen with O2 pickup on dry planets). */
+/* The depletion band of reservoir r under demand kg/s (vl_flux_ramp_for). */
+static double ramp_band(int r, double demand_kg_s)
+{
+    return fmax(vl_reservoir_floor(r), fabs(demand_kg_s) * VL_DRAIN_TIME_S);
+}
+
 double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s)
 {
-    double band = fmax(vl_reservoir_floor(r), fabs(demand_kg_s) * VL_DRAIN_TIME_S);
-    double x = m_kg / band;
+    double x = m_kg / ramp_band(r, demand_kg_s);
     return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 2.0 * x;
 }
 
 double vl_flux_ramp(int r, double m_kg) { return vl_flux_ramp_for(r, m_kg, 0.0); }
 
 /* Deuterium carried by hydrogen leaving reservoir `from` at rate kg/s (of `from`'s
- * species): the same share of its deuterium companion, times the fractionation factor
- * f_d (D/H of the flux over D/H of the source). 0 for a reservoir without deuterium or
- * with no mass. A companion the integrator has carried below zero (its step overshot a
- * draining reservoir by up to its local error, rel_tol of the mass at the step's start)
- * gives a negative share: the deuterium flows back from where the hydrogen goes, so the
- * dip relaxes to zero at the hydrogen's own rate, as vl_flux_ramp_for does for masses,
- * instead of staying frozen and showing in the written residual (docs/hardening.md,
- * "Physical invariants"). Conservative either way: the destination gets exactly what
- * leaves. */
-static double deuterium_out(const vl_flux *fx, int from, double rate, double f_d)
+ * species; demand kg/s before the depletion ramp): the same share of its deuterium
+ * companion, times the fractionation factor f_d (D/H of the flux over D/H of the
+ * source). 0 for a reservoir without deuterium. The share rate / m tends to
+ * 2 demand / band as the carrier's mass m empties (vl_flux_ramp_for), and keeps that
+ * value at and below zero: the companion follows its carrier out even once the carrier
+ * itself has overshot, and the share is continuous in m. A companion the integrator has
+ * carried below zero (a step that overshot a draining reservoir) gives a negative
+ * share: the deuterium flows back from where the hydrogen goes (restore_share), so the
+ * dip relaxes to zero at the hydrogen's own rate, as the ramp does for masses, instead
+ * of staying frozen and showing in the written residual (docs/hardening.md, "Physical
+ * invariants"). */
+static double deuterium_out(const vl_flux *fx, int from, double rate, double demand,
+                            double f_d)
 {
     int d = vl_reservoir_deuterium(from);
-    if (d < 0 || !(fx->y[from] > 0.0))
+    if (d < 0)
         return 0.0;
-    return f_d * rate / fx->y[from] * fx->y[d];
+    double m = fx->y[from];
+    double share = m > 0.0 ? rate / m : 2.0 * fabs(demand) / ramp_band(from, demand);
+    return f_d * share * fx->y[d];
+}
+
+/* The share of a flow-back (a negative deuterium_out of `from`) that deuterium
+ * companion `dto` can give: 1 while it holds at least the deficit, x (2 - x) with
+ * x = held / deficit below that, 0 once it is empty. So a flow-back never drives a
+ * small companion (the D of a trace H2) below zero in turn; the dip then waits for the
+ * companion to refill. 1 when `from` is not in deficit. */
+static double restore_share(const vl_flux *fx, int from, int dto)
+{
+    int d = vl_reservoir_deuterium(from);
+    if (d < 0 || dto < 0 || !(fx->y[d] < 0.0))
+        return 1.0;
+    double x = fx->y[dto] / -fx->y[d];
+    return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 0.0;
 }
 
 /* A declaration index outside the process's tables is a programming error that the
@@ -63,7 +87,7 @@ double vl_flux_transfer_f(vl_flux *fx, int k, double kg_s, int col, double f_d)
     fx->dydt[to] += rate;
     int dto = vl_reservoir_deuterium(to), dfrom = vl_reservoir_deuterium(from);
     if (dfrom >= 0 && dto >= 0) {
-        double d = deuterium_out(fx, from, rate, f_d);
+        double d = deuterium_out(fx, from, rate, kg_s, f_d) * restore_share(fx, from, dto);
         fx->dydt[dfrom] -= d;
         fx->dydt[dto] += d;
     }
@@ -81,6 +105,16 @@ void vl_flux_add_column(vl_flux *fx, int col, double kg_s)
 {
     if (fx->columns && col >= 0)
         fx->columns[fx->col_base + (size_t)col] += kg_s;
+}
+
+/* restore_share over the H-bearing products of r: the smallest. */
+static double product_share(const vl_flux *fx, const vl_reaction *r, int from)
+{
+    double share = 1.0;
+    for (int i = 0; i < r->n; i++)
+        if (r->nu[i] > 0.0 && vl_species_atoms(vl_reservoir_species(r->res[i]), VL_EL_H) > 0)
+            share = fmin(share, restore_share(fx, from, vl_reservoir_deuterium(r->res[i])));
+    return share;
 }
 
 double vl_flux_react_f(vl_flux *fx, int k, double mol_s, int col, double f_d)
@@ -107,7 +141,8 @@ double vl_flux_react_f(vl_flux *fx, int k, double mol_s, int col, double f_d)
         if (d < 0)
             continue;
         if (r->nu[i] < 0.0) { /* deuterium leaves with the hydrogen of a reactant */
-            double out = deuterium_out(fx, res, -kg, f_d);
+            double demand = -r->nu[i] * vl_species_molar_mass(vl_reservoir_species(res)) * mol_s;
+            double out = deuterium_out(fx, res, -kg, demand, f_d) * product_share(fx, r, res);
             fx->dydt[d] -= out;
             d_total += out;
         } else {
