@@ -10,6 +10,7 @@
 #include <unistd.h>
 
 #include "suites.h"
+#include "volev/star_mass.h"
 #include "volev/catalogue.h"
 #include "volev/params.h"
 #include "volev/scenario.h"
@@ -244,6 +245,21 @@ END_TEST
 
 /* Every candidate of candidates.csv loads onto earth.cfg; set cells take the file's
  * values, empty cells keep earth.cfg's. */
+/* The global index of a core parameter. */
+static size_t core_index(const char *key)
+{
+    for (size_t i = 0; i < vl_param_count(); i++) {
+        const vl_param *p;
+        void *base;
+        const char *prefix;
+        vl_param_at(NULL, i, &p, &base, &prefix);
+        if (!prefix[0] && strcmp(p->key, key) == 0)
+            return i;
+    }
+    ck_abort_msg("no parameter %s", key);
+    return 0;
+}
+
 START_TEST(test_load_candidates)
 {
     vl_status st;
@@ -289,7 +305,11 @@ START_TEST(test_load_candidates)
     ck_assert(sc[1]->planet.dipole_am2 == 0.0);
     ck_assert(sc[1]->planet.eccentricity == base->planet.eccentricity);
     ck_assert(sc[1]->inventory.co2_pa == base->inventory.co2_pa);
-    ck_assert(sc[1]->star.luminosity_w == base->star.luminosity_w);
+    /* a row that gives a star's mass but no luminosity gets its star's own, as --set does
+     * (issue 19: not the base scenario's Sun): the main-sequence value for 1.1 M_sun */
+    ck_assert_rel(sc[1]->star.luminosity_w, vl_star_ms_luminosity_lsun(1.1) * VL_L_SUN, 1e-15);
+    ck_assert_int_eq(sc[1]->origin[core_index("star.luminosity_lsun")], VL_FROM_MASS);
+    ck_assert_rel(sc[1]->star.teff_k, 6000.0, 1e-15); /* given in the row: kept */
     ck_assert_int_eq(sc[1]->interior.tectonics, VL_TECTONICS_MOBILE);
     /* Invented-3: no cell set, earth.cfg unchanged. */
     ck_assert(sc[2]->planet.orbit_m == base->planet.orbit_m);

@@ -36,7 +36,9 @@ typedef struct vl_param {
     {key, ptype, unit, to_si, def, lo, hi, NULL, NULL, offsetof(block, field), doc, ref, needs, 0}
 
 /* Where a resolved value came from. */
-enum vl_origin { VL_FROM_DEFAULT = 0, VL_FROM_FILE = 1, VL_FROM_OVERRIDE = 2 };
+/* VL_FROM_MASS: a star's luminosity or effective temperature derived from its mass
+ * (src/input/scenario_star.c); not given, so never "unused". */
+enum vl_origin { VL_FROM_DEFAULT = 0, VL_FROM_FILE = 1, VL_FROM_OVERRIDE = 2, VL_FROM_MASS = 3 };
 
 /* Choice helpers: index of name in a '|' list or -1; name of index i (static buffer-free). */
 int vl_choice_index(const char *choices, const char *name);

@@ -158,6 +158,8 @@ typedef struct vl_process_cfg {
 
 struct vl_sweep_spec;
 
+#define VL_SCENARIO_WARNINGS 4
+
 typedef struct vl_scenario {
     char path[1024];           /* scenario file as given */
     char name[256];            /* file name without folder and extension */
@@ -176,6 +178,8 @@ typedef struct vl_scenario {
     double *file_value;        /* owned; REAL parameters: the value in file units as read
                                   (stored SI = file_value * to_si), so the resolved file
                                   shows it as written; global index order */
+    int nwarnings;             /* notes on values that load but look wrong (the CLI */
+    char warnings[VL_SCENARIO_WARNINGS][320]; /* prints them), e.g. a star off the main sequence */
 } vl_scenario;
 
 /* The core parameter table (star, planet, inventory, climate, run); offsets into vl_scenario. */

@@ -22,7 +22,7 @@ static int check_track_keys(const vl_scenario *sc, const vl_star *star, vl_statu
         void *base;
         const char *prefix;
         vl_param_at(sc, i, &p, &base, &prefix);
-        if (prefix[0] != '\0' || sc->origin[i] == VL_FROM_DEFAULT)
+        if (prefix[0] != '\0' || sc->origin[i] == VL_FROM_DEFAULT || sc->origin[i] == VL_FROM_MASS)
             continue;
         const char *where = sc->origin[i] == VL_FROM_FILE ? sc->path : NULL;
         if (xuv && strncmp(p->key, "star.xuv.", 9) == 0)

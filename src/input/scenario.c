@@ -107,13 +107,15 @@ static vl_scenario *begin(const char *label, vl_status *st)
     return sc;
 }
 
-/* After the text was read with result rc: the overrides in order, then the
- * cross-checks; frees sc and returns NULL on any error. */
+/* After the text was read with result rc: the overrides in order, the star's values
+ * from its mass (scenario_star.c), then the cross-checks; frees sc and returns NULL on any error. */
 static vl_scenario *finish(vl_scenario *sc, int rc, const char *const *overrides,
                            size_t n_overrides, vl_status *st)
 {
     for (size_t k = 0; !rc && k < n_overrides; k++)
         rc = vl_scenario_override(sc, overrides[k], st);
+    if (!rc)
+        rc = vl_scenario_derive_star(sc, st);
     if (!rc)
         rc = vl_scenario_cross_check(sc, st);
     if (rc) {

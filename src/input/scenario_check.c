@@ -131,7 +131,7 @@ int vl_scenario_check_tables(vl_status *st)
 
 /* Fails with a message located where row i's value came from. */
 __attribute__((format(printf, 4, 5)))
-static int fail_param(const vl_scenario *sc, size_t i, vl_status *st, const char *fmt, ...)
+int vl_scenario_fail_param(const vl_scenario *sc, size_t i, vl_status *st, const char *fmt, ...)
 {
     char key[VL_SCENARIO_KEY_MAX], msg[VL_MSG_MAX];
     vl_scenario_param_key(i, key, sizeof key);
@@ -179,7 +179,7 @@ static int check_needs(const vl_scenario *sc, vl_status *st)
             continue;
         vl_scenario_param_key(i, key, sizeof key);
         vl_scenario_list_text(values, "or", list, sizeof list);
-        return fail_param(sc, i, st, "%s is only used when %s is %s (it is %s)", key, other,
+        return vl_scenario_fail_param(sc, i, st, "%s is only used when %s is %s (it is %s)", key, other,
                           list, state);
     }
     return VL_OK;
@@ -214,7 +214,7 @@ static int check_density(const vl_scenario *sc, vl_status *st)
     size_t mass = (size_t)vl_scenario_find_key("planet.mass_mearth");
     size_t radius = (size_t)vl_scenario_find_key("planet.radius_rearth");
     size_t at = sc->origin[radius] != VL_FROM_DEFAULT ? radius : mass;
-    return fail_param(sc, at, st,
+    return vl_scenario_fail_param(sc, at, st,
                       "planet.mass_mearth = %.6g and planet.radius_rearth = %.6g give a mean "
                       "density of %.3g g/cm^3, above %g g/cm^3: denser than a planet of pure "
                       "iron can be",
@@ -230,14 +230,14 @@ static int check_consistency(const vl_scenario *sc, vl_status *st)
     size_t lum = (size_t)vl_scenario_find_key("star.luminosity_model");
     if (!(sc->run.end_s > sc->run.start_s)) {
         size_t at = sc->origin[end] != VL_FROM_DEFAULT ? end : start;
-        return fail_param(sc, at, st, "run.end_yr = %.10g must be later than run.start_yr = %.10g",
+        return vl_scenario_fail_param(sc, at, st, "run.end_yr = %.10g must be later than run.start_yr = %.10g",
                           sc->file_value[end], sc->file_value[start]);
     }
     if (sc->star.luminosity_model == VL_LUM_TABLE && !sc->star.track_file[0])
-        return fail_param(sc, lum, st,
+        return vl_scenario_fail_param(sc, lum, st,
                           "star.luminosity_model is table but star.track_file is not set");
     if (sc->interior.magma.molten_start && sc->climate.model != VL_CLIMATE_COLUMN)
-        return fail_param(sc, (size_t)vl_scenario_find_key("planet.interior.magma_ocean.molten_start"),
+        return vl_scenario_fail_param(sc, (size_t)vl_scenario_find_key("planet.interior.magma_ocean.molten_start"),
                           st, "a molten start needs climate.model = column (the hot surface's "
                               "outgoing radiation comes from the column)");
     return check_density(sc, st);

@@ -10,6 +10,7 @@
  *   scenario_read.c      the file walk: text -> libconfig -> settings -> rows
  *   sweep_spec.c         the top-level `sweep` group -> vl_sweep_spec
  *   scenario_override.c  --set KEY=VALUE
+ *   scenario_star.c      a star's luminosity and Teff from its mass where not given
  *   scenario_check.c     table sanity and the cross-checks (required, needs, consistency)
  *   scenario_write.c     the resolved-scenario writer and the `validate` listing */
 #ifndef VOLEV_SCENARIO_INTERNAL_H
@@ -201,11 +202,24 @@ int vl_scenario_check_tables(vl_status *st);
 /* Every check that needs the complete scenario: required keys, needs clauses,
  * consistency, the process hooks. */
 int vl_scenario_cross_check(const vl_scenario *sc, vl_status *st);
+/* Fills st with an input error about row i, located where its value came from (file
+ * line or --set); returns VL_ERR_INPUT. */
+int vl_scenario_fail_param(const vl_scenario *sc, size_t i, vl_status *st, const char *fmt, ...)
+    __attribute__((format(printf, 4, 5)));
 /* The state of a CHOICE or BOOL row as written in a file. */
 void vl_scenario_state_text(const vl_scenario *sc, size_t i, char *buf, size_t n);
 /* 1 if row i has no needs clause or its condition holds in sc; fills the text of the
  * controlling key, its state and the needed values for messages. */
 int vl_scenario_needs_hold(const vl_scenario *sc, size_t i, char *other, size_t on,
                            char *state, size_t sn, const char **values);
+
+/* ---- scenario_star.c */
+
+/* The star's luminosity and effective temperature from its mass where the scenario does
+ * not give them at the mass's level or later (file over default, --set or catalogue
+ * row over file), marked VL_FROM_MASS; warnings into sc->warnings where given values
+ * disagree with the main sequence. An input error when a needed value cannot be
+ * derived. */
+int vl_scenario_derive_star(vl_scenario *sc, vl_status *st);
 
 #endif

@@ -191,6 +191,8 @@ static void origin_text(const vl_scenario *sc, size_t i, char *buf, size_t n)
         snprintf(buf, n, "%s:%d", sc->path, sc->line[i]);
     else if (sc->origin[i] == VL_FROM_OVERRIDE)
         snprintf(buf, n, "--set");
+    else if (sc->origin[i] == VL_FROM_MASS)
+        snprintf(buf, n, "from star.mass_msun (main sequence, Eker et al. 2018)");
     else if (!vl_scenario_needs_hold(sc, i, other, sizeof other, state, sizeof state, &values))
         snprintf(buf, n, "default, unused");
     else
