@@ -380,7 +380,9 @@ static int check_stderr(const bad_case *c, const char *how, int rc, const char *
     const char *eol = strchr(err, '\n');
     if (!eol)
         return record(c, how, "stderr lacks a final newline:\n%s", err);
-    if (eol[1] && !(c->exit_code == 2 && strcmp(eol + 1, "Try 'volev --help'.\n") == 0))
+    char hint[64];
+    snprintf(hint, sizeof hint, "Try 'volev %s --help'.\n", c->cmd);
+    if (eol[1] && !(c->exit_code == 2 && strcmp(eol + 1, hint) == 0))
         return record(c, how, "stderr is more than one line:\n%s", err);
     if (!strstr(err, c->message))
         return record(c, how, "stderr lacks '%s':\n%s", c->message, err);

@@ -13,6 +13,7 @@ int vl_cli_plot(int argc, char **argv);
 int vl_cli_balance(int argc, char **argv);
 int vl_cli_sweep(int argc, char **argv);
 int vl_cli_compare(int argc, char **argv);
+int vl_cli_help(int argc, char **argv);
 
 /* SIGINT and SIGTERM ask running integrations to stop (vl_integrate_request_stop);
  * vl_cli_report then returns 128 + signal. */

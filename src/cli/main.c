@@ -1,44 +1,14 @@
-/* main.c: the volev command line: subcommand dispatch, --help, --version. */
+/* main.c: the volev command line: subcommand dispatch (the table of help_table.c), the
+ * options checked against it, --help, --version. */
 #include <signal.h>
 #include <stdarg.h>
 #include <stdio.h>
 #include <string.h>
 
 #include "cli.h"
+#include "help.h"
 #include "volev/integrate.h"
 #include "volev/output.h"
-
-static const struct {
-    const char *name;
-    int (*fn)(int, char **);
-    const char *usage;
-} commands[] = {
-    {"run", vl_cli_run, "run SCENARIO [-o DIR [--replace]] [--set KEY=VALUE]...  simulate one history (DIR empty or new, unless --replace)"},
-    {"validate", vl_cli_validate, "validate SCENARIO [--set KEY=VALUE]...  check a scenario, list every parameter"},
-    {"balance", vl_cli_balance, "balance SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...  energy-balance curves at one age"},
-    {"processes", vl_cli_processes, "processes  list processes and parameters with units, defaults, bounds, references"},
-    {"columns", vl_cli_columns, "columns  list every output column and summary row with its unit and meaning"},
-    {"sweep", vl_cli_sweep, "sweep SCENARIO [-o DIR] [-j THREADS] [--quiet] [--replace]  run the ensemble of the scenario's sweep group (resumes an interrupted one)"},
-    {"plot", vl_cli_plot, "plot DIR [--format png|pdf|svg]  render the history figure of a run"},
-    {"compare", vl_cli_compare, "compare DIR_A DIR_B [-o DIR] [--format png|pdf|svg] [--labels A,B]  side-by-side table and figure of two runs"},
-    {NULL, NULL, NULL},
-};
-
-static void help(FILE *f)
-{
-    fprintf(f, "volev %s: volatile and atmosphere evolution of rocky planets\n\n"
-               "usage: volev COMMAND [ARGS]\n",
-            vl_version());
-    for (int i = 0; commands[i].name; i++)
-        fprintf(f, "  volev %s\n", commands[i].usage);
-    fprintf(f, "  volev --help | --version\n\n"
-               "exit codes: 0 success, 1 internal error, 2 bad command line,\n"
-               "  3 bad scenario or input data, 4 integration failed, 5 file I/O error\n"
-               "  (or the output folder is taken: not empty, or locked by another sweep),\n"
-               "  6 external program (gnuplot) missing or failed,\n"
-               "  128 + signal: stopped by SIGINT or SIGTERM (nothing incomplete left behind)\n"
-               "See volev(1) and docs/model.md.\n");
-}
 
 int vl_cli_report(const vl_status *st)
 {
@@ -73,7 +43,10 @@ int vl_cli_usage_error(const char *cmd, const char *fmt, ...)
     va_start(ap, fmt);
     vfprintf(stderr, fmt, ap);
     va_end(ap);
-    fprintf(stderr, "\nTry 'volev --help'.\n");
+    if (cmd && strcmp(cmd, "help") != 0)
+        fprintf(stderr, "\nTry 'volev %s --help'.\n", cmd);
+    else
+        fprintf(stderr, "\nTry 'volev --help'.\n");
     return VL_ERR_USAGE;
 }
 
@@ -82,15 +55,22 @@ int main(int argc, char **argv)
     if (argc < 2)
         return vl_cli_usage_error(NULL, "missing command");
     if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0) {
-        help(stdout);
+        vl_cli_help_overview(stdout);
         return VL_OK;
     }
     if (strcmp(argv[1], "--version") == 0) {
         printf("volev %s\n", vl_version());
         return VL_OK;
     }
-    for (int i = 0; commands[i].name; i++)
-        if (strcmp(argv[1], commands[i].name) == 0)
-            return commands[i].fn(argc - 1, argv + 1);
-    return vl_cli_usage_error(NULL, "unknown command '%s'", argv[1]);
+    const vl_cli_command *c = vl_cli_command_find(argv[1]);
+    if (!c) {
+        const char *near = vl_cli_command_suggest(argv[1]);
+        return vl_cli_usage_error(NULL, "unknown command '%s'%s%s%s", argv[1],
+                                  near ? " (did you mean '" : "", near ? near : "",
+                                  near ? "'?)" : "");
+    }
+    int done, rc = vl_cli_check_options(c, argc - 1, argv + 1, &done);
+    if (rc != VL_OK || done)
+        return rc;
+    return c->fn(argc - 1, argv + 1);
 }
