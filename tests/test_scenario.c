@@ -345,10 +345,15 @@ START_TEST(needs_checked_after_overrides)
     const char *ov[] = {"star.luminosity_model=constant"};
     const char *path = vl_scen_write_cfg("star = {\n  luminosity_model = \"table\";\n"
                                  "  track_file = \"t.csv\";\n};\n");
-    ck_assert_ptr_null(vl_scenario_load(path, ov, 1, &st));
-    ck_assert_int_eq(st.code, VL_ERR_INPUT);
-    ck_assert_int_eq(st.line, 3);
-    ck_assert_ptr_nonnull(strstr(st.msg, "(it is constant)"));
+    /* switching the model from the command line leaves the file's track_file unused: a
+     * warning naming it, its line and the switch, not a refusal (issue 19, item 8) */
+    vl_scenario *sw = vl_scenario_load(path, ov, 1, &st);
+    ck_assert_msg(sw != NULL, "%s", st.msg);
+    ck_assert_int_eq(sw->star.luminosity_model, VL_LUM_CONSTANT);
+    ck_assert_int_eq(sw->nwarnings, 1);
+    ck_assert_ptr_nonnull(strstr(sw->warnings[0], "star.track_file (line 3) is not used"));
+    ck_assert_ptr_nonnull(strstr(sw->warnings[0], "star.luminosity_model constant"));
+    vl_scenario_free(sw);
     /* and an override can make a file value meaningful */
     const char *ov2[] = {"star.luminosity_model=\"contracting\""};
     vl_scenario *sc = vl_scenario_load(vl_scen_write_cfg("star = {\n  contraction_end_yr = 2.385e8;\n};\n"),

@@ -9,6 +9,7 @@
  * stored in SI. */
 #include "volev/scenario.h"
 
+#include <stdarg.h>
 #include <pthread.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -152,4 +153,18 @@ vl_scenario *vl_scenario_parse(const char *text, size_t len, const char *label, 
     if (!rc)
         rc = vl_scenario_read_memory(sc, text ? text : "", len, cwd, st);
     return finish(sc, rc, NULL, 0, st);
+}
+
+void vl_scenario_warn(vl_scenario *sc, const char *fmt, ...)
+{
+    size_t n = sizeof sc->warnings[0];
+    if (sc->nwarnings >= VL_SCENARIO_WARNINGS) {
+        snprintf(sc->warnings[VL_SCENARIO_WARNINGS - 1], n, "and %d more warnings",
+                 ++sc->nwarnings - VL_SCENARIO_WARNINGS + 1);
+        return;
+    }
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(sc->warnings[sc->nwarnings++], n, fmt, ap);
+    va_end(ap);
 }

@@ -168,8 +168,12 @@ int vl_scenario_needs_hold(const vl_scenario *sc, size_t i, char *other, size_t 
     return vl_choice_index(*values, state) >= 0;
 }
 
-/* Every row set by the file or an override must be meaningful under its needs clause. */
-static int check_needs(const vl_scenario *sc, vl_status *st)
+/* Every row set by the file or an override must be meaningful under its needs clause.
+ * One exception: a row of the file made meaningless by a --set of the key it depends on
+ * (--set star.luminosity_model=table leaves the file's star.luminosity_lsun unused) is a
+ * warning naming both, so a model can be switched from the command line; a file that
+ * contradicts itself, or a --set of a row that is not used, stays an error. */
+static int check_needs(vl_scenario *sc, vl_status *st)
 {
     char key[VL_SCENARIO_KEY_MAX], other[VL_SCENARIO_KEY_MAX], state[128], list[512];
     const char *values;
@@ -178,9 +182,15 @@ static int check_needs(const vl_scenario *sc, vl_status *st)
             vl_scenario_needs_hold(sc, i, other, sizeof other, state, sizeof state, &values))
             continue;
         vl_scenario_param_key(i, key, sizeof key);
+        long ctrl = vl_scenario_find_key(other);
+        if (sc->origin[i] == VL_FROM_FILE && ctrl >= 0 && sc->origin[ctrl] == VL_FROM_OVERRIDE) {
+            vl_scenario_warn(sc, "%s (line %d) is not used now that --set makes %s %s", key,
+                             sc->line[i], other, state);
+            continue;
+        }
         vl_scenario_list_text(values, "or", list, sizeof list);
-        return vl_scenario_fail_param(sc, i, st, "%s is only used when %s is %s (it is %s)", key, other,
-                          list, state);
+        return vl_scenario_fail_param(sc, i, st, "%s is only used when %s is %s (it is %s)", key,
+                                      other, list, state);
     }
     return VL_OK;
 }
@@ -260,7 +270,7 @@ static int run_hooks(const vl_scenario *sc, vl_status *st)
     return VL_OK;
 }
 
-int vl_scenario_cross_check(const vl_scenario *sc, vl_status *st)
+int vl_scenario_cross_check(vl_scenario *sc, vl_status *st)
 {
     int rc = check_required(sc, st);
     if (!rc)

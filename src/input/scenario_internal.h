@@ -201,11 +201,14 @@ int vl_sweep_spec_read(vl_loader *ld, const config_setting_t *g, int line);
 int vl_scenario_check_tables(vl_status *st);
 /* Every check that needs the complete scenario: required keys, needs clauses,
  * consistency, the process hooks. */
-int vl_scenario_cross_check(const vl_scenario *sc, vl_status *st);
+int vl_scenario_cross_check(vl_scenario *sc, vl_status *st);
 /* Fills st with an input error about row i, located where its value came from (file
  * line or --set); returns VL_ERR_INPUT. */
 int vl_scenario_fail_param(const vl_scenario *sc, size_t i, vl_status *st, const char *fmt, ...)
     __attribute__((format(printf, 4, 5)));
+/* Adds a warning to sc->warnings (the CLI prints them); beyond VL_SCENARIO_WARNINGS the
+ * last says how many more there were. */
+void vl_scenario_warn(vl_scenario *sc, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 /* The state of a CHOICE or BOOL row as written in a file. */
 void vl_scenario_state_text(const vl_scenario *sc, size_t i, char *buf, size_t n);
 /* 1 if row i has no needs clause or its condition holds in sc; fills the text of the

@@ -19,12 +19,6 @@
 #define L_RATIO_WARN 3.0
 #define TEFF_FRACTION_WARN 0.15
 
-static void warn(vl_scenario *sc, const char *fmt, double a, double b, double c)
-{
-    if (sc->nwarnings < VL_SCENARIO_WARNINGS)
-        snprintf(sc->warnings[sc->nwarnings++], sizeof sc->warnings[0], fmt, a, b, c);
-}
-
 /* Row i set to v (file units) as derived from the mass. */
 static void set_derived(vl_scenario *sc, size_t i, double v)
 {
@@ -60,7 +54,7 @@ static int luminosity(vl_scenario *sc, size_t mass, size_t lum, vl_status *st)
     }
     double l = sc->file_value[lum];
     if (isfinite(l_ms) && (l > L_RATIO_WARN * l_ms || l < l_ms / L_RATIO_WARN))
-        warn(sc, "star.luminosity_lsun = %g is %.3g times the main-sequence luminosity of a "
+        vl_scenario_warn(sc, "star.luminosity_lsun = %g is %.3g times the main-sequence luminosity of a "
                  "%g M_sun star (Eker et al. 2018): right for a young or evolved star, else "
                  "check it", l, l / l_ms, m);
     return VL_OK;
@@ -89,7 +83,7 @@ static int teff(vl_scenario *sc, size_t mass, size_t tk, vl_status *st)
     }
     double t = sc->file_value[tk];
     if (isfinite(t_ms) && fabs(t / t_ms - 1.0) > TEFF_FRACTION_WARN)
-        warn(sc, "star.teff_k = %g K differs from the main-sequence %.0f K of a %g M_sun star "
+        vl_scenario_warn(sc, "star.teff_k = %g K differs from the main-sequence %.0f K of a %g M_sun star "
                  "(Eker et al. 2018) by more than 15 %%: check it", t, t_ms, m);
     return VL_OK;
 }
