@@ -121,6 +121,43 @@ START_TEST(run_writes_and_reproduces)
 }
 END_TEST
 
+/* The value of row name in summary.csv text. */
+static double summary_row(const char *sum, const char *name)
+{
+    char key[96];
+    snprintf(key, sizeof key, "\n%s,", name);
+    const char *p = strstr(sum, key);
+    ck_assert_msg(p != NULL, "no row %s", name);
+    return strtod(p + strlen(key), NULL);
+}
+
+/* The end-of-run report says what summary.csv holds, readably (issue 19, item 5):
+ * Venus loses its water, so its report says "none", not a round-off number. */
+START_TEST(run_report_readable)
+{
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-cli");
+    char args[1024];
+    snprintf(args, sizeof args, "run '%s/scenarios/venus.cfg' -o v", vl_test_top());
+    ck_assert_int_eq(volev(args), 0);
+    char *out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    char *sum = vl_test_slurp(tmpdir, "v/summary.csv", NULL);
+    ck_assert(out && sum);
+    ck_assert_msg(strncmp(out, "end at 4.57 Gyr: ", 17) == 0, "%s", out); /* venus.cfg's end */
+    ck_assert_double_eq(summary_row(sum, "final_surface_water"), 0.0);
+    ck_assert_ptr_nonnull(strstr(out, "\nwater: none at the surface"));
+    char lost[64];
+    snprintf(lost, sizeof lost, "%.3g TO lost to space", summary_row(sum, "water_lost_to_space"));
+    ck_assert_msg(strstr(out, lost) != NULL, "no '%s' in %s", lost, out);
+    ck_assert(strstr(sum, "\nfirst_ocean_lost,") != NULL);
+    ck_assert_ptr_nonnull(strstr(out, "ocean_lost at "));
+    ck_assert_ptr_nonnull(strstr(out, "\noutput: v\n"));
+    ck_assert_ptr_null(strstr(out, "e-1")); /* no 1e-194-like numbers */
+    free(out);
+    free(sum);
+    vl_test_tmp_remove(tmpdir);
+}
+END_TEST
+
 START_TEST(validate_and_processes)
 {
     vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-cli");
@@ -233,6 +270,7 @@ Suite *vl_suite_cli(void)
     tcase_add_test(tc, version_help_usage);
     tcase_add_test(tc, bad_input_leaves_nothing);
     tcase_add_test(tc, run_writes_and_reproduces);
+    tcase_add_test(tc, run_report_readable);
     tcase_add_test(tc, validate_and_processes);
     tcase_add_test(tc, balance_curves);
     tcase_add_test(tc, parameter_reference_current);

@@ -11,6 +11,7 @@
 #include "volev/integrate.h"
 #include "volev/model.h"
 #include "volev/scenario.h"
+#include "volev/schema.h"
 
 typedef struct vl_output vl_output;
 
@@ -21,6 +22,9 @@ vl_output *vl_output_open(const char *dir, const vl_model *m, vl_status *st);
 vl_run_sink vl_output_sink(vl_output *o);
 
 /* Write the summary and resolved scenario, then rename every file into place and free o. */
+/* The first time of each kind of event the run logged so far (for the end-of-run
+ * report; call before vl_output_commit, which frees o). */
+void vl_output_events(const vl_output *o, vl_event_firsts *out);
 int vl_output_commit(vl_output *o, const vl_run_stats *stats, vl_status *st);
 
 /* Remove every temporary file (and dir, if created here) and free o. Accepts NULL. */

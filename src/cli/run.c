@@ -6,6 +6,7 @@
 
 #include "args.h"
 #include "cli.h"
+#include "run_report.h"
 #include "volev/folder.h"
 #include "volev/integrate.h"
 #include "volev/output.h"
@@ -43,19 +44,6 @@ static int check_folder(const char *dir, int replace, vl_status *st)
                               : "it holds files volev did not write");
 }
 
-static void report(const vl_model *m, const vl_run_stats *s, const char *dir)
-{
-    vl_summary d;
-    vl_summary_derive(m, s, &d);
-    printf("final surface water: %.6g TO\n", d.surface_water_to);
-    printf("water lost to space: %.6g TO\n", d.water_lost_to);
-    printf("O2 left in the atmosphere: %.6g bar\n", d.o2_bar);
-    printf("steps %ld, RHS evaluations %ld, Jacobians %ld, events %ld, stepper restarts %ld, "
-           "%.3f s\n",
-           s->steps, s->rhs_calls, s->jacobians, s->events, s->restarts, s->wall_s);
-    printf("output: %s\n", dir);
-}
-
 int vl_cli_run(int argc, char **argv)
 {
     vl_cli_args a;
@@ -88,8 +76,10 @@ int vl_cli_run(int argc, char **argv)
         vl_run_sink sink = vl_output_sink(out);
         vl_run_stats stats;
         if (vl_integrate(m, &sink, &stats, &st) == VL_OK) {
+            vl_event_firsts events;
+            vl_output_events(out, &events);
             if (vl_output_commit(out, &stats, &st) == VL_OK)
-                report(m, &stats, dir);
+                vl_run_report(stdout, m, &stats, &events, dir);
         } else {
             vl_output_abort(out);
         }

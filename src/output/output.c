@@ -184,6 +184,8 @@ static int event_cb(void *ctx, double t, const char *name, const char *detail, v
 
 vl_run_sink vl_output_sink(vl_output *o) { return (vl_run_sink){o, row_cb, event_cb}; }
 
+void vl_output_events(const vl_output *o, vl_event_firsts *out) { *out = o->events; }
+
 /* summary.csv: provenance, the scenario's path, the rows of the schema. */
 static void summary(vl_output *o, const vl_run_stats *s)
 {
