@@ -2,6 +2,7 @@
  * SCENARIO [-o DIR] [--set KEY=VALUE]... */
 #include "args.h"
 
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -75,4 +76,26 @@ int vl_cli_finish(vl_cli_args *a, vl_scenario *sc, vl_model *m, const vl_status 
     vl_scenario_free(sc);
     vl_cli_args_free(a);
     return rc;
+}
+
+/* Parse and remove "--age-yr AGE" from argv; 0, or VL_ERR_USAGE (printed). */
+int vl_cli_take_age(int *argc, char **argv, double *age_yr, int *given)
+{
+    *given = 0;
+    for (int i = 1; i < *argc; i++) {
+        if (strcmp(argv[i], "--age-yr") != 0)
+            continue;
+        char *end;
+        if (i + 1 >= *argc)
+            return vl_cli_usage_error(argv[0], "--age-yr needs a stellar age in years");
+        *age_yr = strtod(argv[i + 1], &end);
+        if (*end || !(*age_yr > 0.0) || !isfinite(*age_yr))
+            return vl_cli_usage_error(argv[0], "--age-yr '%s': expected a positive number of years",
+                                      argv[i + 1]);
+        *given = 1;
+        memmove(&argv[i], &argv[i + 2], (size_t)(*argc - i - 2) * sizeof *argv);
+        *argc -= 2;
+        i--;
+    }
+    return 0;
 }

@@ -31,4 +31,8 @@ int vl_cli_start(int argc, char **argv, int allow_out, vl_cli_args *a, struct vl
 int vl_cli_finish(vl_cli_args *a, struct vl_scenario *sc, struct vl_model *m,
                   const vl_status *st);
 
+/* Parse and remove "--age-yr AGE" from argv (balance, hz): *given set when it was
+ * there. 0, or VL_ERR_USAGE (printed). */
+int vl_cli_take_age(int *argc, char **argv, double *age_yr, int *given);
+
 #endif

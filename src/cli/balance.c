@@ -17,28 +17,6 @@
 #include "volev/output.h"
 #include "volev/units.h"
 
-/* Parse and remove "--age-yr AGE" from argv; 0, or VL_ERR_USAGE (printed). */
-static int take_age(int *argc, char **argv, double *age_yr, int *given)
-{
-    *given = 0;
-    for (int i = 1; i < *argc; i++) {
-        if (strcmp(argv[i], "--age-yr") != 0)
-            continue;
-        char *end;
-        if (i + 1 >= *argc)
-            return vl_cli_usage_error(argv[0], "--age-yr needs a stellar age in years");
-        *age_yr = strtod(argv[i + 1], &end);
-        if (*end || !(*age_yr > 0.0) || !isfinite(*age_yr))
-            return vl_cli_usage_error(argv[0], "--age-yr '%s': expected a positive number of years",
-                                      argv[i + 1]);
-        *given = 1;
-        memmove(&argv[i], &argv[i + 2], (size_t)(*argc - i - 2) * sizeof *argv);
-        *argc -= 2;
-        i--;
-    }
-    return 0;
-}
-
 /* Write the curves and the equilibria they imply (stable: absorbed falls through OLR). */
 static int write_curves(const char *path, const vl_model *m, const vl_env *env, int wet,
                         const vl_curve *cv, size_t n, vl_status *st)
@@ -100,7 +78,7 @@ int vl_cli_balance(int argc, char **argv)
 {
     double age_yr = 0.0;
     int given;
-    if (take_age(&argc, argv, &age_yr, &given))
+    if (vl_cli_take_age(&argc, argv, &age_yr, &given))
         return VL_ERR_USAGE;
     vl_cli_args a;
     vl_status st;

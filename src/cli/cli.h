@@ -11,6 +11,7 @@ int vl_cli_processes(int argc, char **argv);
 int vl_cli_columns(int argc, char **argv);
 int vl_cli_plot(int argc, char **argv);
 int vl_cli_balance(int argc, char **argv);
+int vl_cli_hz(int argc, char **argv);
 int vl_cli_sweep(int argc, char **argv);
 int vl_cli_compare(int argc, char **argv);
 int vl_cli_help(int argc, char **argv);

@@ -1,6 +1,6 @@
 /* help_table.c: every subcommand of volev, its synopsis, description, options and
  * examples (help.h). Each option list is read off the command's parser: args.c (run,
- * validate, balance), balance.c (--age-yr), sweep.c, plot.c, compare.c; processes.c
+ * validate, balance, hz), args.c's vl_cli_take_age (--age-yr), sweep.c, plot.c, compare.c; processes.c
  * and columns.c take no arguments. A new option goes here and into the parser; the
  * man page's OPTIONS and README.md's command list follow (tests/test_help.c). */
 #include "cli.h"
@@ -30,6 +30,14 @@ static const vl_cli_option balance_options[] = {
     {{"--age-yr", NULL}, "AGE",
      "stellar age in years, within the run's ages (default: run.start_yr)"},
     {{"-o", "--output"}, "DIR", "output folder, made if missing (default: NAME-balance)"},
+    set_option,
+    END_OPTIONS,
+};
+
+static const vl_cli_option hz_options[] = {
+    {{"--age-yr", NULL}, "AGE",
+     "stellar age in years, within the run's ages (default: run.end_yr)"},
+    {{"-o", "--output"}, "DIR", "also write DIR/hz.csv (the folder is made if missing)"},
     set_option,
     END_OPTIONS,
 };
@@ -108,6 +116,21 @@ const vl_cli_command vl_cli_commands[] = {
      {{"volev balance scenarios/demo.cfg --age-yr 1e9 -o bal",
        "the demo planet's balance at 1 Gyr into bal/"},
       {"volev plot bal", "then bal/balance.png"}}},
+    {"hz", vl_cli_hz,
+     {"hz SCENARIO [--age-yr AGE] [-o DIR] [--set KEY=VALUE]...", NULL},
+     "habitable-zone edges of the scenario's star at one age",
+     "Print the edges of the habitable zone around the scenario's star at age AGE as "
+     "effective flux S_eff (1361 W/m^2 = 1) and circular-orbit distance: the fits of "
+     "Kopparapu et al. 2013 for the star's Teff (recent Venus, runaway and moist "
+     "greenhouse, maximum greenhouse, early Mars), the 2014 runaway fit for the planet's "
+     "mass, and with climate.model = \"column\" the column's runaway and moist-greenhouse "
+     "thresholds for the scenario's starting atmosphere and its maximum-greenhouse edge (the least "
+     "S_eff at which a CO2 pressure of 0.1-50 bar keeps the surface at 273.15 K). With -o, "
+     "also DIR/hz.csv.",
+     hz_options,
+     {{"volev hz scenarios/earth.cfg", "the Sun's habitable zone today"},
+      {"volev hz scenarios/demo.cfg --age-yr 1e9 --set planet.mass_mearth=3 -o hz",
+       "the demo star at 1 Gyr, for a 3 Earth-mass planet"}}},
     {"sweep", vl_cli_sweep,
      {"sweep SCENARIO [-o DIR] [-j THREADS] [--quiet] [--replace]", NULL},
      "run the ensemble of the scenario's sweep group",
