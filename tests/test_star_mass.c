@@ -66,7 +66,8 @@ END_TEST
 /* ---- the scenario rules ---------------------------------------------------------- */
 
 static const char m_dwarf[] = "star = { mass_msun = 0.25; teff_k = 3250.0; luminosity_model = "
-                              "\"contracting\"; luminosity_lsun = 0.0095; };\n";
+                              "\"contracting\"; luminosity_lsun = 0.0095; };\n"
+                              "inventory = { mantle_co2_bar = 0.0; mantle_n2_bar = 0.0; };\n";
 
 static vl_scenario *load(const char *text, const char *const *sets, size_t n, vl_status *st)
 {

@@ -119,6 +119,8 @@ static vl_scenario *finish(vl_scenario *sc, int rc, const char *const *overrides
         rc = vl_scenario_derive_star(sc, st);
     if (!rc)
         rc = vl_scenario_cross_check(sc, st);
+    if (!rc)
+        vl_scenario_advise(sc);
     if (rc) {
         vl_scenario_free(sc);
         return NULL;

@@ -11,6 +11,7 @@
  *   sweep_spec.c         the top-level `sweep` group -> vl_sweep_spec
  *   scenario_override.c  --set KEY=VALUE
  *   scenario_star.c      a star's luminosity and Teff from its mass where not given
+ *   scenario_advice.c    warnings for a scenario that is probably not meant
  *   scenario_check.c     table sanity and the cross-checks (required, needs, consistency)
  *   scenario_write.c     the resolved-scenario writer and the `validate` listing */
 #ifndef VOLEV_SCENARIO_INTERNAL_H
@@ -215,6 +216,12 @@ void vl_scenario_state_text(const vl_scenario *sc, size_t i, char *buf, size_t n
  * controlling key, its state and the needed values for messages. */
 int vl_scenario_needs_hold(const vl_scenario *sc, size_t i, char *other, size_t on,
                            char *state, size_t sn, const char **values);
+
+/* ---- scenario_advice.c */
+
+/* Warnings into sc->warnings for a scenario that loads but is probably not meant: no
+ * volatiles in the mantle (not even set to 0) while outgassing is on. */
+void vl_scenario_advise(vl_scenario *sc);
 
 /* ---- scenario_star.c */
 
