@@ -1,7 +1,8 @@
 # volev: GNU make build. `make` builds build/volev; `make check` runs all tests;
 # `make demo` installs missing packages (as root), builds, runs the demo and renders it.
 # Switches: SAN=1 (ASan+UBSan), WERROR=1, V=1 (show commands), MPI=1 (an MPI build of
-# `volev sweep` with mpicc, in build-mpi/ unless BUILD is given), PREFIX, DESTDIR.
+# `volev sweep` with mpicc, in build-mpi/ unless BUILD is given), PREFIX, DESTDIR, PYTHON
+# (the Python 3 of `make check`'s python/tests).
 # `make fuzz` builds the libFuzzer targets with clang in build-fuzz/ (scripts/fuzz.sh runs
 # them); it calls this Makefile again with FUZZ=1, which is not meant to be set by hand.
 
@@ -10,6 +11,7 @@ PREFIX ?= /usr/local
 DESTDIR ?=
 CC ?= cc
 FUZZ_CC ?= clang
+PYTHON ?= python3
 ifeq ($(FUZZ),1)
 override CC := $(FUZZ_CC)
 override BUILD := build-fuzz
@@ -113,9 +115,11 @@ $(TESTBIN): $(TEST_OBJ) $(LIB)
 	@$(if $(Q),echo "  LD  $@")
 	$(Q)$(CC) $(LDFLAGS) $(TEST_OBJ) $(LIB) $(PKG_LIBS) $(CHECK_LIBS) -lm -o $@
 
-# All tests: unit suites and command-line tests, one runner. Where mpicc exists the MPI
-# build of the program (build-mpi/, without sanitizers: OpenMPI's own allocations would
-# read as leaks) is made too, and the sweep tests run it on 2 ranks. The climate table
+# All tests: unit suites and command-line tests, one runner; then the Python module's
+# tests with $(PYTHON) (python/tests: the plain-list tables always, the pandas ones where
+# pandas imports; docs/python.md). Where mpicc exists the MPI build of the program
+# (build-mpi/, without sanitizers: OpenMPI's own allocations would read as leaks) is made
+# too, and the sweep tests run it on 2 ranks. The climate table
 # cache of the runs (the program's and the suites' own) is a fresh folder of the build,
 # never the user's; CHECK_CACHE=DIR reuses DIR instead (CI hands the sanitizer build the
 # points the normal build computed: the same physics, so the same numbers).
@@ -132,6 +136,9 @@ endif
 	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) $(MPI_ENV) \
 	    VOLEV_CACHE_DIR=$(or $(CHECK_CACHE),$(abspath $(BUILD)/cache)) \
 	    CK_DEFAULT_TIMEOUT=120 $(TESTBIN)
+	VOLEV_BIN=$(abspath $(BIN)) VOLEV_TOP=$(abspath .) \
+	    VOLEV_CACHE_DIR=$(or $(CHECK_CACHE),$(abspath $(BUILD)/cache)) \
+	    $(PYTHON) -B -m unittest discover -s python/tests -t python/tests
 
 # libFuzzer targets (clang; library objects with -fsanitize=fuzzer-no-link,address,undefined,
 # the targets linked with -fsanitize=fuzzer): build-fuzz/fuzz_{scenario,track,catalogue}.

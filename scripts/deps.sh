@@ -3,15 +3,16 @@
 # test and render volev are installed.  Quiet when everything is present.  As root,
 # missing packages are installed with apt-get; otherwise the command to run is printed.
 #   --hardening  also the fuzzing and leak-checking tools CI uses (clang with
-#                libFuzzer, valgrind): make fuzz, the valgrind stage of .ci/run
+#                libFuzzer, valgrind): make fuzz, the valgrind stage of .ci/run; and
+#                pandas, so that make check tests python/ with pandas as well as without
 #   --bench      also SciPy, for the side-by-side benchmark (bench/scipy)
 set -eu
 
-PACKAGES="gcc make pkg-config libgsl-dev libsundials-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev"
+PACKAGES="gcc make pkg-config libgsl-dev libsundials-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev python3"
 for opt in "$@"; do
     case "$opt" in
-        --hardening) PACKAGES="$PACKAGES clang libclang-rt-14-dev valgrind" ;;
-        --bench) PACKAGES="$PACKAGES python3 python3-scipy" ;;
+        --hardening) PACKAGES="$PACKAGES clang libclang-rt-14-dev valgrind python3-pandas" ;;
+        --bench) PACKAGES="$PACKAGES python3-scipy" ;;
         *) echo "usage: sh scripts/deps.sh [--hardening] [--bench]" >&2; exit 2 ;;
     esac
 done
