@@ -11,7 +11,9 @@ PREFIX ?= /usr/local
 DESTDIR ?=
 CC ?= cc
 FUZZ_CC ?= clang
-PYTHON ?= python3
+# Debian's interpreter when present: python3-pandas (scripts/deps.sh) is installed for it, not
+# for another python3 that may come first on PATH.
+PYTHON ?= $(if $(wildcard /usr/bin/python3),/usr/bin/python3,python3)
 ifeq ($(FUZZ),1)
 override CC := $(FUZZ_CC)
 override BUILD := build-fuzz
