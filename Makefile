@@ -85,7 +85,7 @@ else
 Q := @
 endif
 
-.PHONY: all check demo deps install uninstall clean bench docs validation figures fuzz fuzz-dict
+.PHONY: all check check-run demo deps man install uninstall clean bench docs validation figures fuzz fuzz-dict
 all: $(BIN)
 
 $(BUILD)/%.o: %.c
@@ -130,7 +130,13 @@ ifneq ($(MPICC),)
 MPI_BIN := build-mpi/volev
 MPI_ENV := VOLEV_MPI_BIN=$(abspath $(MPI_BIN))
 endif
-check: $(TESTBIN) $(BIN)
+# `make check` first makes sure the test packages are there (scripts/deps.sh --test: Check,
+# OpenMPI, python3), then builds and runs everything (check-run).
+check:
+	@sh scripts/deps.sh --test
+	@$(MAKE) --no-print-directory check-run
+
+check-run: $(TESTBIN) $(BIN)
 ifneq ($(MPICC),)
 	@$(MAKE) --no-print-directory MPI=1 BUILD=build-mpi SAN= $(MPI_BIN)
 endif
@@ -201,15 +207,23 @@ bench: $(BIN)
 
 install: $(BIN)
 	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/share/man/man1 \
-	           $(DESTDIR)$(PREFIX)/share/volev/plots $(DESTDIR)$(PREFIX)/share/volev/scenarios
+	           $(DESTDIR)$(PREFIX)/share/volev/plots $(DESTDIR)$(PREFIX)/share/volev/scenarios \
+	           $(DESTDIR)$(PREFIX)/share/doc/volev/figures
 	install -m 755 $(BIN) $(DESTDIR)$(PREFIX)/bin/volev
 	install -m 644 docs/volev.1 $(DESTDIR)$(PREFIX)/share/man/man1/volev.1
 	install -m 644 plots/*.gp $(DESTDIR)$(PREFIX)/share/volev/plots/
 	install -m 644 scenarios/*.cfg $(DESTDIR)$(PREFIX)/share/volev/scenarios/
+	install -m 644 README.md docs/*.md docs/*.png $(DESTDIR)$(PREFIX)/share/doc/volev/
+	install -m 644 docs/figures/* $(DESTDIR)$(PREFIX)/share/doc/volev/figures/
 
 uninstall:
 	rm -f $(DESTDIR)$(PREFIX)/bin/volev $(DESTDIR)$(PREFIX)/share/man/man1/volev.1
-	rm -rf $(DESTDIR)$(PREFIX)/share/volev
+	rm -rf $(DESTDIR)$(PREFIX)/share/volev $(DESTDIR)$(PREFIX)/share/doc/volev
+
+# The manual page on a terminal (installs man-db when missing: scripts/deps.sh --man).
+man:
+	@sh scripts/deps.sh --man
+	@man -l docs/volev.1
 
 clean:
 	rm -rf $(BUILD) build-san build-mpi build-fuzz demo-out

@@ -1,19 +1,26 @@
 #!/bin/sh
-# deps.sh [--hardening] [--bench] -- make sure the Debian packages needed to build,
-# test and render volev are installed.  Quiet when everything is present.  As root,
-# missing packages are installed with apt-get; otherwise the command to run is printed.
-#   --hardening  also the fuzzing and leak-checking tools CI uses (clang with
+# deps.sh [--test] [--hardening] [--bench] [--man] -- make sure the Debian packages needed
+# are installed. Without an option: what `make demo` needs to build, run and render volev
+# (compiler, GSL, SUNDIALS, libconfig, gnuplot). Quiet when everything is present. As
+# root, missing packages are installed with apt-get; otherwise the command to run is
+# printed.
+#   --test       also what `make check` needs: Check, OpenMPI (the MPI sweep test), python3
+#   --hardening  --test and the fuzzing and leak-checking tools CI uses (clang with
 #                libFuzzer, valgrind): make fuzz, the valgrind stage of .ci/run; and
 #                pandas, so that make check tests python/ with pandas as well as without
 #   --bench      also SciPy, for the side-by-side benchmark (bench/scipy)
+#   --man        man-db, to read docs/volev.1 on a terminal (`make man`)
 set -eu
 
-PACKAGES="gcc make pkg-config libgsl-dev libsundials-dev libconfig-dev check gnuplot-nox openmpi-bin libopenmpi-dev python3"
+PACKAGES="gcc make pkg-config libgsl-dev libsundials-dev libconfig-dev gnuplot-nox"
+TEST="check openmpi-bin libopenmpi-dev python3"
 for opt in "$@"; do
     case "$opt" in
-        --hardening) PACKAGES="$PACKAGES clang libclang-rt-14-dev valgrind python3-pandas" ;;
-        --bench) PACKAGES="$PACKAGES python3-scipy" ;;
-        *) echo "usage: sh scripts/deps.sh [--hardening] [--bench]" >&2; exit 2 ;;
+        --test) PACKAGES="$PACKAGES $TEST" ;;
+        --hardening) PACKAGES="$PACKAGES $TEST clang libclang-rt-14-dev valgrind python3-pandas" ;;
+        --bench) PACKAGES="$PACKAGES python3 python3-scipy" ;;
+        --man) PACKAGES="$PACKAGES man-db" ;;
+        *) echo "usage: sh scripts/deps.sh [--test] [--hardening] [--bench] [--man]" >&2; exit 2 ;;
     esac
 done
 
