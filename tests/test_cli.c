@@ -172,6 +172,24 @@ START_TEST(validate_and_processes)
     ck_assert_ptr_nonnull(strstr(out, "processes.weathering.co2_exponent"));
     free(out);
     ck_assert(!vl_test_exists(tmpdir, "quick"));
+    /* derived quantities: present Earth receives S_eff 1 (1361 W/m^2, Kopp & Lean 2011)
+     * and sits in the conservative habitable zone, 0.99-1.70 au (Kopparapu et al. 2013);
+     * Venus today lies inside its recent-Venus edge (S_eff 1.91 > 1.78, same paper) */
+    char args[1024];
+    snprintf(args, sizeof args, "validate '%s/scenarios/earth.cfg'", vl_test_top());
+    ck_assert_int_eq(volev(args), 0);
+    out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    const char *end = strstr(out, "\n# end (");
+    ck_assert_ptr_nonnull(end);
+    ck_assert_ptr_nonnull(strstr(end, "S_eff 1: in the conservative habitable zone"));
+    free(out);
+    snprintf(args, sizeof args, "validate '%s/scenarios/venus.cfg'", vl_test_top());
+    ck_assert_int_eq(volev(args), 0);
+    out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    end = strstr(out, "\n# end (");
+    ck_assert_ptr_nonnull(end);
+    ck_assert_ptr_nonnull(strstr(end, "inside the optimistic inner edge"));
+    free(out);
     ck_assert_int_eq(volev("processes"), 0);
     out = vl_test_slurp(tmpdir, "out.txt", NULL);
     static const char *const names[] = {"hydrogen_escape", "oxygen_drag", "photolysis",

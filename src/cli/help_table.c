@@ -98,8 +98,9 @@ const vl_cli_command vl_cli_commands[] = {
      "check a scenario, list every parameter",
      "Load and check the scenario (with its star track, and its sweep group if it has "
      "one), build the model, and print every resolved parameter with its unit and origin "
-     "(file and line, default, or --set). Writes nothing; exit 3 names file, line and key "
-     "of the first problem.",
+     "(file and line, default, or --set), then the star, instellation, S_eff and place in "
+     "the habitable zone (Kopparapu et al. 2013) at the run's start and end. Writes "
+     "nothing; exit 3 names file, line and key of the first problem.",
      validate_options,
      {{"volev validate scenarios/earth.cfg", "every parameter of the Earth scenario"},
       {"volev validate scenarios/demo.cfg --set planet.orbit_au=0.8",
