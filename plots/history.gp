@@ -186,8 +186,8 @@ ch_keys  = "h2 h2o o2drag jeans pickup sputter photochem polar"
 ch_lab   = '"thermal, from H_2" "thermal, from H_2O" "O drag (from O_2)" ' . \
            '"Jeans" "ion pickup" "sputtering" "photochemical" "polar outflow"'
 # columns that do not follow <channel>_<element>_kg_s: column, element, channel,
-# factor to kg/s of the element (photolysis_h2o_kg_s is water: 2 M_H / M_H2O is H)
-ex_cols = "h_escape_h2_kg_s photolysis_h2o_kg_s photolysis_o_dragged_kg_s o_drag_kg_s"
+# factor to kg/s of the element (photolysis_h2o_lost_kg_s is water: 2 M_H / M_H2O is H)
+ex_cols = "h_escape_from_h2_kg_s photolysis_h2o_lost_kg_s photolysis_o_dragged_kg_s o_drag_from_o2_kg_s"
 ex_el   = "1 1 2 2"
 ex_ch   = "1 2 2 3"
 ex_fac  = sprintf("1 %.9g 1 1", 2.0 * 1.00794 / 18.01528)

@@ -458,6 +458,23 @@ START_TEST(errors_leave_nothing)
     vl_test_file_contains(tmpdir, "err.txt", want);
     ck_assert(!vl_test_exists(tmpdir, "cmp"));
 
+    /* an empty value is a quantity without one (docs/columns.md), not an error: shown
+     * empty, with no difference or ratio (issue 19: a dry run's final_dh_water) */
+    copy_wet();
+    replace_line("bad/summary.csv", n, "final_co2,,bar");
+    ck_assert_int_eq(volev("compare wet bad"), 0);
+    char *table = vl_test_slurp(tmpdir, "out.txt", NULL);
+    ck_assert_ptr_nonnull(table);
+    const char *row = strstr(table, "\nfinal_co2 ");
+    ck_assert_ptr_nonnull(row);
+    char line[512];
+    snprintf(line, sizeof line, "%.*s", (int)strcspn(row + 1, "\n"), row + 1);
+    int dashes = 0; /* "—" for the missing B-A and B/A */
+    for (const char *d = line; (d = strstr(d, "\xe2\x80\x94")) != NULL; d += 3)
+        dashes++;
+    ck_assert_msg(dashes == 2, "%s", line);
+    free(table);
+
     /* not a run's summary: wrong header */
     copy_wet();
     int h = line_starting("bad/summary.csv", "name,value,unit");

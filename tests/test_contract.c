@@ -139,7 +139,7 @@ START_TEST(registry_order_changes_nothing)
     }
     /* the run exercised what the order could have coupled: drag, non-thermal hydrogen
      * sharing the room */
-    int drag = column_of(ref, "o_drag_kg_s"), pick = column_of(ref, "pickup_h_kg_s");
+    int drag = column_of(ref, "o_drag_from_o2_kg_s"), pick = column_of(ref, "pickup_h_kg_s");
     int polar = column_of(ref, "polar_h_kg_s");
     double most[3] = {0, 0, 0};
     for (size_t i = 0; i < a.nrows; i++) {

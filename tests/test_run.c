@@ -134,8 +134,8 @@ START_TEST(earth_history)
     /* the channel budget: the hydrogen of the water photolysed (H/H2O = 2.016/18.015 by
      * mass [C]), the H2 that escapes and the non-thermal H integrate to the hydrogen in
      * space; trapezoid over steps: 1e-2 */
-    double h_kg = total(m, &s, "photolysis_h2o_kg_s") * 2.016 / 18.015 +
-                  total(m, &s, "h_escape_h2_kg_s") + total(m, &s, "pickup_h_kg_s") +
+    double h_kg = total(m, &s, "photolysis_h2o_lost_kg_s") * 2.016 / 18.015 +
+                  total(m, &s, "h_escape_from_h2_kg_s") + total(m, &s, "pickup_h_kg_s") +
                   total(m, &s, "polar_h_kg_s");
     ck_assert_rel(h_kg, s.y_final[VL_R_SPACE_H], 1e-2);
     vl_test_model_free(m);

@@ -762,8 +762,8 @@ class Core:
                 w *= area / (4.0 * PI * R_EARTH * R_EARTH)
             wr = self.move(y, dydt, 2, 3, w * MOLAR["CO2"])
         if cols is not None:
-            cols.update({"h_escape_h2_kg_s": h2,
-                         "photolysis_h2o_kg_s": 2.0 * MOLAR["H2O"] * (r1 + r2),
+            cols.update({"h_escape_from_h2_kg_s": h2,
+                         "photolysis_h2o_lost_kg_s": 2.0 * MOLAR["H2O"] * (r1 + r2),
                          "o2_sink_kg_s": sink, "outgas_co2_kg_s": oc, "outgas_n2_kg_s": on,
                          "outgas_h2o_kg_s": ow, "weathering_co2_kg_s": wr,
                          "surface_temp_k": e.t_surf, "p_co2_bar": e.p_pa[GAS_CO2] / BAR,
@@ -967,7 +967,7 @@ def main(argv):
               % len(rows))
         keys = ("surface_temp_k", "p_co2_bar", "ocean_co2_kg", "exobase_temp_k",
                 "escape_lambda_h", "outgas_co2_kg_s", "outgas_n2_kg_s", "weathering_co2_kg_s",
-                "photolysis_h2o_kg_s", "o2_sink_kg_s")
+                "photolysis_h2o_lost_kg_s", "o2_sink_kg_s")
         worst = {k: 0.0 for k in keys}
         for row, y in zip(rows, vrows):
             cols = {}

@@ -17,7 +17,7 @@ RUN_SUMMARY = ("# volev 9.8.7 (git abc123)\n"
                "name,value,unit\n"
                "final_dh_water,,ratio\n"
                "steps,12,count\n"
-               "o2_accumulated,1.5e-3,bar\n")
+               "final_o2,1.5e-3,bar\n")
 
 
 class CsvLayer(unittest.TestCase):

@@ -42,7 +42,7 @@ class Example(unittest.TestCase):
         for name in ("wet", "dry"):
             summary = os.path.join(out, name, "summary.csv")
             water = "%.4g" % float(summary_text(summary, "final_surface_water_to"))
-            o2 = "%.4g" % float(summary_text(summary, "o2_accumulated"))
+            o2 = "%.4g" % float(summary_text(summary, "final_o2"))
             line = next(l for l in done.stdout.splitlines() if l.startswith(name + ":"))
             self.assertIn("surface water %s TO" % water, line)
             self.assertIn("O2 %s bar" % o2, line)

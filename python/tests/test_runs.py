@@ -73,9 +73,9 @@ class RunFolder:
     def test_values_as_written(self):
         run = self.read("wet")
         path = os.path.join(run.folder, "summary.csv")
-        for row in ("final_surface_water_to", "o2_accumulated", "water_lost_to_space"):
+        for row in ("final_surface_water_to", "final_o2", "water_lost_to_space"):
             self.assertEqual(run.value(row), float(summary_text(path, row)))
-        self.assertEqual(run.unit("o2_accumulated"), "bar")
+        self.assertEqual(run.unit("final_o2"), "bar")
         last = data_lines(os.path.join(run.folder, "series.csv"))[-1].split(",")
         header = header_line(os.path.join(run.folder, "series.csv")).split(",")
         k = header.index("surface_temp_k")
@@ -209,7 +209,7 @@ class OtherOutputs:
         self.assertEqual(table.meta["version"], program_version()[0])
         rows = {r["quantity"]: r for r in vt.records(table.data)}
         wet = vt.read_run(os.path.join(WORK, "wet"), backend="columns")
-        self.assertEqual(rows["o2_accumulated"]["a"], wet.value("o2_accumulated"))
+        self.assertEqual(rows["final_o2"]["a"], wet.value("final_o2"))
 
 
 def backend_classes(base):

@@ -119,7 +119,9 @@ static int summary_row(vl_compare_run *r, const vl_csv_record *rec, vl_status *s
     if (!*name || !*unit)
         return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line, "malformed row: empty %s",
                        *name ? "unit" : "quantity name");
-    if (parse_number(text, &v) != 0)
+    if (!*text) /* no value (docs/columns.md): kept as NAN, shown empty, no difference */
+        v = NAN;
+    else if (parse_number(text, &v) != 0)
         return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
                        "value '%s' of %s is not a number", text, name);
     long dup = find_quantity(r, name, unit);
@@ -227,7 +229,7 @@ static int series_record(void *ctx, const vl_csv_record *rec, vl_status *st)
         return VL_OK;
     for (size_t j = 0; j < rec->n; j++) {
         double v;
-        if (parse_number(rec->field[j], &v) != 0)
+        if (*rec->field[j] && parse_number(rec->field[j], &v) != 0) /* empty: no value */
             return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line, "%s '%.40s' is not a number",
                            rec->header[j], rec->field[j]);
     }

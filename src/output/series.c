@@ -9,6 +9,7 @@
 
 #include "volev/numfmt.h"
 #include "volev/redox_ledger.h"
+#include "volev/reservoir.h"
 #include "volev/schema.h"
 #include "volev/units.h"
 
@@ -58,6 +59,13 @@ static double get_MAGMA_DEPTH(const vl_row *r) { return r->env->melt.depth_m * 1
 static double get_MELT_WATER(const vl_row *r) { return clamp0(r->env->melt.water_kg); }
 static double get_MELT_CO2(const vl_row *r) { return clamp0(r->env->melt.co2_kg); }
 static double get_MANTLE_FE3(const vl_row *r) { return r->env->melt.fe3_ratio; }
+/* vl_reservoir_dh: NAN (an empty field) below the water's depletion floor */
+static double get_DH_WATER(const vl_row *r) { return vl_reservoir_dh(r->y, VL_R_WATER); }
+static double get_DH_ENRICHMENT(const vl_row *r)
+{
+    double r0 = r->m->sc->inventory.initial_dh;
+    return r0 > 0.0 ? vl_reservoir_dh(r->y, VL_R_WATER) / r0 : NAN;
+}
 /* the raw state (an overshoot below zero included): the ledger's own number */
 static double get_SURFACE_OXIDANT(const vl_row *r)
 {

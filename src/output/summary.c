@@ -201,7 +201,7 @@ static const item items[] = {
     {"final_surface_water_to", "TO", REAL10, "surface water left", water, NULL},
     {"water_lost_to_space", "TO", REAL10, "water whose hydrogen reached space, all channels",
      water_lost, NULL},
-    {"o2_accumulated", "bar", REAL10, "atmospheric O2 at the end (pressure of the gas alone)",
+    {"final_o2", "bar", REAL10, "atmospheric O2 at the end as the pressure of the gas alone (its weight per area, m g / A, as final_co2; series.csv's p_o2_bar is its partial pressure in the mixture, which is smaller by the ratio of the mean molar mass to O2's when the air is on average lighter)",
      o2, NULL},
     {"final_dh_water", "ratio", REAL10,
      "D/H atom ratio of the surface water at the end (once exhausted: of its last water above the depletion floor); empty when there is none: no surface water above that floor at the end nor a nonzero ratio at any step before (a run that starts dry, or carries no deuterium and loses its water)", dh, NULL},

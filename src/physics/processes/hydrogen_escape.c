@@ -8,7 +8,7 @@
 #include "volev/units.h"
 
 static const vl_flux_column columns[] = {
-    {"h_escape_h2_kg_s", "hydrogen escaping thermally from atmospheric H2"},
+    {"h_escape_from_h2_kg_s", "hydrogen escaping thermally from atmospheric H2 only (hydrogen of photolysed water that escapes directly: photolysis_h2o_lost_kg_s; all hydrogen lost: summary final_space_h)"},
 };
 
 enum { H2_TO_SPACE };

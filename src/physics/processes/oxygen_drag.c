@@ -7,7 +7,7 @@
 #include "volev/units.h"
 
 static const vl_flux_column columns[] = {
-    {"o_drag_kg_s", "oxygen dragged to space from atmospheric O2 by escaping hydrogen"},
+    {"o_drag_from_o2_kg_s", "oxygen dragged to space from atmospheric O2 by escaping hydrogen (oxygen of photolysed water dragged with its hydrogen: photolysis_o_dragged_kg_s; all oxygen lost: summary final_space_o)"},
 };
 
 enum { O2_TO_SPACE };

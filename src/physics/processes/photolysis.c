@@ -28,7 +28,7 @@ static const vl_param table[] = {
 };
 
 static const vl_flux_column columns[] = {
-    {"photolysis_h2o_kg_s", "water photolysed whose hydrogen escapes (net photolysis)"},
+    {"photolysis_h2o_lost_kg_s", "water photolysed whose hydrogen escapes directly to space (net photolysis; kg of water: its hydrogen is 2 x 1.008 / 18.015 of it)"},
     {"photolysis_o_dragged_kg_s", "oxygen of photolysed water dragged to space with its hydrogen"},
 };
 
