@@ -1,6 +1,7 @@
 /* test_cli.c: the volev program as a user meets it: exit codes, messages, output
  * files, reproducibility. Runs build/volev ($VOLEV_BIN) through the shell. */
 #define _GNU_SOURCE
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -158,6 +159,69 @@ START_TEST(run_report_readable)
 }
 END_TEST
 
+/* The column cols of the last (last != 0) or first data row of series.csv text. */
+static double series_cell(const char *text, const char *col, int last)
+{
+    const char *h = text;
+    while (*h == '#')
+        h = strchr(h, '\n') + 1;
+    int k = 0, want = -1;
+    for (const char *p = h; *p && *p != '\n'; k++) {
+        size_t len = strcspn(p, ",\n");
+        if (len == strlen(col) && strncmp(p, col, len) == 0)
+            want = k;
+        p += len + (p[len] == ',');
+    }
+    ck_assert_msg(want >= 0, "no column %s", col);
+    const char *row = strchr(h, '\n') + 1;
+    if (last) {
+        const char *end = text + strlen(text) - 1; /* the final newline */
+        for (row = end; row > text && row[-1] != '\n'; row--)
+            ;
+    }
+    for (int j = 0; j < want; j++)
+        row = strchr(row, ',') + 1;
+    return strtod(row, NULL);
+}
+
+/* The final state in input units starts a new run where the last one ended: each
+ * reservoir the inventory describes comes back to 1e-9 (issue 19: restart; the
+ * conversions are the inputs' own, so this checks the round trip, not a value) */
+START_TEST(final_inventory_restarts)
+{
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-cli");
+    char args[4096];
+    snprintf(args, sizeof args, "run '%s/scenarios/earth.cfg' -o a", vl_test_top());
+    ck_assert_int_eq(volev(args), 0);
+    char *sum = vl_test_slurp(tmpdir, "a/summary.csv", NULL);
+    static const char *const keys[] = {"surface_water_to", "co2_bar", "n2_bar", "o2_bar",
+                                       "h2_bar", "carbonate_co2_bar", "mantle_co2_bar",
+                                       "mantle_n2_bar", "mantle_water_to"};
+    int len = snprintf(args, sizeof args,
+                       "run '%s/scenarios/earth.cfg' -o b --set run.start_yr=4.57e9 "
+                       "--set run.end_yr=4.6e9",
+                       vl_test_top());
+    for (size_t k = 0; k < sizeof keys / sizeof keys[0]; k++) {
+        char name[64];
+        snprintf(name, sizeof name, "final_inventory.%s", keys[k]);
+        len += snprintf(args + len, sizeof args - (size_t)len, " --set inventory.%s=%.17g",
+                        keys[k], summary_row(sum, name));
+    }
+    ck_assert_int_eq(volev(args), 0);
+    char *a = vl_test_slurp(tmpdir, "a/series.csv", NULL), *b = vl_test_slurp(tmpdir, "b/series.csv", NULL);
+    static const char *const cols[] = {"surface_water_kg", "surface_co2_kg", "atm_n2_kg",
+                                       "carbonate_rock_kg", "mantle_carbon_kg",
+                                       "mantle_nitrogen_kg"};
+    for (size_t k = 0; k < sizeof cols / sizeof cols[0]; k++) {
+        double end = series_cell(a, cols[k], 1), start = series_cell(b, cols[k], 0);
+        ck_assert_msg(fabs(start - end) <= 1e-9 * fabs(end), "%s: %.17g then %.17g", cols[k],
+                      end, start);
+    }
+    free(a), free(b), free(sum);
+    vl_test_tmp_remove(tmpdir);
+}
+END_TEST
+
 START_TEST(validate_and_processes)
 {
     vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-cli");
@@ -289,6 +353,7 @@ Suite *vl_suite_cli(void)
     tcase_add_test(tc, bad_input_leaves_nothing);
     tcase_add_test(tc, run_writes_and_reproduces);
     tcase_add_test(tc, run_report_readable);
+    tcase_add_test(tc, final_inventory_restarts);
     tcase_add_test(tc, validate_and_processes);
     tcase_add_test(tc, balance_curves);
     tcase_add_test(tc, parameter_reference_current);

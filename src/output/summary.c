@@ -96,6 +96,35 @@ static int final_reservoirs(FILE *f, const ctx *c)
     return rc;
 }
 
+/* The final state in the units of the scenario's inventory keys: rows named after the
+ * key, so that `--set inventory.KEY=VALUE` starts a new run from it (as far as the
+ * inventory describes a planet: what escaped, oxidised rock and ferric iron, undelivered
+ * impactors and per-reservoir deuterium have no key). Masses as pressures by the
+ * thin-shell rule the inputs use (planet.h: pa_per_kg). */
+static int final_inventory(FILE *f, const ctx *c)
+{
+    static const struct {
+        const char *key;
+        int res, ocean; /* ocean: in TO, else in bar */
+    } keys[] = {
+        {"surface_water_to", VL_R_WATER, 1},      {"mantle_water_to", VL_R_MANTLE_WATER, 1},
+        {"co2_bar", VL_R_CO2, 0},                 {"n2_bar", VL_R_N2, 0},
+        {"o2_bar", VL_R_O2, 0},                   {"h2_bar", VL_R_H2, 0},
+        {"carbonate_co2_bar", VL_R_CARBONATE, 0}, {"mantle_co2_bar", VL_R_MANTLE_C, 0},
+        {"mantle_n2_bar", VL_R_MANTLE_N, 0},
+    };
+    char name[64];
+    int rc = 0;
+    double pa = c->m->planet.pa_per_kg / VL_BAR;
+    for (size_t k = 0; k < sizeof keys / sizeof keys[0] && rc >= 0; k++) {
+        double kg = clamp0(c->s->y_final[keys[k].res]);
+        snprintf(name, sizeof name, "final_inventory.%s", keys[k].key);
+        rc = row(f, name, keys[k].ocean ? "TO" : "bar", REAL10,
+                 keys[k].ocean ? kg / VL_TO_KG : kg * pa);
+    }
+    return rc;
+}
+
 static int first_events(FILE *f, const ctx *c)
 {
     char name[64];
@@ -199,6 +228,9 @@ static const item items[] = {
     {"final_<reservoir>", "kg", REAL10, "final mass of every reservoir (overshoots below 0 as 0)",
      NULL, final_reservoirs},
     {"final_surface_water_to", "TO", REAL10, "surface water left", water, NULL},
+    {"final_inventory.<key>", "TO or bar", REAL10,
+     "the final state in the unit of each inventory key (surface_water_to, mantle_water_to, co2_bar, n2_bar, o2_bar, h2_bar, carbonate_co2_bar, mantle_co2_bar, mantle_n2_bar; pressures of the gas alone, CO2 with the ocean's): --set inventory.<key>=<value> starts a run from it, as far as the inventory describes the planet (escaped, oxidised, ferric and undelivered stores and each reservoir's own D/H have no key)",
+     NULL, final_inventory},
     {"water_lost_to_space", "TO", REAL10, "water whose hydrogen reached space, all channels",
      water_lost, NULL},
     {"final_o2", "bar", REAL10, "atmospheric O2 at the end as the pressure of the gas alone (its weight per area, m g / A, as final_co2; series.csv's p_o2_bar is its partial pressure in the mixture, which is smaller by the ratio of the mean molar mass to O2's when the air is on average lighter)",
