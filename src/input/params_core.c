@@ -72,10 +72,12 @@ const vl_param vl_core_params[] = {
          "present Sun, ~2e-14 M_sun/yr (Wood 2004, Living Rev. Sol. Phys. 1:2; the solar "
          "value of Wood et al. 2005, ApJ 628:L143), from memory", NULL),
     REAL("star.wind.speed_km_s", "km/s", 1e3, 400.0, 10.0, 5000.0, star.wind_speed_m_s,
-         "wind speed at the planet", "slow solar wind at 1 au, ~400 km/s (Kivelson & Russell 1995, Introduction to Space "
+         "wind speed at the planet",
+         "slow solar wind at 1 au, ~400 km/s (Kivelson & Russell 1995, Introduction to Space "
          "Physics, Cambridge Univ. Press), from memory", NULL),
     REAL("star.wind.reference_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, star.wind_ref_age_s,
-         "age at which wind.mass_loss_msun_yr applies", "solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), from memory", NULL),
+         "age at which wind.mass_loss_msun_yr applies",
+         "solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), from memory", NULL),
     REAL("star.wind.decay_exponent", "", 1.0, 2.33, 0.0, 5.0, star.wind_decay_exp,
          "Mdot ~ t^-exponent", "Wood et al. 2005, ApJ 628:L143, from memory", NULL),
 
@@ -120,11 +122,12 @@ const vl_param vl_core_params[] = {
     /* ---- interior ---- */
     CHOICE("planet.interior.heat_flow_model", VL_HEAT_CHOICES, VL_HEAT_RADIOGENIC,
            interior.heat_model, "heat flow history: radiogenic decay, exponential or power law",
-           "docs/cycles.md", NULL),
+           "chosen here: the models of docs/cycles.md", NULL),
     REAL("planet.interior.present_heat_flow_tw", "TW", 1e12, 47.0, 0.0, 1e6, interior.heat_flow_w,
          "heat flow at the reference age", "Earth 47 +- 2 TW (Davies & Davies 2010)", NULL),
     REAL("planet.interior.reference_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, interior.ref_age_s,
-         "stellar age at which the heat flow is present_heat_flow_tw", "present solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), "
+         "stellar age at which the heat flow is present_heat_flow_tw",
+         "present solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), "
          "from memory",
          NULL),
     REAL("planet.interior.efold_gyr", "Gyr", 1e9 * VL_YR, 4.3, 0.1, 1e3, interior.efold_s,
@@ -165,7 +168,7 @@ const vl_param vl_core_params[] = {
     CHOICE("planet.interior.tectonics", VL_TECTONICS_CHOICES, VL_TECTONICS_MOBILE,
            interior.tectonics,
            "mobile lid (plate tectonics: subduction, spreading) or stagnant lid (no subduction)",
-           "docs/cycles.md", NULL),
+           "chosen here: the models of docs/cycles.md", NULL),
 
     /* ---- interior: a molten start (docs/model.md section 5b) ---- */
     BOOL("planet.interior.magma_ocean.molten_start", 0, interior.magma.molten_start,
@@ -193,14 +196,15 @@ const vl_param vl_core_params[] = {
          "0.4, Lebrun et al. 2013", MO_ONLY),
     REAL("planet.interior.magma_ocean.core_radius_fraction", "", 1.0, 0.547, 0.0, 0.9,
          interior.magma.mantle.core_radius_frac, "core radius over planet radius",
-         "Earth 3480 / 6371 km (PREM)", MO_ONLY),
+         "Earth 3480 / 6371 km (PREM, Dziewonski & Anderson 1981, PEPI 25:297)", MO_ONLY),
     REAL("planet.interior.magma_ocean.feo_mass_fraction", "", 1.0, 0.0805, 0.0, 0.5,
          interior.magma.feo_fraction, "FeO mass fraction of the silicate (its oxygen capacity)",
          "bulk silicate Earth 8.05 wt%, McDonough & Sun 1995, Chem. Geol. 120:223", MO_ONLY),
 
     /* ---- inventory: initial amounts; bar = surface pressure the gas would exert alone ---- */
     REAL("inventory.surface_water_to", "TO", VL_TO_KG, 1.0, 0.0, 1e4, inventory.surface_water_kg,
-         "surface water (ocean + vapour)", "1 TO = 1.39e21 kg, the terrestrial ocean of Luger & Barnes 2015 (Astrobiology "
+         "surface water (ocean + vapour)",
+         "1 TO = 1.39e21 kg, the terrestrial ocean of Luger & Barnes 2015 (Astrobiology "
          "15:119), from memory", NULL),
     REAL("inventory.mantle_water_to", "TO", VL_TO_KG, 0.0, 0.0, 1e4, inventory.mantle_water_kg,
          "water in the mantle available to outgassing", "", NULL),
@@ -225,7 +229,7 @@ const vl_param vl_core_params[] = {
     /* ---- climate ---- */
     CHOICE("climate.model", VL_CLIMATE_CHOICES, VL_CLIMATE_COLUMN, climate.model,
            "climate backend: radiative column, or habitable-zone fits",
-           "docs/model.md section 3", NULL),
+           "chosen here: docs/model.md section 3", NULL),
     REAL("climate.bond_albedo", "", 1.0, 0.3, 0.0, 0.95, climate.bond_albedo,
          "planetary Bond albedo (hz_fit; the column climate with climate.column.albedo = \"fixed\")",
          "present Earth, common practice", NULL),
@@ -317,7 +321,8 @@ const vl_param vl_core_params[] = {
          "mean surface temperature above which ice no longer raises the albedo",
          "common practice", COLUMN_ONLY),
     REAL("climate.column.melt_albedo", "", 1.0, 0.1, 0.0, 1.0, climate.melt_albedo,
-         "albedo of a molten surface", "order of magnitude, chosen here: dark basaltic melt, like fresh basalt (~0.1, from "
+         "albedo of a molten surface",
+         "order of magnitude, chosen here: dark basaltic melt, like fresh basalt (~0.1, from "
          "memory); no measured albedo of a molten surface at hand", COLUMN_ONLY),
     REAL("climate.column.melt_start_temp_k", "K", 1.0, 1350.0, 500.0, 3000.0, climate.melt_start_k,
          "surface temperature where melt starts to cover the surface",
@@ -362,7 +367,8 @@ const vl_param vl_core_params[] = {
          "escape parameter below which the flow is hydrodynamic",
          "~2-3, e.g. Volkov et al. 2011, from memory", NULL),
     BOOL("escape.radiative_cooling", 0, escape.cooling,
-         "reduce the heating efficiency by CO2 and H2O cooling", "off: documented option", NULL),
+         "reduce the heating efficiency by CO2 and H2O cooling",
+         "chosen here: off, an option (docs/escape.md)", NULL),
     REAL("escape.cooling_co2", "", 1.0, 3.7, 0.0, 1e3, escape.cool_co2,
          "c_CO2 in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)",
          "chosen here: the value of planet.exobase.co2_cooling (Venus's ~300 K dayside "
@@ -399,10 +405,12 @@ const vl_param vl_core_params[] = {
         "give up after this many accepted integrator steps", ""),
     INT("run.max_rhs_evaluations", 2000000, 1000, 1000000000000, run.max_rhs,
         "work bound: give up after this many right-hand-side evaluations (Jacobians included; exit 4)",
-        "at least 50 times what any bundled scenario needs (docs/hardening.md)"),
+        "chosen here: at least 50 times what any bundled scenario needs "
+        "(docs/hardening.md)"),
     REAL("run.max_cpu_s", "s", 1.0, 0.0, 0.0, 1e9, run.max_cpu_s,
          "work bound: give up after this much CPU time of the run's thread (exit 4); 0: no limit",
-         "off by default: CPU time depends on the machine, results must not", NULL),
+         "chosen here: off, since CPU time depends on the "
+         "machine and results must not", NULL),
 };
 
 const size_t vl_core_nparams = sizeof vl_core_params / sizeof vl_core_params[0];

@@ -58,7 +58,7 @@ static const vl_param table[] = {
       NULL),
     {"delivery", VL_PT_BOOL, "", 1.0, 0.0, 0.0, 1.0, NULL, NULL, offsetof(params, delivery),
      "impacts also deliver water, CO2 and N2 (from the impactor_* reservoirs)",
-     "off: the impactor population's volatile content is uncertain by orders of magnitude",
+     "chosen here: off, the impactor population's volatile content is uncertain by orders of magnitude",
      NULL, 0},
     R("water_per_impact_kg", "kg", 1.0, 1.0e15, 0.0, 1e22, water_kg,
       "water delivered by each impact",

@@ -63,7 +63,7 @@ static const vl_param table[] = {
       "from memory", NULL),
     R("h2o_tmol_yr", "Tmol/yr", TMOL_YR, 0.0, 0.0, 1e6, h2o_mol_s,
       "net (juvenile) H2O outgassing at the reference age",
-      "0: arc water is recycled; net mantle exchange arrives with the interior cycles", FIXED),
+      "chosen here: 0, arc water is recycled; net mantle exchange arrives with the interior cycles", FIXED),
     {"water_source", VL_PT_CHOICE, "", 1.0, WATER_FIXED, 0.0, 0.0, "fixed|mantle_melt", NULL,
      offsetof(params, water_source),
      "fixed: water at h2o_tmol_yr; mantle_melt: the melt carries the mantle's water, in "

@@ -24,7 +24,7 @@ static const vl_param table[] = {
     ROW("xuv_exponent", "", 1.0, 2.6, 0.0, 10.0, xuv_exp, "a in (F_XUV/F_ref)^a",
         "Lillis et al. 2017: escape ~ CO2 photoionisation frequency^(2.6 +- 0.6)"),
     ROW("wind_exponent", "", 1.0, 0.0, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
-        "0: recombination is driven by photoionisation, not by the wind"),
+        "chosen here: 0, recombination is driven by photoionisation, not by the wind"),
     ROW("energy_spread_ev", "eV", EV, 0.2, 0.01, 5.0, spread_j,
         "width of the logistic step that smooths each recombination channel's energy",
         "[C] lab-frame spread 2 sqrt(E kT_i) ~ 0.4 eV for T_i ~ 300 K (Mars's lower "

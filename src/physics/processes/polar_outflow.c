@@ -25,12 +25,13 @@ static const vl_param table[] = {
         "Russell 1995, from memory) at 1 au"),
     ROW("reference_magnetopause_rp", "R_planet", 1.0, 10.0, 1.0, 1e3, mp_ref_rp,
         "magnetopause stand-off of the reference planet (sets its open-cap area)",
-        "Earth ~10 R_E (textbook 10-11)"),
+        "Earth ~10 R_E (textbook 10-11 R_E: Kivelson & Russell 1995, Introduction to Space "
+        "Physics, Cambridge Univ. Press), from memory"),
     ROW("xuv_exponent", "", 1.0, 1.0, 0.0, 10.0, xuv_exp, "a in (F_XUV/F_ref)^a",
         "from memory: O+ outflow rises several-fold over the solar cycle while the EUV "
         "changes two- to three-fold (Yau et al. 1985); 1 is the low end"),
     ROW("wind_exponent", "", 1.0, 0.0, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
-        "0: the wind acts through the open-cap area (~p^(1/6) for a distant magnetopause); "
+        "chosen here: 0, the wind acts through the open-cap area (~p^(1/6) for a distant magnetopause); "
         "b = 1 gives of order 1e5 kg/s of O around young M dwarfs (docs/escape.md)"),
     PHOTON_ROW,
     H_CAP_ROW,
