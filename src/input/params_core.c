@@ -132,9 +132,8 @@ const vl_param vl_core_params[] = {
          NULL),
     REAL("planet.interior.efold_gyr", "Gyr", 1e9 * VL_YR, 4.3, 0.1, 1e3, interior.efold_s,
          "exponential: e-folding time of the heat flow",
-         "radiogenic heat about twice today's 3 Gyr ago (e^(3/4.3) = 2.0), as in the heat "
-         "production history of Turcotte & Schubert 2002 (Geodynamics, 2nd ed., ch. 4), "
-         "from memory",
+         "chosen here: heat flow about twice today's 3 Gyr ago (e^(3/4.3) = 2.0); the "
+         "radiogenic model with its default shares gives 2.5 [C] (docs/cycles.md)",
          "planet.interior.heat_flow_model=exponential"),
     REAL("planet.interior.power_exponent", "", 1.0, 0.5, 0.0, 5.0, interior.power_exp,
          "power_law: Q ~ (t / t_ref)^-exponent",
