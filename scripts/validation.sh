@@ -78,15 +78,15 @@ printf '| quantity | Venus model | Venus measured | Earth model | Earth measured
 printf '|---|---|---|---|---|---|---|\n'
 printf '| surface pressure | %s | 92 bar (NSSDC) | %s | 1.013 bar (NSSDC) | %s | ~6 mbar (NSSDC, from memory) |\n' "$(col "$venus" 1)" "$(col "$earth" 1)" "$(col "$mars" 1)"
 printf '| composition | %s | CO2 96.5 %%, N2 3.5 %% (NSSDC) | %s | N2 78 %%, O2 21 %% (NSSDC) | %s | CO2 ~95 %%, N2 ~2.7 %% (NSSDC, from memory) |\n' "$(col "$venus" 2)" "$(col "$earth" 2)" "$(col "$mars" 2)"
-printf '| surface water | %s | none (vapour ~30 ppm, from memory) | %s | 1 TO | %s | ~2e-3 TO as polar ice (Plaut et al. 2007, from memory) |\n' "$(col "$venus" 3)" "$(col "$earth" 3)" "$(col "$mars" 3)"
-printf '| surface temperature | %s | 737 K (NSSDC) | %s | 288 K | %s | ~210 K (NSSDC, from memory) |\n' "$(col "$venus" 4)" "$(col "$earth" 4)" "$(col "$mars" 4)"
-printf '| D/H over the start (VSMOW) | %s | ~100 (Donahue et al. 1982); 120 +- 40 (de Bergh et al. 1991) | %s | 1 | %s | ~6 in the atmosphere (Webster et al. 2013, from memory) |\n' "$(col "$venus" 5)" "$(col "$earth" 5)" "$(col "$mars" 5)"
+printf '| surface water | %s | none (vapour ~30 ppmv below the clouds, Bézard & de Bergh 2007, JGR 112:E04S07, from memory) | %s | 1 TO (by definition) | %s | ~2e-3 TO as polar ice (Plaut et al. 2007, from memory) |\n' "$(col "$venus" 3)" "$(col "$earth" 3)" "$(col "$mars" 3)"
+printf '| surface temperature | %s | 737 K (NSSDC) | %s | 288 K (NSSDC) | %s | ~210 K (NSSDC, from memory) |\n' "$(col "$venus" 4)" "$(col "$earth" 4)" "$(col "$mars" 4)"
+printf '| D/H over the start (VSMOW) | %s | ~100 (Donahue et al. 1982); 120 +- 40 (de Bergh et al. 1991) | %s | 1 (VSMOW, by definition) | %s | ~6 in the atmosphere (Webster et al. 2013, from memory) |\n' "$(col "$venus" 5)" "$(col "$earth" 5)" "$(col "$mars" 5)"
 printf '| H escape today | %s | H+ 7.1e24 s^-1 = 0.012 kg/s (Fedorov et al. 2011) | %s | ~3 kg/s (Catling & Zahnle 2009) | %s | H + O 2-3 kg/s together (Jakosky et al. 2018) |\n' "$(col "$venus" 6)" "$(col "$earth" 6)" "$(col "$mars" 6)"
 printf '| O escape today | %s | O+ 2.7e24 s^-1 = 0.072 kg/s (Fedorov et al. 2011) | %s | polar O+ net ~1e25 s^-1 = 0.27 kg/s (Seki et al. 2001) | %s | (in the H + O total) |\n' "$(col "$venus" 7)" "$(col "$earth" 7)" "$(col "$mars" 7)"
-printf '| CO2 mole fraction | %s | 96.5 %% | %s | 280 ppmv pre-industrial | %s | ~95 %% |\n' "$(col "$venus" 8)" "$(col "$earth" 8)" "$(col "$mars" 8)"
+printf '| CO2 mole fraction | %s | 96.5 %% (NSSDC) | %s | 280 ppmv pre-industrial (Law Dome ice, Etheridge et al. 1996, JGR 101:4115, from memory) | %s | ~95 %% (NSSDC, from memory) |\n' "$(col "$venus" 8)" "$(col "$earth" 8)" "$(col "$mars" 8)"
 printf '| regime at the end | %s | dry | %s | temperate | %s | frozen, dry-ish |\n' "$(col "$venus" 9)" "$(col "$earth" 9)" "$(col "$mars" 9)"
 printf '| H2 mole fraction | %s | (not measured near the surface) | %s | 0.53 ppmv (Novelli et al. 1999; biological and industrial sources) | %s | 15 ppmv (Krasnopolsky & Feldman 2001) [C] |\n' "$(col "$venus" 10)" "$(col "$earth" 10)" "$(col "$mars" 10)"
-printf '| O2 | %s | < 1 ppmv above the clouds (from memory) | %s | 0.21 bar (biological) | %s | 0.13 %% = 8e-6 bar (Owen et al. 1977, from memory) |\n' "$(col "$venus" 11)" "$(col "$earth" 11)" "$(col "$mars" 11)"
+printf '| O2 | %s | < 1 ppmv above the clouds (upper limit, Trauger & Lunine 1983, Icarus, from memory) | %s | 0.21 bar (NSSDC; biological) | %s | 0.13 %% = 8e-6 bar (Owen et al. 1977, from memory) |\n' "$(col "$venus" 11)" "$(col "$earth" 11)" "$(col "$mars" 11)"
 printf '| oxidant gained from escape / taken by rock (kg O-equivalent; redox ledger) | %s | | %s | | %s | |\n' "$(col "$venus" 12)" "$(col "$earth" 12)" "$(col "$mars" 12)"
 printf '\n(regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway)\n\n'
 cat <<'TAIL'

@@ -168,6 +168,8 @@ Suite *vl_suite_star_mass(void)
     tcase_add_test(tc, ranges);
     suite_add_tcase(s, tc);
     TCase *sr = tcase_create("scenario");
+    /* the round trip writes into vl_scen_tmp_dir: made and removed around this case */
+    tcase_add_unchecked_fixture(sr, vl_scen_make_dir, vl_scen_remove_dir);
     tcase_add_test(sr, mass_set_over_a_file);
     tcase_add_test(sr, file_values_kept);
     tcase_add_test(sr, mass_only_file_and_round_trip);

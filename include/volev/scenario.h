@@ -238,4 +238,13 @@ void vl_scenario_print(const vl_scenario *sc, FILE *out);
 /* Print every process and the core groups: parameters, units, defaults, bounds, references. */
 void vl_params_print_reference(FILE *out);
 
+/* Source audit (docs/sources.md). vl_source_cites: 1 if ref names a paper, handbook,
+ * standard or dataset (an author, body or work followed by a year 1900-2029, or a
+ * dataset known by name: NSSDC, PREM). vl_source_from_memory: 1 if ref says "from
+ * memory" (recalled, not checked against the publication). vl_params_print_sources:
+ * the counts and lists of both kinds, as markdown (`volev processes --sources`). */
+int vl_source_cites(const char *ref);
+int vl_source_from_memory(const char *ref);
+void vl_params_print_sources(FILE *out);
+
 #endif

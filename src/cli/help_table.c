@@ -1,7 +1,7 @@
 /* help_table.c: every subcommand of volev, its synopsis, description, options and
  * examples (help.h). Each option list is read off the command's parser: args.c (run,
- * validate, balance, hz), args.c's vl_cli_take_age (--age-yr), sweep.c, plot.c, compare.c; processes.c
- * and columns.c take no arguments. A new option goes here and into the parser; the
+ * validate, balance, hz), args.c's vl_cli_take_age (--age-yr), sweep.c, plot.c, compare.c,
+ * processes.c; columns.c takes no arguments. A new option goes here and into the parser; the
  * man page's OPTIONS and README.md's command list follow (tests/test_help.c). */
 #include "cli.h"
 #include "help.h"
@@ -73,6 +73,14 @@ static const vl_cli_option compare_options[] = {
     {{"--labels", NULL}, "A,B",
      "names of the two runs in the table, file and legend (default: the folders' last "
      "path components, or the folders as given when those are the same)"},
+    END_OPTIONS,
+};
+
+static const vl_cli_option processes_options[] = {
+    {{"--sources", NULL}, NULL,
+     "instead, the audit of the sources: counts and lists of the defaults recalled "
+     "\"from memory\" and of those citing no paper, handbook or dataset (the text of "
+     "docs/sources.md)"},
     END_OPTIONS,
 };
 
@@ -176,13 +184,16 @@ const vl_cli_command vl_cli_commands[] = {
       {"volev compare wet dry -o wet-vs-dry --labels ocean,desert --format svg",
        "also wet-vs-dry/compare.csv and compare.svg"}}},
     {"processes", vl_cli_processes,
-     {"processes", NULL},
+     {"processes [--sources]", NULL},
      "list processes and parameters with units, defaults, bounds, references",
      "Print every parameter group and process: each parameter with its type, unit, "
      "default, bounds or choices, meaning and reference, and each process's output "
-     "columns (the text of docs/parameters.md).",
-     no_options,
-     {{"volev processes | less", "read the reference"}}},
+     "columns (the text of docs/parameters.md). With --sources, print instead which "
+     "defaults rest on values recalled 'from memory' and which cite no paper, handbook "
+     "or dataset, with their counts (the text of docs/sources.md).",
+     processes_options,
+     {{"volev processes | less", "read the reference"},
+      {"volev processes --sources | less", "the defaults a referee should check first"}}},
     {"columns", vl_cli_columns,
      {"columns", NULL},
      "list every output column and summary row with its unit and meaning",

@@ -42,7 +42,7 @@ const vl_param vl_core_params[] = {
          "star.luminosity_model=sun_analytic|constant|contracting"),
     REAL("star.present_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, star.present_age_s,
          "sun_analytic: age at which L = luminosity_lsun",
-         "Bahcall, Pinsonneault & Wasserburg 1995 (solar age 4.57 Gyr), from memory",
+         "Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781 (solar age 4.57 Gyr), from memory",
          "star.luminosity_model=sun_analytic"),
     REAL("star.contraction_end_yr", "yr", VL_YR, 1e9, 1e5, 1e11, star.contraction_end_s,
          "contracting: arrival on the main sequence (L ~ t^-2/3 before)",
@@ -69,11 +69,15 @@ const vl_param vl_core_params[] = {
          "Tobiska et al. 1997 (quiet Sun)", NULL),
     REAL("star.wind.mass_loss_msun_yr", "M_sun/yr", VL_M_SUN / VL_YR, 2e-14, 0.0, 1e-8,
          star.wind_mdot_kg_s, "wind mass-loss rate at wind.reference_age_yr",
-         "present Sun, from memory", NULL),
+         "present Sun, ~2e-14 M_sun/yr (Wood 2004, Living Rev. Sol. Phys. 1:2; the solar "
+         "value of Wood et al. 2005, ApJ 628:L143), from memory", NULL),
     REAL("star.wind.speed_km_s", "km/s", 1e3, 400.0, 10.0, 5000.0, star.wind_speed_m_s,
-         "wind speed at the planet", "present slow solar wind, from memory", NULL),
+         "wind speed at the planet",
+         "slow solar wind at 1 au, ~400 km/s (Kivelson & Russell 1995, Introduction to Space "
+         "Physics, Cambridge Univ. Press), from memory", NULL),
     REAL("star.wind.reference_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, star.wind_ref_age_s,
-         "age at which wind.mass_loss_msun_yr applies", "solar age, from memory", NULL),
+         "age at which wind.mass_loss_msun_yr applies",
+         "solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), from memory", NULL),
     REAL("star.wind.decay_exponent", "", 1.0, 2.33, 0.0, 5.0, star.wind_decay_exp,
          "Mdot ~ t^-exponent", "Wood et al. 2005, ApJ 628:L143, from memory", NULL),
 
@@ -89,58 +93,81 @@ const vl_param vl_core_params[] = {
          "common practice", NULL),
     REAL("planet.dipole_moment_earth", "M_earth_dipole", 8.0e22, 1.0, 0.0, 1e4, planet.dipole_am2,
          "magnetic dipole moment in units of Earth's 8.0e22 A m^2 (0: unmagnetised)",
-         "Earth's dipole moment, from memory", NULL),
+         "Earth's dipole moment, about 8e22 A m^2 through the late 20th century (IGRF; "
+         "IGRF-13, Alken et al. 2021, Earth Planets Space 73:49, gives ~7.7e22 for 2020), "
+         "from memory", NULL),
     REAL("planet.exobase.reference_temp_k", "K", 1.0, 1000.0, 100.0, 20000.0, planet.t_exo_ref_k,
          "exobase temperature at present Earth's XUV flux without CO2",
-         "present Earth's mean thermosphere, from memory", NULL),
+         "present Earth's mean thermosphere: exospheric temperature ~1000 K at moderate solar "
+         "activity in NRLMSISE-00 (Picone et al. 2002, JGR 107:1468), from memory", NULL),
     REAL("planet.exobase.xuv_exponent", "", 1.0, 0.5, 0.0, 2.0, planet.t_exo_xuv_exp,
          "T_exo ~ (F_XUV / 4.6e-3 W m^-2)^exponent",
          "order of the XUV response of Tian et al. 2008, from memory", NULL),
     REAL("planet.exobase.co2_cooling", "", 1.0, 3.7, 0.0, 100.0, planet.t_exo_co2_cooling,
          "T_exo divided by (1 + c x_CO2): 15-um CO2 cooling of the thermosphere",
-         "[C] from Venus' ~300 K dayside exobase at 1.9x Earth's XUV, from memory", NULL),
+         "[C] from Venus's ~300 K dayside exobase (VIRA, Keating et al. 1985, Adv. Space Res. "
+         "5(11):117) at 1.9x Earth's XUV, from memory", NULL),
     REAL("planet.exobase.thermosphere_base_pa", "Pa", 1.0, 0.1, 1e-6, 1e3, planet.thermo_base_pa,
          "pressure at the base of the thermosphere, taken as the homopause",
-         "Earth near 100 km, from memory", NULL),
+         "Earth's homopause near 100 km, where the pressure is ~0.03-0.1 Pa (U.S. Standard "
+         "Atmosphere 1976, NOAA/NASA/USAF), from memory", NULL),
     REAL("planet.exobase.cross_section_m2", "m^2", 1.0, 3e-19, 1e-21, 1e-16, planet.cross_section_m2,
          "collision cross-section in the exobase criterion n sigma H = 1",
          "Chamberlain & Hunten 1987, from memory", NULL),
     REAL("planet.induced_obstacle_rp", "R_planet", 1.0, 1.1, 1.0, 10.0, planet.obstacle_rp,
          "stand-off of the induced magnetosphere of an unmagnetised planet",
-         "Venus and Mars ionopause/induced boundary ~1.1-1.5 R, from memory", NULL),
+         "Venus and Mars ionopause/induced boundary ~1.1-1.5 R, e.g. Mars's magnetic pileup "
+         "boundary (Vignes et al. 2000, GRL 27:49, Mars Global Surveyor), from memory", NULL),
 
     /* ---- interior ---- */
     CHOICE("planet.interior.heat_flow_model", VL_HEAT_CHOICES, VL_HEAT_RADIOGENIC,
            interior.heat_model, "heat flow history: radiogenic decay, exponential or power law",
-           "docs/cycles.md", NULL),
+           "chosen here: the models of docs/cycles.md", NULL),
     REAL("planet.interior.present_heat_flow_tw", "TW", 1e12, 47.0, 0.0, 1e6, interior.heat_flow_w,
          "heat flow at the reference age", "Earth 47 +- 2 TW (Davies & Davies 2010)", NULL),
     REAL("planet.interior.reference_age_yr", "yr", VL_YR, 4.57e9, 1e6, 2e10, interior.ref_age_s,
-         "stellar age at which the heat flow is present_heat_flow_tw", "present solar age, from memory",
+         "stellar age at which the heat flow is present_heat_flow_tw",
+         "present solar age 4.57 Gyr (Bahcall, Pinsonneault & Wasserburg 1995, Rev. Mod. Phys. 67:781), "
+         "from memory",
          NULL),
     REAL("planet.interior.efold_gyr", "Gyr", 1e9 * VL_YR, 4.3, 0.1, 1e3, interior.efold_s,
          "exponential: e-folding time of the heat flow",
-         "radiogenic heat about twice today's 3 Gyr ago, from memory",
+         "chosen here: heat flow about twice today's 3 Gyr ago (e^(3/4.3) = 2.0); the "
+         "radiogenic model with its default shares gives 2.5 [C] (docs/cycles.md)",
          "planet.interior.heat_flow_model=exponential"),
     REAL("planet.interior.power_exponent", "", 1.0, 0.5, 0.0, 5.0, interior.power_exp,
-         "power_law: Q ~ (t / t_ref)^-exponent", "from memory",
+         "power_law: Q ~ (t / t_ref)^-exponent",
+         "chosen here: the t^-1/2 of a conductively cooling half-space (Turcotte & "
+         "Schubert 2002, Geodynamics, 2nd ed., ch. 4), not a fit to Earth's history",
          "planet.interior.heat_flow_model=power_law"),
     REAL("planet.interior.share_u238", "", 1.0, 0.39, 0.0, 1.0, interior.share[0],
-         "radiogenic: present share of the heat from U-238", "bulk silicate Earth, from memory",
+         "radiogenic: present share of the heat from U-238",
+         "bulk silicate Earth: U, Th and K of McDonough & Sun 1995 (Chem. Geol. 120:223) "
+         "with the heat production per kg of Turcotte & Schubert 2002 (Geodynamics, "
+         "Table 4.2) give U-238 0.39, U-235 0.02, Th-232 0.43, K-40 0.17, from memory",
          "planet.interior.heat_flow_model=radiogenic"),
     REAL("planet.interior.share_u235", "", 1.0, 0.02, 0.0, 1.0, interior.share[1],
-         "radiogenic: present share of the heat from U-235", "bulk silicate Earth, from memory",
+         "radiogenic: present share of the heat from U-235",
+         "bulk silicate Earth: U, Th and K of McDonough & Sun 1995 (Chem. Geol. 120:223) "
+         "with the heat production per kg of Turcotte & Schubert 2002 (Geodynamics, "
+         "Table 4.2) give U-238 0.39, U-235 0.02, Th-232 0.43, K-40 0.17, from memory",
          "planet.interior.heat_flow_model=radiogenic"),
     REAL("planet.interior.share_th232", "", 1.0, 0.40, 0.0, 1.0, interior.share[2],
-         "radiogenic: present share of the heat from Th-232", "bulk silicate Earth, from memory",
+         "radiogenic: present share of the heat from Th-232",
+         "bulk silicate Earth: U, Th and K of McDonough & Sun 1995 (Chem. Geol. 120:223) "
+         "with the heat production per kg of Turcotte & Schubert 2002 (Geodynamics, "
+         "Table 4.2) give U-238 0.39, U-235 0.02, Th-232 0.43, K-40 0.17, from memory",
          "planet.interior.heat_flow_model=radiogenic"),
     REAL("planet.interior.share_k40", "", 1.0, 0.19, 0.0, 1.0, interior.share[3],
-         "radiogenic: present share of the heat from K-40", "bulk silicate Earth, from memory",
+         "radiogenic: present share of the heat from K-40",
+         "bulk silicate Earth: U, Th and K of McDonough & Sun 1995 (Chem. Geol. 120:223) "
+         "with the heat production per kg of Turcotte & Schubert 2002 (Geodynamics, "
+         "Table 4.2) give U-238 0.39, U-235 0.02, Th-232 0.43, K-40 0.17, from memory",
          "planet.interior.heat_flow_model=radiogenic"),
     CHOICE("planet.interior.tectonics", VL_TECTONICS_CHOICES, VL_TECTONICS_MOBILE,
            interior.tectonics,
            "mobile lid (plate tectonics: subduction, spreading) or stagnant lid (no subduction)",
-           "docs/cycles.md", NULL),
+           "chosen here: the models of docs/cycles.md", NULL),
 
     /* ---- interior: a molten start (docs/model.md section 5b) ---- */
     BOOL("planet.interior.magma_ocean.molten_start", 0, interior.magma.molten_start,
@@ -158,7 +185,8 @@ const vl_param vl_core_params[] = {
          "1200 J/(kg K), Lebrun et al. 2013, from memory", MO_ONLY),
     REAL("planet.interior.magma_ocean.expansivity_per_k", "1/K", 1.0, 3e-5, 1e-6, 1e-3,
          interior.magma.mantle.alpha_k, "thermal expansivity (slope of the adiabat: d ln T/dp = alpha/(rho c_p))",
-         "order of silicate melts, from memory", MO_ONLY),
+         "order of mantle rock and silicate melts, 1-5e-5 1/K; Turcotte & Schubert 2002 "
+         "(Geodynamics, 2nd ed.) take 3e-5 for the mantle, from memory", MO_ONLY),
     REAL("planet.interior.magma_ocean.latent_heat_j_kg", "J/kg", 1.0, 4e5, 0.0, 2e6,
          interior.magma.mantle.latent_j_kg, "latent heat of silicate melting",
          "4e5 J/kg, Solomatov 2000 / Lebrun et al. 2013, from memory", MO_ONLY),
@@ -167,14 +195,16 @@ const vl_param vl_core_params[] = {
          "0.4, Lebrun et al. 2013", MO_ONLY),
     REAL("planet.interior.magma_ocean.core_radius_fraction", "", 1.0, 0.547, 0.0, 0.9,
          interior.magma.mantle.core_radius_frac, "core radius over planet radius",
-         "Earth 3480 / 6371 km (PREM)", MO_ONLY),
+         "Earth 3480 / 6371 km (PREM, Dziewonski & Anderson 1981, PEPI 25:297)", MO_ONLY),
     REAL("planet.interior.magma_ocean.feo_mass_fraction", "", 1.0, 0.0805, 0.0, 0.5,
          interior.magma.feo_fraction, "FeO mass fraction of the silicate (its oxygen capacity)",
          "bulk silicate Earth 8.05 wt%, McDonough & Sun 1995, Chem. Geol. 120:223", MO_ONLY),
 
     /* ---- inventory: initial amounts; bar = surface pressure the gas would exert alone ---- */
     REAL("inventory.surface_water_to", "TO", VL_TO_KG, 1.0, 0.0, 1e4, inventory.surface_water_kg,
-         "surface water (ocean + vapour)", "1 TO = 1.39e21 kg, from memory", NULL),
+         "surface water (ocean + vapour)",
+         "1 TO = 1.39e21 kg, the terrestrial ocean of Luger & Barnes 2015 (Astrobiology "
+         "15:119), from memory", NULL),
     REAL("inventory.mantle_water_to", "TO", VL_TO_KG, 0.0, 0.0, 1e4, inventory.mantle_water_kg,
          "water in the mantle available to outgassing", "", NULL),
     REAL("inventory.co2_bar", "bar", VL_BAR, 0.0, 0.0, 1e5, inventory.co2_pa,
@@ -198,7 +228,7 @@ const vl_param vl_core_params[] = {
     /* ---- climate ---- */
     CHOICE("climate.model", VL_CLIMATE_CHOICES, VL_CLIMATE_COLUMN, climate.model,
            "climate backend: radiative column, or habitable-zone fits",
-           "docs/model.md section 3", NULL),
+           "chosen here: docs/model.md section 3", NULL),
     REAL("climate.bond_albedo", "", 1.0, 0.3, 0.0, 0.95, climate.bond_albedo,
          "planetary Bond albedo (hz_fit; the column climate with climate.column.albedo = \"fixed\")",
          "present Earth, common practice", NULL),
@@ -207,7 +237,8 @@ const vl_param vl_core_params[] = {
          "calibration: 288 K for present Earth at 1361 W/m^2, albedo 0.3, 280 ppmv CO2", HZ_ONLY),
     REAL("climate.co2_doubling_k", "K", 1.0, 3.0, 0.0, 10.0, climate.co2_doubling_k,
          "equilibrium warming per doubling of CO2 (water-vapour feedback included)",
-         "IPCC AR6 WG1 best estimate 3 K (likely 2.5-4 K), from memory; AR5 likely range 1.5-4.5 K", HZ_ONLY),
+         "IPCC 2021 (AR6 WG1, ch. 7, Forster et al. 2021) best estimate 3 K (likely 2.5-4 K), "
+         "from memory; IPCC 2013 (AR5 WG1) likely range 1.5-4.5 K", HZ_ONLY),
     REAL("climate.co2_reference_bar", "bar", VL_BAR, 2.837e-4, 1e-9, 1e3, climate.co2_ref_pa,
          "CO2 partial pressure of the calibration state",
          "280 ppmv x 1.01325 bar (pre-industrial), common practice", HZ_ONLY),
@@ -240,10 +271,14 @@ const vl_param vl_core_params[] = {
          "Nat. Geosci. 6:661); docs/model.md section 3.4", COLUMN_ONLY),
     REAL("climate.column.h2o_nir_line_scale", "", 1.0, 1.0, 0.0, 100.0, climate.h2o_nir_line_scale,
          "factor on the tabulated near-infrared H2O line intensities (from 2000 cm^-1, 5 um)",
-         "1: the band intensities as tabulated (from memory); not calibrated", COLUMN_ONLY),
+         "1: the band intensities tabulated in src/physics/opacity.c, HITRAN band totals (e.g. "
+         "HITRAN2016, Gordon et al. 2017, JQSRT 203:3), from memory; not calibrated",
+         COLUMN_ONLY),
     REAL("climate.column.co2_line_scale", "", 1.0, 1.0, 0.0, 100.0, climate.co2_line_scale,
          "factor on the tabulated CO2 line intensities",
-         "1: the band intensities as tabulated (from memory); not calibrated", COLUMN_ONLY),
+         "1: the band intensities tabulated in src/physics/opacity.c, HITRAN band totals (e.g. "
+         "HITRAN2016, Gordon et al. 2017, JQSRT 203:3), from memory; not calibrated",
+         COLUMN_ONLY),
     REAL("climate.column.h2o_continuum_scale", "", 1.0, 1.0, 0.0, 100.0, climate.h2o_cont_scale,
          "factor on the H2O continuum",
          "1: Roberts, Selby & Biberman 1976 (Appl. Opt. 15:2085) in the window", COLUMN_ONLY),
@@ -253,7 +288,9 @@ const vl_param vl_core_params[] = {
          "765:131, erratum ApJ 770:82); docs/model.md section 3.4", COLUMN_ONLY),
     REAL("climate.column.cia_scale", "", 1.0, 1.0, 0.0, 100.0, climate.cia_scale,
          "factor on the other collision-induced absorption (N2-N2, H2-H2, H2-N2)",
-         "1: the tabulated coefficients (from memory)", COLUMN_ONLY),
+         "1: the coefficients tabulated in src/physics/opacity.c after Borysow & Frommhold "
+         "1986 (N2-N2), Borysow et al. 2001 (H2-H2) and Wordsworth & Pierrehumbert 2013, "
+         "Science 339:64 (H2-N2), from memory", COLUMN_ONLY),
     REAL("climate.column.stratosphere_offset_k", "K", 1.0, 14.0, 0.0, 100.0, climate.strat_offset_k,
          "stratosphere and cold trap this much colder than the skin temperature (OLR/2 sigma)^(1/4)",
          "Earth's cold trap near 200 K against a 214 K skin (Kasting 1988 used 200 K), common practice",
@@ -283,16 +320,23 @@ const vl_param vl_core_params[] = {
          "mean surface temperature above which ice no longer raises the albedo",
          "common practice", COLUMN_ONLY),
     REAL("climate.column.melt_albedo", "", 1.0, 0.1, 0.0, 1.0, climate.melt_albedo,
-         "albedo of a molten surface", "from memory (dark basaltic melt)", COLUMN_ONLY),
+         "albedo of a molten surface",
+         "order of magnitude, chosen here: dark basaltic melt, like fresh basalt (~0.1, from "
+         "memory); no measured albedo of a molten surface at hand", COLUMN_ONLY),
     REAL("climate.column.melt_start_temp_k", "K", 1.0, 1350.0, 500.0, 3000.0, climate.melt_start_k,
          "surface temperature where melt starts to cover the surface",
          "near the peridotite solidus at 1 bar, ~1400 K (Hirschmann 2000, G3 1:2000GC000070), "
          "from memory", COLUMN_ONLY),
     REAL("climate.column.melt_full_temp_k", "K", 1.0, 1650.0, 500.0, 3000.0, climate.melt_full_k,
-         "surface temperature above which the surface is all melt", "from memory", COLUMN_ONLY),
+         "surface temperature above which the surface is all melt",
+         "chosen here: about 40 % of the way from the solidus (melt_start_temp_k) to the "
+         "peridotite liquidus, ~2050 K at 1 bar (Katz, Spiegelman & Langmuir 2003, G3 "
+         "4:1073), near the rheological transition of Lebrun et al. 2013; from memory",
+         COLUMN_ONLY),
     REAL("climate.column.cloud_fraction", "", 1.0, 0.5, 0.0, 1.0, climate.cloud_fraction,
          "share of a wet planet's sky under the cloud layer (0: no clouds)",
-         "of the order of Earth's cloud cover (~0.6-0.7, from memory), common practice", COLUMN_ONLY),
+         "common practice, below Earth's cloud cover of ~0.66 (ISCCP, Rossow & Schiffer 1999, "
+         "Bull. Am. Meteorol. Soc. 80:2261), from memory", COLUMN_ONLY),
     REAL("climate.column.cloud_pressure_ratio", "", 1.0, 0.85, 1e-4, 0.99, climate.cloud_p_ratio,
          "level of the cloud layer: its pressure over the surface pressure",
          "low cloud near 850 hPa, where Earth's most reflective (stratocumulus) decks sit, "
@@ -322,12 +366,16 @@ const vl_param vl_core_params[] = {
          "escape parameter below which the flow is hydrodynamic",
          "~2-3, e.g. Volkov et al. 2011, from memory", NULL),
     BOOL("escape.radiative_cooling", 0, escape.cooling,
-         "reduce the heating efficiency by CO2 and H2O cooling", "off: documented option", NULL),
+         "reduce the heating efficiency by CO2 and H2O cooling",
+         "chosen here: off, an option (docs/escape.md)", NULL),
     REAL("escape.cooling_co2", "", 1.0, 3.7, 0.0, 1e3, escape.cool_co2,
          "c_CO2 in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)",
-         "as planet.exobase.co2_cooling, from memory", COOLING_ONLY),
+         "chosen here: the value of planet.exobase.co2_cooling (Venus's ~300 K dayside "
+         "exobase, Keating et al. 1985, Adv. Space Res. 5(11):117, from memory), applied "
+         "to the heating efficiency", COOLING_ONLY),
     REAL("escape.cooling_h2o", "", 1.0, 1.0, 0.0, 1e3, escape.cool_h2o,
-         "c_H2O in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)", "from memory", COOLING_ONLY),
+         "c_H2O in eps / (1 + c_CO2 x_CO2 + c_H2O f_strat)",
+         "order of magnitude, chosen here: 1; no calibration at hand", COOLING_ONLY),
     BOOL("escape.oxygen_drag", 1, escape.drag,
          "escaping hydrogen drags oxygen above the crossover flux and shares the energy-"
          "limited mass flux with it",
@@ -356,10 +404,12 @@ const vl_param vl_core_params[] = {
         "give up after this many accepted integrator steps", ""),
     INT("run.max_rhs_evaluations", 2000000, 1000, 1000000000000, run.max_rhs,
         "work bound: give up after this many right-hand-side evaluations (Jacobians included; exit 4)",
-        "at least 50 times what any bundled scenario needs (docs/hardening.md)"),
+        "chosen here: at least 50 times what any bundled scenario needs "
+        "(docs/hardening.md)"),
     REAL("run.max_cpu_s", "s", 1.0, 0.0, 0.0, 1e9, run.max_cpu_s,
          "work bound: give up after this much CPU time of the run's thread (exit 4); 0: no limit",
-         "off by default: CPU time depends on the machine, results must not", NULL),
+         "chosen here: off, since CPU time depends on the "
+         "machine and results must not", NULL),
 };
 
 const size_t vl_core_nparams = sizeof vl_core_params / sizeof vl_core_params[0];

@@ -48,28 +48,33 @@ static const vl_param table[] = {
       NULL),
     R("reference_age_yr", "yr", VL_YR, 1.0e8, 0.0, 2e10, ref_age_s,
       "t0: stellar age at which the early term equals early_rate_per_myr",
-      "4.47 Gyr ago in the solar system, after the Moon-forming impact, from memory", NULL),
+      "4.47 Gyr ago in the solar system, about the Moon-forming impact ~95 Myr after the "
+      "first solids (Jacobson et al. 2014, Nature 508:84), from memory", NULL),
     R("background_rate_per_myr", "1/Myr", PER_MYR, 5.0e-4, 0.0, 1e6, bg_per_s,
       "N_bg: constant background rate of large impacts",
       "impactors >~40 km across on Earth today, about one per 2 Gyr: the ~100 Myr interval of "
-      ">=10 km impactors scaled by a cumulative size distribution ~D^-2, from memory",
+      ">=10 km impactors (Chapman & Morrison 1994, Nature 367:33) scaled by a cumulative "
+      "size distribution ~D^-2, from memory",
       NULL),
     {"delivery", VL_PT_BOOL, "", 1.0, 0.0, 0.0, 1.0, NULL, NULL, offsetof(params, delivery),
      "impacts also deliver water, CO2 and N2 (from the impactor_* reservoirs)",
-     "off: the impactor population's volatile content is uncertain by orders of magnitude",
+     "chosen here: off, the impactor population's volatile content is uncertain by orders of magnitude",
      NULL, 0},
     R("water_per_impact_kg", "kg", 1.0, 1.0e15, 0.0, 1e22, water_kg,
       "water delivered by each impact",
-      "1 wt% of a 1e17 kg impactor (the tangent-plane threshold mass for Earth), between "
-      "ordinary and carbonaceous chondrites, from memory",
+      "1 wt% of a 1e17 kg impactor (the tangent-plane threshold mass for Earth, Schlichting, "
+      "Sari & Yalinewich 2015), between ordinary and carbonaceous chondrites (Lodders & "
+      "Fegley 1998, The Planetary Scientist's Companion, Oxford Univ. Press), from memory",
       NEEDS_DELIVERY),
     R("co2_per_impact_kg", "kg", 1.0, 7.0e14, 0.0, 1e22, co2_kg,
       "carbon delivered by each impact, as CO2",
-      "0.2 wt% C of a 1e17 kg impactor, chondritic order of magnitude, from memory",
+      "0.2 wt% C of a 1e17 kg impactor, chondritic order of magnitude (Lodders & Fegley "
+      "1998, The Planetary Scientist's Companion), from memory",
       NEEDS_DELIVERY),
     R("n2_per_impact_kg", "kg", 1.0, 1.0e13, 0.0, 1e22, n2_kg,
       "nitrogen delivered by each impact, as N2",
-      "100 ppm N of a 1e17 kg impactor, chondritic order of magnitude, from memory",
+      "100 ppm N of a 1e17 kg impactor, chondritic order of magnitude (Lodders & Fegley "
+      "1998, The Planetary Scientist's Companion), from memory",
       NEEDS_DELIVERY),
     R("water_dh_ratio", "", 1.0, 1.0, 0.0, 100.0, water_dh_ratio,
       "D/H of the delivered water over the inventory's (inventory.initial_dh)",

@@ -83,7 +83,8 @@ static const vl_param table[] = {
            "lavas (Kite, Manga & Gaidos 2009, ApJ 700:1732, from memory)"),
     R("mantle_mass_share", "", 1.0, 0.67, 0.01, 1.0, mantle_share,
       "mantle mass over planet mass (sets x_m = mantle water / mantle mass)",
-      "Earth's mantle 4.0e24 kg (from memory) over 5.9722e24 kg [C]"),
+      "[C] Earth's mantle 4.0e24 kg (PREM, Dziewonski & Anderson 1981, PEPI 25:297, "
+      "from memory) over 5.9722e24 kg (NASA NSSDC Earth fact sheet)"),
     R("seafloor_production_km2_yr", "km^2/yr", 1e6 / VL_YR, 3.0, 0.0, 1e4, prod_m2_s,
       "A_dot,ref: new seafloor per year on present Earth (ridge length x spreading rate); "
       "scaled by R_p/R_earth and (Q/Q_ref)^n",

@@ -28,7 +28,7 @@ static const vl_param table[] = {
       "is lower (Navarro-Gonzalez et al. 2001, Nature 412:61, from memory)"),
     R("buried_fraction", "", 1.0, 1.0, 0.0, 1.0, eps,
       "eps: share of the fixed nitrogen buried in the crust rather than returned to N2",
-      "1, the upper bound (no denitrification on a lifeless planet), our assumption"),
+      "chosen here: 1, the upper bound (no denitrification on a lifeless planet)"),
     R("reference_n2_kg", "kg", 1.0, 3.887e18, 1.0, 1e25, ref_n2_kg,
       "M_N2,ref: atmospheric N2 at which the fixation is F_fix",
       "present Earth 3.887e18 kg (NSSDC composition x atmospheric mass) [C]"),

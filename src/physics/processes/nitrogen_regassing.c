@@ -28,7 +28,8 @@ static const vl_param table[] = {
       "F_ref: N2 carried into the mantle on an Earth-sized planet at the reference heat flow "
       "and atmosphere",
       "equal to the default N2 outgassing (steady state today), common practice; "
-      "subduction-zone budgets put it near 1e-2 Tmol N2/yr (net ingassing), from memory"),
+      "subduction-zone budgets put it near 1e-2 Tmol N2/yr (net ingassing; review: Johnson "
+      "& Goldblatt 2015, Earth-Sci. Rev. 148:150), from memory"),
     R("reference_n2_kg", "kg", 1.0, 3.887e18, 1.0, 1e25, ref_n2_kg,
       "M_N2,ref: atmospheric N2 at which F = F_ref",
       "present Earth 3.887e18 kg (NSSDC composition x atmospheric mass) [C]"),

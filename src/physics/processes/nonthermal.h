@@ -49,14 +49,15 @@ typedef struct vl_nonthermal_params {
     ROW("photon_energy_ev", "eV", EV, 20.0, 1.0, 1000.0, photon_j,                      \
         "mean energy of an ionising XUV photon: at most one escaping particle per "     \
         "absorbed photon",                                                               \
-        "from memory (photon-number mean of the solar EUV, order 20 eV); a guard, "     \
-        "inactive at the reference")
+        "order of magnitude, chosen here: the photon-number mean of the solar EUV is of "\
+        "order 20 eV (from memory); a guard, inactive at the reference")
 
 /* Mars as the reference planet (pickup, sputtering, photochemical escape). */
 #define MARS_RADIUS_ROW                                                                  \
     ROW("reference_radius_km", "km", 1e3, 3389.5, 100.0, 1e5, radius_m,                  \
         "radius of the reference planet (rates scale with surface area)",               \
-        "Mars mean radius, NASA NSSDC planetary fact sheet, from memory")
+        "Mars mean radius 3389.5 km (IAU WGCCRE, Archinal et al. 2011, Celest. Mech. "  \
+        "Dyn. Astron. 109:101; NASA NSSDC Mars fact sheet), from memory")
 #define MARS_XUV_ROW                                                                     \
     ROW("reference_xuv_erg_cm2_s", "erg cm^-2 s^-1", 1e-3, 1.9806, 1e-6, 1e8, xuv_w_m2,  \
         "XUV flux (1-1200 A) at the reference planet",                                   \
@@ -64,13 +65,14 @@ typedef struct vl_nonthermal_params {
 #define MARS_WIND_ROW                                                                    \
     ROW("reference_wind_npa", "nPa", 1e-9, 0.7717, 1e-6, 1e10, wind_pa,                  \
         "stellar wind ram pressure at the reference planet",                             \
-        "[C] present solar wind 2e-14 M_sun/yr at 400 km/s (star.wind defaults, from "   \
-        "memory): 1.792 nPa at 1 au / 1.524^2")
+        "[C] present solar wind 2e-14 M_sun/yr at 400 km/s (the star.wind defaults: "    \
+        "Wood 2004; Kivelson & Russell 1995, from memory): 1.792 nPa at 1 au / "       \
+        "1.524^2")
 #define MARS_VESC_ROW                                                                    \
     ROW("reference_escape_speed_km_s", "km/s", 1e3, 4.885, 0.1, 100.0, v_esc_ref,        \
         "escape speed at the reference planet's exobase",                               \
-        "[C] sqrt(2 G M/r) for Mars (6.417e23 kg) at 200 km (exobase altitude, from "    \
-        "memory)")
+        "[C] sqrt(2 G M/r) for Mars (6.417e23 kg, NASA NSSDC Mars fact sheet) at 200 "  \
+        "km, Mars's exobase altitude as commonly taken (common practice)")
 
 
 /* The transfers and reactions every non-thermal process declares (vl_nonthermal_apply

@@ -57,10 +57,13 @@ static const vl_param table[] = {
       "mid-ocean-ridge flux, ~2 Tmol/yr (Marty & Tolstikhin 1998, Chem. Geol. 145:233, "
       "from memory)", NULL),
     R("n2_tmol_yr", "Tmol/yr", TMOL_YR, 1e-3, 0.0, 1e6, n2_mol_s,
-      "N2 outgassing at the reference age", "order of the mantle N flux, from memory", NULL),
+      "N2 outgassing at the reference age",
+      "order of the mantle N2 flux at ridges and arcs, ~1e9 mol/yr (Sano et al. 2001, "
+      "Chem. Geol. 171:263; review: Johnson & Goldblatt 2015, Earth-Sci. Rev. 148:150), "
+      "from memory", NULL),
     R("h2o_tmol_yr", "Tmol/yr", TMOL_YR, 0.0, 0.0, 1e6, h2o_mol_s,
       "net (juvenile) H2O outgassing at the reference age",
-      "0: arc water is recycled; net mantle exchange arrives with the interior cycles", FIXED),
+      "chosen here: 0, arc water is recycled; net mantle exchange arrives with the interior cycles", FIXED),
     {"water_source", VL_PT_CHOICE, "", 1.0, WATER_FIXED, 0.0, 0.0, "fixed|mantle_melt", NULL,
      offsetof(params, water_source),
      "fixed: water at h2o_tmol_yr; mantle_melt: the melt carries the mantle's water, in "
@@ -85,7 +88,8 @@ static const vl_param table[] = {
       "Cowan & Abbot 2014, ApJ 781:27, nominal degassing fraction 0.9, from memory", MELT),
     R("mantle_mass_share", "", 1.0, 0.67, 0.01, 1.0, mantle_share,
       "mantle mass over planet mass (sets x_m = mantle water / mantle mass)",
-      "Earth's mantle 4.0e24 kg (from memory) over 5.9722e24 kg [C]", MELT),
+      "[C] Earth's mantle 4.0e24 kg (PREM, Dziewonski & Anderson 1981, PEPI 25:297, "
+      "from memory) over 5.9722e24 kg (NASA NSSDC Earth fact sheet)", MELT),
     R("heat_flow_exponent", "", 1.0, 1.0, 0.0, 3.0, exponent,
       "m in V ~ (Q/Q0)^m (mobile lid)", "Lehmer et al. 2020: m = 1-2", MOBILE),
     R("stagnant_lid_factor", "", 1.0, 0.1, 0.0, 1.0, stagnant_factor,

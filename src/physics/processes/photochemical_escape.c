@@ -11,7 +11,8 @@ static const vl_param table[] = {
         "Mars photochemical O 4.3e25 s^-1 (Lillis et al. 2017, MAVEN)"),
     ROW("c_ref_per_s", "s^-1", 1.0, 1e24, 0.0, 1e35, ref[EL_C],
         "hot C escape at the reference (its oxygen stays as O2)",
-        "from memory, unverified: model estimates for present Mars of order 1e24 s^-1"),
+        "from memory, unverified: model estimates for present Mars of order 1e24 s^-1 "
+        "(e.g. Fox & Bakalian 2001, JGR 106, photochemical escape of atomic carbon)"),
     ROW("n_ref_per_s", "s^-1", 1.0, 1e24, 0.0, 1e35, ref[EL_N],
         "hot N escape at the reference (from N2)",
         "from memory, unverified: photochemical N escape at present Mars of order 1e24 "
@@ -23,11 +24,11 @@ static const vl_param table[] = {
     ROW("xuv_exponent", "", 1.0, 2.6, 0.0, 10.0, xuv_exp, "a in (F_XUV/F_ref)^a",
         "Lillis et al. 2017: escape ~ CO2 photoionisation frequency^(2.6 +- 0.6)"),
     ROW("wind_exponent", "", 1.0, 0.0, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
-        "0: recombination is driven by photoionisation, not by the wind"),
+        "chosen here: 0, recombination is driven by photoionisation, not by the wind"),
     ROW("energy_spread_ev", "eV", EV, 0.2, 0.01, 5.0, spread_j,
         "width of the logistic step that smooths each recombination channel's energy",
-        "[C] lab-frame spread 2 sqrt(E kT_i) ~ 0.4 eV for T_i ~ 300 K (ion temperature, "
-        "from memory)"),
+        "[C] lab-frame spread 2 sqrt(E kT_i) ~ 0.4 eV for T_i ~ 300 K (Mars's lower "
+        "ionosphere, Viking: Hanson, Sanatani & Zuccaro 1977, JGR 82:4351, from memory)"),
     PHOTON_ROW,
 };
 

@@ -12,7 +12,8 @@ static const vl_param table[] = {
         "(Seki et al. 2001): an upper value for the mean"),
     ROW("h_ref_per_s", "s^-1", 1.0, 2.6e25, 0.0, 1e35, ref[EL_H],
         "H+ loss by polar outflow (polar wind) at the reference",
-        "[C] polar wind ~1e8 H+ cm^-2 s^-1 (from memory) over Earth's open caps 2.6e17 cm^2"),
+        "[C] polar wind ~1e8 H+ cm^-2 s^-1 (Schunk & Nagy 2009, Ionospheres, 2nd ed., "
+        "Cambridge Univ. Press, from memory) over Earth's open caps 2.6e17 cm^2"),
     ROW("reference_radius_km", "km", 1e3, 6371.0, 100.0, 1e5, radius_m,
         "radius of the reference planet", "Earth mean radius, NASA NSSDC"),
     ROW("reference_xuv_erg_cm2_s", "erg cm^-2 s^-1", 1e-3, 4.6, 1e-6, 1e8, xuv_w_m2,
@@ -20,15 +21,17 @@ static const vl_param table[] = {
         "present Sun at 1 au (Ribas et al. 2005) [C]"),
     ROW("reference_wind_npa", "nPa", 1e-9, 1.792, 1e-6, 1e10, wind_pa,
         "stellar wind ram pressure at the reference planet",
-        "[C] 2e-14 M_sun/yr at 400 km/s (star.wind defaults, from memory) at 1 au"),
+        "[C] 2e-14 M_sun/yr at 400 km/s (the star.wind defaults: Wood 2004; Kivelson & "
+        "Russell 1995, from memory) at 1 au"),
     ROW("reference_magnetopause_rp", "R_planet", 1.0, 10.0, 1.0, 1e3, mp_ref_rp,
         "magnetopause stand-off of the reference planet (sets its open-cap area)",
-        "Earth ~10 R_E (textbook 10-11)"),
+        "Earth ~10 R_E (textbook 10-11 R_E: Kivelson & Russell 1995, Introduction to Space "
+        "Physics, Cambridge Univ. Press), from memory"),
     ROW("xuv_exponent", "", 1.0, 1.0, 0.0, 10.0, xuv_exp, "a in (F_XUV/F_ref)^a",
         "from memory: O+ outflow rises several-fold over the solar cycle while the EUV "
         "changes two- to three-fold (Yau et al. 1985); 1 is the low end"),
     ROW("wind_exponent", "", 1.0, 0.0, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
-        "0: the wind acts through the open-cap area (~p^(1/6) for a distant magnetopause); "
+        "chosen here: 0, the wind acts through the open-cap area (~p^(1/6) for a distant magnetopause); "
         "b = 1 gives of order 1e5 kg/s of O around young M dwarfs (docs/escape.md)"),
     PHOTON_ROW,
     H_CAP_ROW,

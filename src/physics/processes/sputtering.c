@@ -11,10 +11,10 @@ static const vl_param table[] = {
         "(Luhmann, Johnson & Zhang 1992), from memory"),
     ROW("c_ref_per_s", "s^-1", 1.0, 0.0, 0.0, 1e35, ref[EL_C],
         "sputtered CO2 escape at the reference (one C and two O each)",
-        "0: no verified present-day rate at hand; set it to study C loss"),
+        "chosen here: 0, no verified present-day rate at hand; set it to study C loss"),
     ROW("n_ref_per_s", "s^-1", 1.0, 0.0, 0.0, 1e35, ref[EL_N],
         "sputtered N escape at the reference (from N2)",
-        "0: no verified present-day rate at hand; set it to study N loss"),
+        "chosen here: 0, no verified present-day rate at hand; set it to study N loss"),
     MARS_RADIUS_ROW,
     MARS_XUV_ROW,
     MARS_WIND_ROW,
@@ -23,13 +23,13 @@ static const vl_param table[] = {
         "as ion_pickup: the re-impacting ions are pickup ions (conservative: sputtering "
         "grew faster than pickup into the past in Luhmann et al. 1992, from memory)"),
     ROW("wind_exponent", "", 1.0, 0.5, 0.0, 10.0, wind_exp, "b in (p_sw/p_ref)^b",
-        "as ion_pickup"),
+        "as ion_pickup.wind_exponent (Edberg et al. 2010, from memory)"),
     ROW("escape_energy_exponent", "", 1.0, 3.0, 0.0, 10.0, gravity_exp,
         "s in (v_ref/v_esc)^(2 s)",
         "[C] 2 (ion_pickup, the incoming ions) + 1 (escaping share of a sputtered E^-2 "
         "energy tail ~ 1/E_esc, Johnson 1994, from memory)"),
     ROW("shielding_exponent", "", 1.0, 2.0, 0.0, 10.0, shield_exp,
-        "k in the exposure (r_obs/r_mp)^k", "as ion_pickup (invented)"),
+        "k in the exposure (r_obs/r_mp)^k", "chosen here (invented): as ion_pickup"),
     PHOTON_ROW,
 };
 

@@ -48,7 +48,8 @@ static const vl_param table[] = {
     R("heat_flow_exponent", "", 1.0, 1.0, 0.0, 3.0, exponent,
       "m in F ~ (Q/Q0)^m", "as outgassing (Lehmer et al. 2020: m = 1-2)", NULL),
     R("stagnant_lid_factor", "", 1.0, 0.1, 0.0, 1.0, stagnant_factor,
-      "volcanic flux under a stagnant lid over the mobile-lid flux", "as outgassing, from memory",
+      "volcanic flux under a stagnant lid over the mobile-lid flux", "as outgassing: a stagnant lid processes an order "
+      "of magnitude less mantle (Tosi et al. 2017, A&A 605:A71), from memory",
       STAGNANT),
     R("mantle_delta_fmq", "log10", 1.0, 0.0, -6.0, 4.0, delta_fmq,
       "oxygen fugacity of the melts' mantle source relative to the FMQ buffer",
