@@ -63,9 +63,10 @@ int vl_cli_start(int argc, char **argv, int allow_out, vl_cli_args *a, vl_scenar
     if (rc)
         return rc;
     *sc = vl_scenario_load(a->scenario, a->sets, a->nsets, st);
-    for (int k = 0; *sc && k < (*sc)->nwarnings && k < VL_SCENARIO_WARNINGS; k++)
-        fprintf(stderr, "volev: warning: %s: %s\n", a->scenario, (*sc)->warnings[k]);
     *m = *sc ? vl_model_new(*sc, st) : NULL;
+    /* the scenario's warnings, once it is known to be usable (an error stays one line) */
+    for (int k = 0; *m && k < (*sc)->nwarnings && k < VL_SCENARIO_WARNINGS; k++)
+        fprintf(stderr, "volev: warning: %s: %s\n", a->scenario, (*sc)->warnings[k]);
     return 0;
 }
 
