@@ -44,6 +44,13 @@ typedef struct {
  * into idx; returns their number (active.c). */
 int vl_active_components(const vl_model *m, const double *y0, int *idx);
 
+/* Remove the element imbalances of a finite-difference Jacobian column col (the active
+ * components of d f / d y_j) with the smallest change weighted by each entry's round-off
+ * scale, the gross tendencies of the right-hand side's last evaluation in ode->w (the
+ * column's own), so that every element's total is conserved by the Newton corrections
+ * (jacobian_balance.c). */
+void vl_jacobian_balance(const vl_ode *ode, double *col);
+
 /* CVODE with its context, state vector (the active components), tolerances, dense
  * matrix and solver sized to them; the steps
  * taken before its last re-initialisation (which resets CVODE's own count), and the

@@ -105,6 +105,7 @@ static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vec
         c->yt[j] = yj;
         for (int i = 0; i < c->na; i++)
             col[i] = (c->f1[c->idx[i]] - f0[i]) / h;
+        vl_jacobian_balance(c, col); /* its round-off must not make or lose matter */
     }
     return 0;
 }
