@@ -96,6 +96,8 @@ int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restar
                     vl_status *st);
 /* The state at t within the last step (CVODE's interpolating polynomial). */
 int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st);
+/* Its time derivative at t (the polynomial's, the history the next step extrapolates). */
+int vl_stepper_slope(vl_stepper *s, double t, double *dydt, vl_status *st);
 /* The armed reservoirs whose root function vanished at the last root (bit r). */
 unsigned long vl_stepper_exhausted(vl_stepper *s, unsigned long armed);
 /* Accepted steps and Jacobian evaluations so far, re-initialisations included. */
