@@ -69,7 +69,7 @@ START_TEST(columns_conserve_within_round_off)
         int j = c.idx[k];
         if (j >= VL_NRES)
             continue;
-        /* the stepper's increment (stepper.c) */
+        /* the stepper's increment at the start of a run (stepper.c) */
         double h = sqrt(DBL_EPSILON) * fmax(fabs(y[j]), vl_reservoir_floor(j));
         double yj = y[j];
         y[j] = yj + h;
