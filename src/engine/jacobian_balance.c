@@ -39,13 +39,16 @@
 #define SV_CUT 1e-12
 
 /* The gross tendency of every state component at w's last evaluation (kg/s): the sum of
- * the magnitudes of the process rows that wrote it. */
+ * the magnitudes of the process rows that may write it, in the rows' own summation order
+ * (rhs.c), so that the result does not depend on the order processes are registered in
+ * (tests/test_contract.c). */
 static void gross_rows(const vl_model *m, const vl_work *w, double *gross)
 {
     for (int r = 0; r < VL_NRES; r++) {
         double s = 0.0;
-        for (size_t p = 0; p < m->nproc; p++)
-            s += fabs(w->rows[p][r]);
+        const size_t *who = w->touch + (size_t)r * m->nproc;
+        for (size_t k = 0; k < w->ntouch[r]; k++)
+            s += fabs(w->rows[who[k]][r]);
         gross[r] = s;
     }
 }
