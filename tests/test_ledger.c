@@ -169,6 +169,53 @@ START_TEST(ramp_stops_outflow)
 }
 END_TEST
 
+START_TEST(reversal_takes_only_what_is_there)
+{
+    /* A source the integrator carried below zero reverses its outflows (the ramp's 2 x,
+     * flux.h); the reversed flow draws on the destination and so is ramped by it in turn:
+     * it never takes from an empty reservoir (non-negativity of a mass, common practice;
+     * the negative escape flux of campaign member 29, issue 18, took 1.2e6 kg out of a
+     * space_o that never held any). */
+    double y[VL_NSTATE] = {0}, dydt[VL_NSTATE] = {0};
+    static const vl_transfer o2_out[] = {{VL_R_O2, VL_R_SPACE_O}};
+    vl_flux fx = {y, dydt, NULL, 0, o2_out, 1, NULL, 0};
+    const double demand = 7.0, band = demand * VL_DRAIN_TIME_S; /* kg/s; kg */
+    y[VL_R_O2] = -2.2e7;
+    y[VL_R_SPACE_O] = 0.0;
+    ck_assert_double_eq(vl_flux_transfer(&fx, 0, demand, -1), 0.0);
+    ck_assert_double_eq(dydt[VL_R_SPACE_O], 0.0);
+    /* a destination that holds plenty gives the whole restoring flow, demand x 2 x with
+     * x = m / band: -2 x 2.2e7 kg / 1e6 s = -44 kg/s [C] */
+    y[VL_R_SPACE_O] = 1e12;
+    double back = vl_flux_transfer(&fx, 0, demand, -1);
+    ck_assert_rel(back, demand * 2.0 * (-2.2e7 / band), 1e-12);
+    ck_assert_rel(dydt[VL_R_O2], 44.0, 1e-12);
+    ck_assert_rel(dydt[VL_R_SPACE_O], -44.0, 1e-12);
+    /* one inside its own band (here its floor is below the 44 kg/s x 1e6 s band) gives
+     * its ramp's share, x (2 - x) at a quarter of the band = 0.4375 [C] */
+    y[VL_R_SPACE_O] = 0.25 * 44.0 * VL_DRAIN_TIME_S;
+    ck_assert_rel(vl_flux_transfer(&fx, 0, demand, -1), -44.0 * 0.4375, 1e-12);
+    /* a demand of the wrong sign is a process's error, not a ramp's reversal: it is left
+     * as it is, for the invariant guard to see (tests/test_invariants.c) */
+    y[VL_R_O2] = 1e12;
+    y[VL_R_SPACE_O] = 0.0;
+    ck_assert_double_eq(vl_flux_transfer(&fx, 0, -demand, -1), -demand);
+    /* a reaction run backwards by a reactant below zero takes from its products as far
+     * as they hold: 2 H2 + O2 -> 2 H2O with the O2 below zero and no water gives none */
+    static const vl_reaction ox[] = {
+        {"2 H2 + O2 -> 2 H2O", 3, {VL_R_H2, VL_R_O2, VL_R_WATER}, {-2.0, -1.0, 2.0}}};
+    memset(dydt, 0, VL_NSTATE * sizeof dydt[0]);
+    vl_flux rx = {y, dydt, NULL, 0, NULL, 0, ox, 1};
+    y[VL_R_H2] = 1e12;
+    y[VL_R_O2] = -2.2e7;
+    y[VL_R_WATER] = 0.0;
+    ck_assert_double_eq(vl_flux_react(&rx, 0, 1.0, -1), 0.0);
+    y[VL_R_WATER] = 1e20; /* an ocean gives the O2 back: the reaction runs backwards */
+    ck_assert(vl_flux_react(&rx, 0, 1.0, -1) < 0.0);
+    ck_assert(dydt[VL_R_O2] > 0.0 && dydt[VL_R_WATER] < 0.0);
+}
+END_TEST
+
 Suite *vl_suite_ledger(void)
 {
     Suite *s = suite_create("ledger");
@@ -178,6 +225,7 @@ Suite *vl_suite_ledger(void)
     tcase_add_test(tc, reactions_balance);
     tcase_add_test(tc, molar_masses);
     tcase_add_test(tc, ramp_stops_outflow);
+    tcase_add_test(tc, reversal_takes_only_what_is_there);
     suite_add_tcase(s, tc);
     return s;
 }

@@ -48,7 +48,9 @@ double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s);
 double vl_flux_ramp(int r, double m_kg);
 
 /* Move kg_s (>= 0) along the process's declared transfer k. The applied rate (after the
- * ramp) is added to the process's column col (if col >= 0) and returned. */
+ * ramp) is added to the process's column col (if col >= 0) and returned. A flow the ramp
+ * reverses (the source below zero) is ramped in turn by the destination it now draws
+ * on, and never draws on an empty one (flux.c, give_back). */
 double vl_flux_transfer(vl_flux *fx, int k, double kg_s, int col);
 
 /* The same, with hydrogen carrying deuterium at f_d times the source's D/H (the
@@ -57,8 +59,9 @@ double vl_flux_transfer(vl_flux *fx, int k, double kg_s, int col);
 double vl_flux_transfer_f(vl_flux *fx, int k, double kg_s, int col, double f_d);
 
 /* Run the process's declared reaction k at extent rate mol_s (>= 0): reservoir i
- * changes by nu_i * M_i * rate. Ramped by every consumed reservoir. Column col gets the
- * mass rate of the first term, kg/s. Returns the applied extent rate, mol/s. */
+ * changes by nu_i * M_i * rate. Ramped by every consumed reservoir; run backwards by a
+ * ramp (a consumed reservoir below zero), also by every product it then draws on. Column
+ * col gets the mass rate of the first term, kg/s. Returns the applied extent rate, mol/s. */
 double vl_flux_react(vl_flux *fx, int k, double mol_s, int col);
 
 /* The same with deuterium fractionation f_d (see vl_flux_transfer_f): deuterium leaves

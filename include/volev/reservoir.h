@@ -49,7 +49,8 @@ enum vl_species {
     X(OX_ROCK, "oxidised_rock", VL_SP_O, 1.0e3, "oxygen bound in oxidised rock")              \
     X(MELT_O, "mantle_ferric_oxygen", VL_SP_O, 1.0e3,                                         \
       "oxygen bound in the mantle's ferric iron, taken up while it was molten")               \
-    /* space: contiguous (SPACE_H..SPACE_D), read by no process (the Jacobian skips them) */ \
+    /* space: contiguous (SPACE_H..SPACE_D), read by no process (the Jacobian skips them;  \
+     * only a flow reversed into its source below zero sees how much space can give) */  \
     X(SPACE_H, "space_h", VL_SP_H, 1.0e3, "hydrogen lost to space")                           \
     X(SPACE_C, "space_c", VL_SP_C, 1.0e3, "carbon lost to space")                             \
     X(SPACE_N, "space_n", VL_SP_N, 1.0e3, "nitrogen lost to space")                           \

@@ -27,6 +27,37 @@ double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s)
 
 double vl_flux_ramp(int r, double m_kg) { return vl_flux_ramp_for(r, m_kg, 0.0); }
 
+/* The share of a reversed flow that its giver r can supply. A flow reverses when the
+ * ramp of a source the integrator carried below zero turns negative (above): the
+ * receiving end then gives back, and a giver is a source like any other, so its own
+ * ramp at the reversed rate kg_s applies, never below 0: a reversal never takes from an
+ * empty reservoir (nor from one below zero: reversals do not chain), and the dip then
+ * stays as it is, within the tolerances that let it happen. Without this a reversal
+ * made matter out of nothing: 2.2e7 kg of O2 left below zero after 8e18 kg of it had
+ * gone into rock and, last, into water by H2 oxidation (below the 8e11 kg that rel_tol
+ * allows a reservoir that held 8e18 kg) reversed the Jeans escape of oxygen a gigayear
+ * later at 44 kg/s and took 1.2e6 kg from a space_o that never held any (campaign
+ * member 29, issue 18). Space is read only here, and only by such a reversal. */
+static double give_back(const vl_flux *fx, int r, double kg_s)
+{
+    double g = vl_flux_ramp_for(r, fx->y[r], kg_s);
+    return g > 0.0 ? g : 0.0;
+}
+
+/* The share of a reaction run backwards at rate mol/s (< 0) that its products can give
+ * back: the scarcest one's (give_back). */
+static double products_give(const vl_flux *fx, const vl_reaction *r, double rate)
+{
+    double g = 1.0;
+    for (int i = 0; i < r->n; i++)
+        if (r->nu[i] > 0.0) {
+            int res = r->res[i];
+            double kg_s = -r->nu[i] * vl_species_molar_mass(vl_reservoir_species(res)) * rate;
+            g = fmin(g, give_back(fx, res, kg_s));
+        }
+    return g;
+}
+
 /* Deuterium carried by hydrogen leaving reservoir `from` at rate kg/s (of `from`'s
  * species; demand kg/s before the depletion ramp): the same share of its deuterium
  * companion, times the fractionation factor f_d (D/H of the flux over D/H of the
@@ -83,6 +114,8 @@ double vl_flux_transfer_f(vl_flux *fx, int k, double kg_s, int col, double f_d)
         undeclared("transfer", k, fx->ntransfers);
     int from = fx->transfers[k].from, to = fx->transfers[k].to;
     double rate = kg_s * vl_flux_ramp_for(from, fx->y[from], kg_s);
+    if (kg_s > 0.0 && rate < 0.0) /* reversed by the ramp: `to` gives back what it can */
+        rate *= give_back(fx, to, -rate);
     fx->dydt[from] -= rate;
     fx->dydt[to] += rate;
     int dto = vl_reservoir_deuterium(to), dfrom = vl_reservoir_deuterium(from);
@@ -132,6 +165,8 @@ double vl_flux_react_f(vl_flux *fx, int k, double mol_s, int col, double f_d)
                 lim = ramp;
         }
     double rate = mol_s * lim;
+    if (mol_s > 0.0 && rate < 0.0) /* reversed by a ramp: the products give back */
+        rate *= products_give(fx, r, rate);
     double d_total = 0.0, h_products = 0.0;
     for (int i = 0; i < r->n; i++) {
         int res = r->res[i];

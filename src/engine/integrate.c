@@ -276,6 +276,41 @@ static int handle_event(runner_t *r, double t0, vl_status *st)
     return rc;
 }
 
+/* A dip the step history carries on against the reservoir's own tendency: below zero by
+ * more than its tolerance, still falling along CVODE's polynomial fast enough to fall by
+ * another tolerance within the run's present age, while the right-hand side there lowers
+ * it at less than half that rate (or raises it). That is a Newton
+ * iteration that converged falsely on a stale Jacobian: one from before the reservoir
+ * emptied, stiff in it (a sink with a lifetime of days), makes the corrections of its
+ * component vanishingly small, so the steps follow the predictor's slope and the dip
+ * grows for as long as the Jacobian is kept (campaign seed 1 member 12: atm_o2 fell at a
+ * steady 4.8e-8 kg/s for a gigayear after H2 had oxidised it, to -1.7e9 kg, while its
+ * tendency was +4e-14 kg/s; issue 18). The stepper restarts there, as after an event: a
+ * fresh history and Jacobian, from which the dip follows its tendency. Rare (only with a
+ * reservoir that deep below zero) and one evaluation to tell. */
+static int stale_dip(runner_t *r, vl_status *st)
+{
+    int deep = 0;
+    for (int q = 0; q < VL_NRES && !deep; q++)
+        deep = r->y[q] < -vl_guard_dip_tolerance(&r->guard, q);
+    if (!deep)
+        return VL_OK;
+    double slope[VL_NSTATE], f[VL_NSTATE];
+    if (vl_stepper_slope(r->s, r->t, slope, st) != VL_OK)
+        return st->code;
+    r->ode->rhs_calls++;
+    vl_model_rhs(r->m, r->ode->w, r->t, r->y, r->ode->regime, f, NULL, NULL);
+    for (int q = 0; q < VL_NRES; q++) {
+        double tol = vl_guard_dip_tolerance(&r->guard, q);
+        if (r->y[q] < -tol && -slope[q] * r->t > tol && f[q] > 0.5 * slope[q]) {
+            r->stats->restarts++;
+            return vl_stepper_restart(r->s, r->t, r->y,
+                                      fmax(r->m->sc->run.event_tol_s, 1e-9 * r->t), st);
+        }
+    }
+    return VL_OK;
+}
+
 /* Step to the run's end: rows at the output ages in passing, events at the roots. */
 static int advance(runner_t *r, vl_status *st)
 {
@@ -293,6 +328,7 @@ static int advance(runner_t *r, vl_status *st)
         } else {
             vl_events_at(r->ode, r->t, r->y, r->now);
             account(r, t0);
+            rc = stale_dip(r, st);
         }
     }
     return rc;

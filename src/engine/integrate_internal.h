@@ -44,6 +44,13 @@ typedef struct {
  * into idx; returns their number (active.c). */
 int vl_active_components(const vl_model *m, const double *y0, int *idx);
 
+/* Remove the element imbalances of a finite-difference Jacobian column col (the active
+ * components of d f / d y_j) with the smallest change weighted by each entry's round-off
+ * scale, the gross tendencies of the right-hand side's last evaluation in ode->w (the
+ * column's own), so that every element's total is conserved by the Newton corrections
+ * (jacobian_balance.c). */
+void vl_jacobian_balance(const vl_ode *ode, double *col);
+
 /* CVODE with its context, state vector (the active components), tolerances, dense
  * matrix and solver sized to them; the steps
  * taken before its last re-initialisation (which resets CVODE's own count), and the
@@ -89,6 +96,8 @@ int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restar
                     vl_status *st);
 /* The state at t within the last step (CVODE's interpolating polynomial). */
 int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st);
+/* Its time derivative at t (the polynomial's, the history the next step extrapolates). */
+int vl_stepper_slope(vl_stepper *s, double t, double *dydt, vl_status *st);
 /* The armed reservoirs whose root function vanished at the last root (bit r). */
 unsigned long vl_stepper_exhausted(vl_stepper *s, unsigned long armed);
 /* Accepted steps and Jacobian evaluations so far, re-initialisations included. */

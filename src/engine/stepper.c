@@ -105,6 +105,7 @@ static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vec
         c->yt[j] = yj;
         for (int i = 0; i < c->na; i++)
             col[i] = (c->f1[c->idx[i]] - f0[i]) / h;
+        vl_jacobian_balance(c, col); /* its round-off must not make or lose matter */
     }
     return 0;
 }
@@ -256,17 +257,37 @@ int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restar
     return VL_OK;
 }
 
-int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st)
+/* Derivative k of CVODE's interpolating polynomial at t, the active components into p. */
+static int dky(vl_stepper *s, double t, int k, double *p, vl_status *st)
 {
-    double p[VL_NSTATE];
     N_Vector v = N_VMake_Serial(s->ode->na, p, s->ctx);
-    int rc = v ? CVodeGetDky(s->cv, t, 0, v) : -1;
+    int rc = v ? CVodeGetDky(s->cv, t, k, v) : -1;
     if (v)
         N_VDestroy(v);
     if (rc)
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "no dense output at age %.6g yr: %s",
                        t / VL_YR, s->msg);
+    return VL_OK;
+}
+
+int vl_stepper_dense(vl_stepper *s, double t, double *y, vl_status *st)
+{
+    double p[VL_NSTATE];
+    if (dky(s, t, 0, p, st) != VL_OK)
+        return st->code;
     memcpy(y, unpack(s->ode, p), VL_NSTATE * sizeof *y);
+    return VL_OK;
+}
+
+int vl_stepper_slope(vl_stepper *s, double t, double *dydt, vl_status *st)
+{
+    double p[VL_NSTATE];
+    if (dky(s, t, 1, p, st) != VL_OK)
+        return st->code;
+    for (int j = 0; j < VL_NSTATE; j++) /* the fixed components do not move */
+        dydt[j] = 0.0;
+    for (int k = 0; k < s->ode->na; k++)
+        dydt[s->ode->idx[k]] = p[k];
     return VL_OK;
 }
 
