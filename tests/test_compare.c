@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "suites.h"
+#include "volev/reservoir.h"
 
 static char tmpdir[256];
 
@@ -246,9 +247,16 @@ START_TEST(table_csv_and_figure)
     ck_assert_int_eq(table_row(out, "final_surface_water_to", "TO", cells, 8), 6);
     ck_assert_str_eq(cells[2], wa);
     ck_assert_str_eq(cells[3], wb);
-    /* B-A and B/A from the same two summary values */
+    /* B-A from the same two summary values; no B/A: the dry run ends without surface
+     * water (a ratio with 0 means nothing, docs/figures.md) */
     assert_close_text(cells[4], strtod(wb, NULL) - strtod(wa, NULL));
-    assert_close_text(cells[5], strtod(wb, NULL) / strtod(wa, NULL));
+    ck_assert_str_eq(wb, "0");
+    ck_assert_str_eq(cells[5], "\xe2\x80\x94");
+    /* B/A where both runs keep the quantity: water lost to space */
+    const char *la_ = summary_value(sw, nw, "water_lost_to_space", "TO");
+    const char *lb_ = summary_value(sd, nd, "water_lost_to_space", "TO");
+    ck_assert_int_eq(table_row(out, "water_lost_to_space", "TO", cells, 8), 6);
+    assert_close_text(cells[5], strtod(lb_, NULL) / strtod(la_, NULL));
 
     /* ocean_lost: the dry run's first one from its events.csv; the wet run's from its
      * own events.csv, or "never" when it has none */
@@ -279,11 +287,11 @@ START_TEST(table_csv_and_figure)
     while (l[i] && l[i][0] == '#')
         i++;
     ck_assert_ptr_nonnull(l[i]);
-    ck_assert_str_eq(l[i], "quantity,unit,a,b,difference,ratio");
+    ck_assert_str_eq(l[i], "quantity,unit,a,b,difference,ratio,group");
     size_t nsum = 0, nev = 0;
     for (i++; l[i]; i++) {
         char *f[8];
-        ck_assert_msg(fields(l[i], ',', f, 8) == 6, "compare.csv row '%s'", l[i]);
+        ck_assert_msg(fields(l[i], ',', f, 8) == 7, "compare.csv row '%s'", l[i]);
         const char *a, *b;
         if (strncmp(f[0], "event:", 6) == 0) {
             ck_assert_str_eq(f[1], "yr");
@@ -301,9 +309,10 @@ START_TEST(table_csv_and_figure)
         if (a && b) {
             double va = strtod(a, NULL), vb = strtod(b, NULL);
             assert_close_text(f[4], vb - va);
-            if (va != 0.0)
+            /* a ratio, where given, is b / a; never with a zero (docs/figures.md) */
+            if (f[5][0])
                 assert_close_text(f[5], vb / va);
-            else
+            if (va == 0.0 || vb == 0.0)
                 ck_assert_str_eq(f[5], "");
         } else {
             ck_assert_str_eq(f[4], "");
@@ -420,7 +429,8 @@ START_TEST(errors_leave_nothing)
     /* command line */
     ck_assert_int_eq(volev("compare"), 2);
     ck_assert_int_eq(volev("compare wet"), 2);
-    ck_assert_int_eq(volev("compare wet dry extra"), 2);
+    ck_assert_int_eq(volev("compare wet dry wet dry --labels a,b,c"), 2);
+    vl_test_file_contains(tmpdir, "err.txt", "expected 4 names");
     ck_assert_int_eq(volev("compare wet dry --format gif"), 2);
     ck_assert_int_eq(volev("compare wet dry --labels justone"), 2);
     ck_assert_int_eq(volev("compare wet dry --bogus"), 2);
@@ -506,6 +516,193 @@ START_TEST(errors_leave_nothing)
 }
 END_TEST
 
+/* Line number (0-based) of the first line of text starting with prefix, or -1. */
+static int line_of(const char *text, const char *prefix)
+{
+    char *copy = strdup(text);
+    ck_assert_ptr_nonnull(copy);
+    char **l = lines_of(copy);
+    int found = -1;
+    for (int i = 0; l[i] && found < 0; i++)
+        if (strncmp(l[i], prefix, strlen(prefix)) == 0)
+            found = i;
+    free(l);
+    free(copy);
+    return found;
+}
+
+/* The fields of the compare.csv row whose first field is name, into f (modified copy
+ * in *keep, to free); returns the count, 0 if none. */
+static size_t csv_row(const char *csv, const char *name, char **f, size_t max, char **keep)
+{
+    char *copy = strdup(csv);
+    ck_assert_ptr_nonnull(copy);
+    char **l = lines_of(copy);
+    size_t n = 0;
+    for (size_t i = 0; l[i] && n == 0; i++)
+        if (strncmp(l[i], name, strlen(name)) == 0 && l[i][strlen(name)] == ',')
+            n = fields(l[i], ',', f, max);
+    free(l);
+    *keep = copy;
+    return n;
+}
+
+/* Four runs (wet, dry and a copy of each): the table by topic, science before the
+ * numerics; each run's value; compare.csv with one column per run and the ratios to the
+ * first; a 13th folder refused. */
+START_TEST(many_runs_by_topic)
+{
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-compare");
+    make_runs();
+    ck_assert_int_eq(vl_test_sh(tmpdir, "cp -R wet wet2 && cp -R dry dry2"), 0);
+    int gp = vl_test_have_gnuplot();
+    ck_assert_int_eq(volev("compare wet dry wet2 dry2 -o cmp4"), gp ? 0 : 6);
+    char *out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    ck_assert_ptr_nonnull(out);
+    ck_assert_ptr_nonnull(strstr(out, "C: wet2 (wet2)"));
+    ck_assert_ptr_nonnull(strstr(out, "D: dry2 (dry2)"));
+
+    /* topics in their order: every science heading before the numerics heading, and
+     * the timing rows below it */
+    static const char *const science[] = {"== final state ==", "== water and escape budgets",
+                                          "== redox budget", "== isotopes",
+                                          "== time in regimes and first events =="};
+    int numerics = line_of(out, "== conservation, numerics and cost ==");
+    ck_assert_int_ge(numerics, 0);
+    int before = -1;
+    for (size_t g = 0; g < sizeof science / sizeof science[0]; g++) {
+        int at = line_of(out, science[g]);
+        ck_assert_msg(at > before && at < numerics, "heading '%s' at line %d", science[g], at);
+        before = at;
+    }
+    ck_assert_int_gt(line_of(out, "wall_time_s "), numerics);
+    ck_assert_int_gt(line_of(out, "residual_H "), numerics);
+    ck_assert_int_lt(line_of(out, "final_surface_water_to "), line_of(out, "water_lost_to_space "));
+
+    /* each run's value as its summary.csv writes it; no B-A, B/A with four runs */
+    size_t nw, nd;
+    srow *sw = read_summary("wet/summary.csv", &nw), *sd = read_summary("dry/summary.csv", &nd);
+    const char *wa = summary_value(sw, nw, "final_surface_water_to", "TO");
+    const char *wb = summary_value(sd, nd, "final_surface_water_to", "TO");
+    char cells[8][128];
+    ck_assert_int_eq(table_row(out, "final_surface_water_to", "TO", cells, 8), 6);
+    ck_assert_str_eq(cells[2], wa);
+    ck_assert_str_eq(cells[3], wb);
+    ck_assert_str_eq(cells[4], wa);
+    ck_assert_str_eq(cells[5], wb);
+    free(out);
+
+    if (gp) {
+        char *csv = vl_test_slurp(tmpdir, "cmp4/compare.csv", NULL);
+        ck_assert_ptr_nonnull(csv);
+        ck_assert_ptr_nonnull(strstr(csv, "# c = wet2: run folder wet2"));
+        ck_assert_ptr_nonnull(
+            strstr(csv, "\nquantity,unit,a,b,c,d,ratio_b,ratio_c,ratio_d,group\n"));
+        char *f[12], *keep;
+        /* the dry runs end without surface water (0 TO): no ratio to them; the copy of
+         * the wet run has the very same value, ratio 1 */
+        ck_assert_str_eq(wb, "0");
+        ck_assert_uint_eq(csv_row(csv, "final_surface_water_to", f, 12, &keep), 10);
+        ck_assert_str_eq(f[6], "");
+        ck_assert_str_eq(f[7], "1");
+        ck_assert_str_eq(f[8], "");
+        ck_assert_str_eq(f[9], "final_state");
+        free(keep);
+        /* the groups of the rows never go back to an earlier topic */
+        static const char *const order[] = {"final_state", "budgets", "redox", "isotopes",
+                                            "regimes_events", "other", "numerics"};
+        char *copy = strdup(csv);
+        char **l = lines_of(copy);
+        int last = 0, rows = 0;
+        for (size_t i = 0; l[i]; i++) {
+            if (l[i][0] == '#' || strncmp(l[i], "quantity,", 9) == 0)
+                continue;
+            const char *g = strrchr(l[i], ',') + 1;
+            int k = 0;
+            while (k < 7 && strcmp(g, order[k]) != 0)
+                k++;
+            ck_assert_msg(k < 7 && k >= last, "row '%s' out of topic order", l[i]);
+            last = k;
+            rows++;
+        }
+        ck_assert_int_eq(last, 6);
+        ck_assert_int_gt(rows, 50);
+        free(l);
+        free(copy);
+        free(csv);
+        static const char *const names[] = {"compare.csv", "compare.png"};
+        assert_only("cmp4", names, 2);
+    }
+
+    /* three runs make a table too; thirteen are refused before anything is read */
+    ck_assert_int_eq(volev("compare wet dry wet2"), 0);
+    vl_test_file_contains(tmpdir, "out.txt", "C: wet2 (wet2)");
+    ck_assert_int_eq(volev("compare wet dry wet2 dry2 a b c d e f g h i -o big"), 2);
+    vl_test_file_contains(tmpdir, "err.txt", "more than 12 folders ('i' is one too many)");
+    ck_assert(!vl_test_exists(tmpdir, "big"));
+    free(sw), free(sd);
+    vl_test_tmp_remove(tmpdir);
+}
+END_TEST
+
+/* Set the value of summary row name in FILE to value. */
+static void set_summary(const char *file, const char *name, const char *unit, const char *value)
+{
+    char prefix[160], text[200];
+    snprintf(prefix, sizeof prefix, "%s,", name);
+    snprintf(text, sizeof text, "%s,%s,%s", name, value, unit);
+    replace_line(file, line_starting(file, prefix), text);
+}
+
+/* Values that are numerically zero get no ratio: a subnormal number left of a quantity
+ * that decayed to nothing, and a reservoir's mass below its depletion floor (with the
+ * quantities derived from that reservoir); values above the floor do. */
+START_TEST(no_ratio_of_numerical_zeros)
+{
+    vl_test_tmp_make(tmpdir, sizeof tmpdir, "volev-compare");
+    make_runs();
+    ck_assert_int_eq(vl_test_sh(tmpdir, "cp -R wet low && cp -R wet high"), 0);
+    char v[64];
+    /* the floors are the reservoirs' depletion bands (include/volev/reservoir.h) */
+    double o2_floor = vl_reservoir_floor(VL_R_O2), h2_floor = vl_reservoir_floor(VL_R_H2);
+    snprintf(v, sizeof v, "%.10g", 0.5 * o2_floor);
+    set_summary("low/summary.csv", "final_atm_o2", "kg", v);
+    snprintf(v, sizeof v, "%.10g", 0.5 * h2_floor);
+    set_summary("low/summary.csv", "final_atm_h2", "kg", v);
+    /* 1.5e-318: subnormal (below DBL_MIN, C11 5.2.4.2.2), as in issue 19 */
+    set_summary("low/summary.csv", "total_photochem_o", "kg", "1.5e-318");
+    snprintf(v, sizeof v, "%.10g", 2.0 * h2_floor);
+    set_summary("high/summary.csv", "final_atm_h2", "kg", v);
+
+    ck_assert_int_eq(volev("compare wet low"), 0);
+    char *out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    ck_assert_ptr_nonnull(out);
+    char cells[8][128];
+    static const char *const none[][2] = {{"final_atm_o2", "kg"},
+                                          {"o2_accumulated", "bar"},
+                                          {"final_atm_h2", "kg"},
+                                          {"total_photochem_o", "kg"}};
+    for (size_t i = 0; i < sizeof none / sizeof none[0]; i++) {
+        ck_assert_int_eq(table_row(out, none[i][0], none[i][1], cells, 8), 6);
+        ck_assert_msg(strcmp(cells[5], "\xe2\x80\x94") == 0, "%s: ratio '%s' of a numerical zero",
+                      none[i][0], cells[5]);
+        ck_assert_msg(strcmp(cells[4], "\xe2\x80\x94") != 0, "%s: no difference", none[i][0]);
+    }
+    /* a value the runs share keeps its ratio */
+    ck_assert_int_eq(table_row(out, "final_co2", "bar", cells, 8), 6);
+    ck_assert_str_eq(cells[5], "1");
+    free(out);
+
+    /* above the floor: a ratio, b / a of the two values as written */
+    ck_assert_int_eq(volev("compare wet high"), 0);
+    out = vl_test_slurp(tmpdir, "out.txt", NULL);
+    ck_assert_int_eq(table_row(out, "final_atm_h2", "kg", cells, 8), 6);
+    assert_close_text(cells[5], strtod(cells[3], NULL) / strtod(cells[2], NULL));
+    free(out);
+    vl_test_tmp_remove(tmpdir);
+}
+END_TEST
+
 Suite *vl_suite_compare(void)
 {
     Suite *s = suite_create("compare");
@@ -514,6 +711,8 @@ Suite *vl_suite_compare(void)
     tcase_add_test(tc, table_csv_and_figure);
     tcase_add_test(tc, formats_and_labels);
     tcase_add_test(tc, errors_leave_nothing);
+    tcase_add_test(tc, many_runs_by_topic);
+    tcase_add_test(tc, no_ratio_of_numerical_zeros);
     suite_add_tcase(s, tc);
     return s;
 }

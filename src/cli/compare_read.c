@@ -246,7 +246,7 @@ static int read_file(const char *dir, const char *name, const char *what,
     if (rc == VL_ERR_IO && strncmp(st->msg, "cannot open", 11) == 0) {
         size_t used = strlen(st->msg);
         snprintf(st->msg + used, sizeof st->msg - used,
-                 " (compare needs the output folders of two `volev run`s)");
+                 " (compare needs the output folders of `volev run`s)");
     }
     if (rc == VL_OK && !g->header_line)
         rc = vl_fail(st, VL_ERR_INPUT, path, 0,
