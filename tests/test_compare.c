@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "suites.h"
+#include "volev/climate.h"
 #include "volev/reservoir.h"
 
 static char tmpdir[256];
@@ -198,6 +199,32 @@ static size_t table_row(const char *out, const char *c0, const char *c1, char (*
     return n;
 }
 
+/* The value of column col in the last data row of the series.csv file, as written. */
+static void last_series(const char *file, const char *col, char *out, size_t n)
+{
+    char *text = vl_test_slurp(tmpdir, file, NULL);
+    ck_assert_ptr_nonnull(text);
+    char **l = lines_of(text);
+    size_t h = 0, last = 0;
+    while (l[h] && l[h][0] == '#')
+        h++;
+    ck_assert_ptr_nonnull(l[h]);
+    for (size_t i = h + 1; l[i]; i++)
+        if (l[i][0] && l[i][0] != '#')
+            last = i;
+    ck_assert_uint_gt(last, h);
+    char *hf[256], *rf[256];
+    size_t nh = fields(l[h], ',', hf, 256), nr = fields(l[last], ',', rf, 256);
+    ck_assert_uint_eq(nh, nr);
+    size_t c = 0;
+    while (c < nh && strcmp(hf[c], col) != 0)
+        c++;
+    ck_assert_msg(c < nh, "%s has no column %s", file, col);
+    snprintf(out, n, "%s", rf[c]);
+    free(l);
+    free(text);
+}
+
 /* Two short histories of the demo candidate, to 1 Gyr: "wet" (demo.cfg) and "dry"
  * (demo-dry.cfg), each well under a second. */
 static void make_runs(void)
@@ -288,12 +315,28 @@ START_TEST(table_csv_and_figure)
         i++;
     ck_assert_ptr_nonnull(l[i]);
     ck_assert_str_eq(l[i], "quantity,unit,a,b,difference,ratio,group");
-    size_t nsum = 0, nev = 0;
+    size_t nsum = 0, nev = 0, nfinal = 0;
+    char fw[64], fd[64];
     for (i++; l[i]; i++) {
         char *f[8];
         ck_assert_msg(fields(l[i], ',', f, 8) == 7, "compare.csv row '%s'", l[i]);
         const char *a, *b;
-        if (strncmp(f[0], "event:", 6) == 0) {
+        if (strncmp(f[0], "final:", 6) == 0) { /* the last row of series.csv */
+            last_series("wet/series.csv", f[0] + 6, fw, sizeof fw);
+            last_series("dry/series.csv", f[0] + 6, fd, sizeof fd);
+            if (strcmp(f[0], "final:regime") == 0) { /* the code's name (docs/columns.md) */
+                ck_assert_str_eq(f[1], "name");
+                ck_assert_str_eq(f[2], vl_regime_name(atoi(fw)));
+                ck_assert_str_eq(f[3], vl_regime_name(atoi(fd)));
+                ck_assert_str_eq(f[4], "");
+                ck_assert_str_eq(f[5], "");
+                nfinal++;
+                continue;
+            }
+            a = fw;
+            b = fd;
+            nfinal++;
+        } else if (strncmp(f[0], "event:", 6) == 0) {
             ck_assert_str_eq(f[1], "yr");
             a = first_event(ew, new_, f[0] + 6);
             b = first_event(ed, ned, f[0] + 6);
@@ -326,6 +369,7 @@ START_TEST(table_csv_and_figure)
     for (size_t j = 0; j < ned; j++)
         ue += first_event(ew, new_, ed[j].kind) == NULL;
     ck_assert_uint_eq(nsum, uq);
+    ck_assert_uint_eq(nfinal, 3); /* regime, surface temperature and pressure */
     ck_assert_uint_eq(nev, ue);
     free(l);
     free(csv);
@@ -447,6 +491,12 @@ START_TEST(errors_leave_nothing)
     vl_test_file_contains(tmpdir, "err.txt", "bad/events.csv");
     ck_assert(!vl_test_exists(tmpdir, "cmp"));
 
+    /* a folder without series.csv: the table needs its last row (the final state) */
+    copy_wet();
+    ck_assert_int_eq(vl_test_sh(tmpdir, "rm bad/series.csv"), 0);
+    ck_assert_int_eq(volev("compare wet bad"), 5);
+    vl_test_file_contains(tmpdir, "err.txt", "bad/series.csv");
+
     /* a garbled row of summary.csv: bad input data, named by file and line */
     copy_wet();
     int n = line_starting("bad/summary.csv", "final_co2,");
@@ -485,7 +535,7 @@ START_TEST(errors_leave_nothing)
     vl_test_file_contains(tmpdir, "err.txt", want);
 
     /* a column the figure needs is missing: named with its file before gnuplot runs;
-     * the table alone does not read series.csv */
+     * the table alone needs only the final-state columns of series.csv */
     copy_wet();
     int hs = line_starting("bad/series.csv", "time_yr,");
     char *text = vl_test_slurp(tmpdir, "bad/series.csv", NULL);

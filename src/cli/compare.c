@@ -1,6 +1,6 @@
 /* compare.c: `volev compare DIR_A DIR_B [DIR...] [-o DIR] [--format png|pdf|svg]
  * [--labels A,B,...]`: two to VL_COMPARE_MAX_RUNS runs side by side. Reads each folder's
- * summary.csv and events.csv and prints a table of every summary quantity by topic (each
+ * summary.csv, events.csv and the last row of series.csv and prints a table of every summary quantity by topic (each
  * run's value; with two runs also B - A and B / A) and the stellar age at which each kind
  * of event first happened in each run. With -o it also writes DIR/compare.csv (the same
  * table, machine-readable) and DIR/compare.FORMAT, the runs' series.csv drawn on shared
@@ -175,15 +175,15 @@ static int set_labels(const char *cmd, const options *o, vl_compare_run *r)
     return VL_OK;
 }
 
-/* Reads the runs (and, with -o, checks their series), prints the table and writes the
+/* Reads the runs (their series checked for the figure with -o), prints the table and writes the
  * outputs. */
 static int compare(const options *o, vl_compare_run *r, vl_status *st)
 {
     for (int k = 0; k < o->ndirs && st->code == VL_OK; k++)
         if (check_dir(r[k].dir, st) == VL_OK)
             vl_compare_read_run(&r[k], st);
-    for (int k = 0; k < o->ndirs && o->out && st->code == VL_OK; k++)
-        vl_compare_read_series(&r[k], st);
+    for (int k = 0; k < o->ndirs && st->code == VL_OK; k++)
+        vl_compare_read_series(&r[k], o->out != NULL, st);
     if (st->code != VL_OK)
         return st->code;
     vl_compare_table t;

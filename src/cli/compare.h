@@ -14,11 +14,13 @@
  * nor the printed table's columns can be read. */
 enum { VL_COMPARE_LABEL_MAX = 256, VL_COMPARE_MAX_RUNS = VL_GNUPLOT_MAX_RUNS };
 
-/* One row of summary.csv: the value both as written (shown verbatim) and parsed. */
+/* One row of summary.csv, or a final:COLUMN row from the last row of series.csv: the value
+ * both as written (shown verbatim) and parsed; a categorical one (the regime) is a code
+ * shown by its name, with no difference or ratio. */
 typedef struct vl_compare_quantity {
     char *name, *unit, *text;
     double v;
-    int line;
+    int line, categorical;
 } vl_compare_quantity;
 
 /* The first (earliest) occurrence of one kind of event in events.csv. */
@@ -70,9 +72,11 @@ typedef struct vl_compare_table {
 /* Reads DIR/summary.csv (quantities and the provenance comments) and DIR/events.csv (the
  * first time of each event kind) of r->dir into r; st filled on error. */
 int vl_compare_read_run(vl_compare_run *r, vl_status *st);
-/* Checks DIR/series.csv for the figure: a run's header holding every column the figure
- * draws, and at least one row of numbers. */
-int vl_compare_read_series(const vl_compare_run *r, vl_status *st);
+/* Reads DIR/series.csv: a run's header, at least one row of numbers; the final regime,
+ * surface temperature and pressure of its last row appended to r's quantities
+ * (final:COLUMN); with figure set, the header must also hold every column the figure
+ * draws. */
+int vl_compare_read_series(vl_compare_run *r, int figure, vl_status *st);
 /* Releases what vl_compare_read_run allocated in r. */
 void vl_compare_read_free(vl_compare_run *r);
 
@@ -87,7 +91,7 @@ void vl_compare_table_free(vl_compare_table *t);
 const vl_compare_quantity *vl_compare_cell(const vl_compare_table *t, size_t i, int k);
 const vl_compare_event *vl_compare_event_cell(const vl_compare_table *t, size_t i, int k);
 /* Run k's value minus run 0's of summary row i (events: ev set) as text, "" where not
- * defined (a value missing or not finite). */
+ * defined (a value missing or not finite, or a categorical one). */
 void vl_compare_difference(const vl_compare_table *t, size_t i, int ev, int k, char *out,
                            size_t n);
 /* Run k's value over run 0's as text, "" unless both are resolved

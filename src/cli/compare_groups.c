@@ -31,6 +31,9 @@ static const struct {
     const char *pattern;
     int group;
 } rules[] = {
+    {"final:regime", VL_CG_FINAL},
+    {"final:surface_temp_k", VL_CG_FINAL},
+    {"final:p_surf_bar", VL_CG_FINAL},
     {"final_surface_water_to", VL_CG_FINAL},
     {"o2_accumulated", VL_CG_FINAL},
     {"final_co2", VL_CG_FINAL},
@@ -144,7 +147,7 @@ static int above_relative_floor(double v, double largest)
 int vl_compare_resolved(const vl_compare_table *t, size_t i, int k)
 {
     const vl_compare_quantity *q = vl_compare_cell(t, i, k);
-    if (!q || !isfinite(q->v))
+    if (!q || q->categorical || !isfinite(q->v))
         return 0;
     int r = reservoir_of_row(q->name, q->unit);
     if (r >= 0)

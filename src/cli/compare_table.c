@@ -150,6 +150,9 @@ void vl_compare_difference(const vl_compare_table *t, size_t i, int ev, int k, c
 {
     const double *a = value(t, i, ev, 0), *b = value(t, i, ev, k);
     out[0] = '\0';
+    if (!ev && ((vl_compare_cell(t, i, 0) && vl_compare_cell(t, i, 0)->categorical) ||
+                (vl_compare_cell(t, i, k) && vl_compare_cell(t, i, k)->categorical)))
+        return; /* a code: no difference */
     if (a && b && isfinite(*a) && isfinite(*b) && isfinite(*b - *a))
         vl_output_number(out, n, "%.10g", *b - *a); /* the output number rule: no -0 */
 }
