@@ -626,6 +626,8 @@ START_TEST(many_runs_by_topic)
         before = at;
     }
     ck_assert_int_gt(line_of(out, "wall_time_s "), numerics);
+    /* every row of this version's summary.csv has its topic (compare_groups.c) */
+    ck_assert_int_lt(line_of(out, "== other quantities =="), 0);
     ck_assert_int_gt(line_of(out, "residual_H "), numerics);
     ck_assert_int_lt(line_of(out, "final_surface_water_to "), line_of(out, "water_lost_to_space "));
 

@@ -3,7 +3,7 @@
  * means nothing (docs/figures.md, "Comparison of runs").
  *
  * A summary row is placed by the most specific rule its name matches: a rule is a name
- * pattern with at most one '*', and the rule with the longest fixed text wins (so
+ * pattern with at most one '*' (any text, or none), and the rule with the longest fixed text wins (so
  * final_space_* before final_*, and final_*_d before final_*). Within a topic rows keep
  * the order of the rules, then of the summary. */
 #include <float.h>
@@ -74,7 +74,7 @@ static int match(const char *pattern, const char *name)
     if (!star)
         return strcmp(pattern, name) == 0 ? (int)lp : -1;
     size_t head = (size_t)(star - pattern), tail = lp - head - 1;
-    if (ln < head + tail + 1 || strncmp(name, pattern, head) != 0 ||
+    if (ln < head + tail || strncmp(name, pattern, head) != 0 ||
         strcmp(name + ln - tail, star + 1) != 0)
         return -1;
     return (int)(head + tail);

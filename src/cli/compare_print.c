@@ -2,7 +2,8 @@
  * science first, the conservation checks, integrator statistics and timings last; each
  * run's value as its summary.csv writes it, and with two runs B-A and B/A (a ratio only
  * where both values are resolved, compare_groups.c). The stellar age of the first
- * occurrence of each event kind closes the section on regimes and events. */
+ * occurrence of each event kind closes the section on regimes and events (in place of
+ * the summary's first_<event> rows, which compare.csv keeps). */
 #include <stdio.h>
 #include <string.h>
 
@@ -150,7 +151,8 @@ static void print_group(const vl_compare_table *t, const widths *w, int g)
     if (first < t->nq)
         print_header(t, w, 0);
     for (size_t i = first; i < t->nq && t->q[i].group == g; i++)
-        print_quantity(t, w, i);
+        if (!(events && strncmp(any_cell(t, i)->name, "first_", 6) == 0))
+            print_quantity(t, w, i); /* summary's first_<event>: the event table says it */
     if (events)
         print_events(t, w);
 }
