@@ -65,7 +65,7 @@ if (nlines % 2 != 0) {
 }
 nrun = nlines / 2
 if (nrun < 2 || nrun > vl_max_runs) {
-    vl_msg = sprintf("%d runs given: a comparison takes 2 to %d", nrun, vl_max_runs)
+    vl_msg = sprintf("%d run%s given: a comparison takes 2 to %d", nrun, nrun == 1 ? "" : "s", vl_max_runs)
     eval VL_FAIL
 }
 array run_file[nrun]
