@@ -1,11 +1,11 @@
 /* compare.c: `volev compare DIR_A DIR_B [DIR...] [-o DIR] [--format png|pdf|svg]
  * [--labels A,B,...]`: two to VL_COMPARE_MAX_RUNS runs side by side. Reads each folder's
- * summary.csv, events.csv and the last row of series.csv and prints a table of every summary quantity by topic (each
- * run's value; with two runs also B - A and B / A) and the stellar age at which each kind
- * of event first happened in each run. With -o it also writes DIR/compare.csv (the same
- * table, machine-readable) and DIR/compare.FORMAT, the runs' series.csv drawn on shared
- * axes by plots/comparison.gp. Both files are written under temporary names and renamed
- * into place only when both succeeded. This file holds the command line;
+ * summary.csv, events.csv and the last row of series.csv and prints a table of every
+ * summary quantity by topic (each run's value; with two runs also B - A and B / A) and
+ * the stellar age at which each kind of event first happened in each run. With -o it
+ * also writes DIR/compare.csv (the same table, machine-readable) and DIR/compare.FORMAT,
+ * the runs' series.csv drawn on shared axes by plots/comparison.gp. Both files are
+ * written under temporary names and renamed into place only when both succeeded. This file holds the command line;
  * compare_read.c, compare_table.c, compare_groups.c, compare_print.c and compare_write.c
  * the rest. */
 #define _XOPEN_SOURCE 700 /* realpath */

@@ -104,8 +104,8 @@ int vl_compare_group_of(const char *name, const char *unit, int *rank);
 const char *vl_compare_group_heading(int group);
 const char *vl_compare_group_id(int group);
 /* Whether run k's value of summary row i is above the numerical resolution of the
- * quantity, so that a ratio with it means something (docs/figures.md, "Comparison of
- * runs"): a reservoir's mass at or above its depletion floor; a quantity derived from one
+ * quantity, so that a ratio with it means something (docs/figures.md, "The table of
+ * volev compare"): a reservoir's mass at or above its depletion floor; a quantity derived from one
  * reservoir only while that reservoir is; any other value a normal (not subnormal)
  * number of at least 1e-30 of the largest magnitude the runs give it. */
 int vl_compare_resolved(const vl_compare_table *t, size_t i, int k);

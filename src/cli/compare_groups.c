@@ -1,11 +1,11 @@
 /* compare_groups.c: the topics of `volev compare`'s table (compare.h) and the numerical
  * resolution of each quantity, below which a value is round-off and a ratio with it
- * means nothing (docs/figures.md, "Comparison of runs").
+ * means nothing (docs/figures.md, "The table of volev compare").
  *
  * A summary row is placed by the most specific rule its name matches: a rule is a name
- * pattern with at most one '*' (any text, or none), and the rule with the longest fixed text wins (so
- * final_space_* before final_*, and final_*_d before final_*). Within a topic rows keep
- * the order of the rules, then of the summary. */
+ * pattern with at most one '*' (any text, or none), and the rule with the longest fixed
+ * text wins (so final_space_* before final_*, and final_*_d before final_*). Within a
+ * topic rows keep the order of the rules, then of the summary. */
 #include <float.h>
 #include <math.h>
 #include <stdio.h>

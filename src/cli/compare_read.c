@@ -283,12 +283,15 @@ static int final_state(vl_compare_run *r, const reading *g, vl_status *st)
         double v = strtod(g->last[c], NULL);
         snprintf(name, sizeof name, "final:%s", col->name);
         int regime = final_columns[c] == VL_SER_REGIME;
-        if (regime && !(v >= 0 && v < VL_NREGIMES && v == (int)v))
-            return vl_fail(st, VL_ERR_INPUT, r->dir, g->last_line,
-                           "series.csv: regime '%s' of the last row is not a regime code",
-                           g->last[c]);
-        if (add_quantity(r, name, regime ? "name" : col->unit, regime ? vl_regime_name((int)v) : g->last[c], v,
-                         g->last_line, regime, st) != VL_OK)
+        if (regime && !(v >= 0 && v < VL_NREGIMES && v == (int)v)) {
+            char path[VL_PATH_MAX + 32];
+            snprintf(path, sizeof path, "%s/series.csv", r->dir);
+            return vl_fail(st, VL_ERR_INPUT, path, g->last_line,
+                           "regime '%s' of the last row is not a regime code", g->last[c]);
+        }
+        const char *text = regime ? vl_regime_name((int)v) : g->last[c];
+        if (add_quantity(r, name, regime ? "name" : col->unit, text, v, g->last_line, regime,
+                         st) != VL_OK)
             return st->code;
     }
     return VL_OK;

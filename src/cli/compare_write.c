@@ -1,7 +1,8 @@
 /* compare_write.c: the files of `volev compare -o DIR` (compare.h): compare.csv (the
- * table, machine-readable, with the runs' provenance and each row's topic) and compare.FORMAT (the runs'
- * series.csv drawn on shared axes by plots/comparison.gp), both written under temporary
- * names and renamed into place only when both succeeded. */
+ * table, machine-readable, with the runs' provenance and each row's topic) and
+ * compare.FORMAT (the runs' series.csv drawn on shared axes by plots/comparison.gp),
+ * both written under temporary names and renamed into place only when both
+ * succeeded. */
 #include <ctype.h>
 #include <errno.h>
 #include <stdio.h>
@@ -33,8 +34,8 @@ static void provenance(FILE *f, int k, const vl_compare_run *r)
             r->hash[0] ? r->hash : "unknown");
 }
 
-/* The comment lines and the header of compare.csv (docs/figures.md, "Comparison of
- * runs"): with two runs quantity,unit,a,b,difference,ratio,group; with more,
+/* The comment lines and the header of compare.csv (docs/figures.md, "The table of
+ * volev compare"): with two runs quantity,unit,a,b,difference,ratio,group; with more,
  * quantity,unit,a,b,c,...,ratio_b,ratio_c,...,group. */
 static void write_head(FILE *f, const vl_compare_table *t)
 {
