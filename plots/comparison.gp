@@ -1,27 +1,29 @@
-# comparison.gp -- two or three volev runs on shared axes (gnuplot >= 5.4).
+# comparison.gp -- two to twelve volev runs on shared axes (gnuplot >= 5.4).
 #
 # Usage:
+#   gnuplot -c plots/comparison.gp OUT TITLE RUNS
 #   gnuplot -c plots/comparison.gp OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]
 #
 #   OUT       figure to write; its extension (.png, .pdf or .svg) picks the format
 #   TITLE     figure title; "" gives "comparison of N runs"
-#   SERIESi   series.csv of run i (`volev run`); an empty SERIES3 means two runs
+#   RUNS      one argument holding, for each run, its series.csv and its label, each on
+#             a line of its own (2 to 12 runs): what `volev compare` and `volev plot`
+#             pass. gnuplot hands a script at most nine arguments, so any number of runs
+#             goes in one.
+#   SERIESi   series.csv of run i (`volev run`); the pair form takes up to three runs
 #   LABELi    name of run i in the legend, shown as written (no markup); "" gives the
 #             run folder (SERIESi without its "/series.csv")
 #
-# At most three runs: gnuplot passes a script at most nine arguments (OUT, TITLE and
-# three SERIES/LABEL pairs fill eight) and silently drops any beyond the ninth, so a
-# fourth run cannot be given; a ninth argument is refused.
-#
 # Examples (what `volev compare wet dry -o cmp` and `make validation` run):
-#   gnuplot -c plots/comparison.gp cmp/compare.png "wet and dry" wet/series.csv wet dry/series.csv dry
+#   gnuplot -c plots/comparison.gp cmp/compare.png "wet and dry" "$(printf '%s\n' wet/series.csv wet dry/series.csv dry)"
 #   gnuplot -c plots/comparison.gp docs/divergence.png "Venus, Earth and Mars from one starting inventory" \
 #       v/series.csv Venus e/series.csv Earth m/series.csv Mars
 #
 # Four panels share a logarithmic axis of stellar age (yr): surface water (TO), CO2
 # and O2 partial pressures (bar) on logarithmic axes, surface temperature (K) on a
-# linear one. Run i keeps colour word(c_runs, i) of style.gp and dash type i in every
-# panel; one legend above the panels names the runs. Columns are found by their names
+# linear one. Run i keeps colour run_colour(i) and dash pattern run_dash(i) of
+# style.gp in every panel (no two runs share both); one legend above the panels names
+# the runs, as many to a row as fit. Columns are found by their names
 # in the header line of series.csv; a file lacking one of them stops the script (exit
 # status 2) naming file and column. Non-positive values are left out of the logarithmic
 # panels; a quantity that is zero throughout every run leaves its panel empty with a
@@ -30,8 +32,8 @@
 vl_script = "comparison.gp"
 vl_dir = system(sprintf("dirname '%s'", ARG0)) . "/"
 vl_out = ARG1
-if (ARGC < 5) {
-    print "comparison.gp: usage: gnuplot -c comparison.gp OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]"
+if (ARGC < 3 || ARGC == 4) {
+    print "comparison.gp: usage: gnuplot -c comparison.gp OUT TITLE RUNS, or OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]"
     exit status 2
 }
 load vl_dir . "style.gp"
@@ -41,22 +43,43 @@ vl_w = 8.0; vl_h = 10.0
 eval VL_BASE
 
 if (ARGC > 8) {
-    vl_msg = sprintf("at most three runs (SERIES/LABEL pairs); a ninth argument ('%s') was given", ARG9)
+    vl_msg = sprintf("at most three SERIES/LABEL pairs (a ninth argument, '%s', was given); pass more runs as one RUNS argument", ARG9)
     eval VL_FAIL
 }
 
 # ---- the runs ----------------------------------------------------------------------
-nrun = (ARGC >= 7 && strlen(ARG7) > 0) ? 3 : 2
-array run_file[3]
-array run_lab[3]
-run_file[1] = ARG3; run_lab[1] = ARG4
-run_file[2] = ARG5; run_lab[2] = (ARGC >= 6) ? ARG6 : ""
-run_file[3] = (nrun == 3) ? ARG7 : ""; run_lab[3] = (ARGC >= 8) ? ARG8 : ""
+# the pair form becomes a RUNS list; then RUNS is cut into its lines
+nl = "\n"
+if (ARGC == 3) {
+    runs = ARG3
+} else {
+    runs = ARG3 . nl . ARG4 . nl . ARG5 . nl . (ARGC >= 6 ? ARG6 : "") . nl
+    if (ARGC >= 7 && strlen(ARG7) > 0) { runs = runs . ARG7 . nl . (ARGC >= 8 ? ARG8 : "") . nl }
+}
+if (strlen(runs) > 0 && runs[strlen(runs):] ne nl) { runs = runs . nl }
+nlines = 0
+do for [c = 1:strlen(runs)] { if (runs[c:c] eq nl) { nlines = nlines + 1 } }
+if (nlines % 2 != 0) {
+    vl_msg = sprintf("RUNS has %d lines: expected a series.csv and a label for each run", nlines)
+    eval VL_FAIL
+}
+nrun = nlines / 2
+if (nrun < 2 || nrun > vl_max_runs) {
+    vl_msg = sprintf("%d run%s given: a comparison takes 2 to %d", nrun, nrun == 1 ? "" : "s", vl_max_runs)
+    eval VL_FAIL
+}
+array run_file[nrun]
+array run_lab[nrun]
+rest = runs
+do for [i = 1:nrun] {
+    cut = strstrt(rest, nl); run_file[i] = rest[1:cut - 1]; rest = rest[cut + 1:]
+    cut = strstrt(rest, nl); run_lab[i] = rest[1:cut - 1]; rest = rest[cut + 1:]
+}
 sfx = "/series.csv"
 do for [i = 1:nrun] {
     f = run_file[i]
     if (strlen(f) == 0) {
-        vl_msg = sprintf("SERIES%d is empty: give the series.csv of run %d", i, i)
+        vl_msg = sprintf("the series.csv of run %d is empty: give the series.csv of every run", i)
         eval VL_FAIL
     }
     if (strlen(run_lab[i]) == 0) {
@@ -168,13 +191,15 @@ T_pad = 0.05 * (T_hi - T_lo)
 eval VL_TERM; eval VL_BASE
 
 # ---- layout (screen coordinates) ---------------------------------------------------
-# title, the legend (one row when the names fit across, else one run per row), then
-# four panels; the gaps between panels hold the notes on runs without a quantity
-key_len = 0
+# title, the legend (as many runs to a row as their names fit across), then four
+# panels; the gaps between panels hold the notes on runs without a quantity
+key_w = 0
 do for [i = 1:nrun] {
-    key_len = key_len + strlen(run_lab[i]) + 10
+    if (strlen(run_lab[i]) > key_w) { key_w = strlen(run_lab[i]) }
 }
-key_rows = (key_len <= 95) ? 1 : nrun
+key_cols = int(95 / (key_w + 10))
+key_cols = key_cols < 1 ? 1 : (key_cols > nrun ? nrun : key_cols)
+key_rows = int((nrun + key_cols - 1) / key_cols)
 L_x0 = 0.12; L_x1 = 0.96
 K_top = 0.955
 P_top = K_top - 0.024 * key_rows - 0.03
@@ -206,7 +231,7 @@ do for [k = 1:3] {
         set yrange [lg_lo[k]:lg_hi[k]]
         plot for [i = 1:nrun] run_file[i] \
              using (pos(column("time_yr"))):(pos(column(word(lg_cols, k)))) \
-             with lines lw 2 dt i lc rgb word(c_runs, i) notitle
+             with lines lw 2 dt run_dash(i) lc rgb run_colour(i) notitle
     } else {
         unset ytics
         set yrange [1e-3:1]
@@ -230,7 +255,7 @@ set ylabel "Surface temperature (K)"
 if (T_on) {
     plot for [i = 1:nrun] run_file[i] \
          using (pos(column("time_yr"))):(column("surface_temp_k")) \
-         with lines lw 2 dt i lc rgb word(c_runs, i) notitle
+         with lines lw 2 dt run_dash(i) lc rgb run_colour(i) notitle
 } else {
     unset ytics
     set label 1 sprintf("no surface temperature in %s", any_run) at graph 0.5, 0.5 center
@@ -243,12 +268,8 @@ set tmargin at screen K_top
 set bmargin at screen P_top + 0.01
 unset border; unset tics; unset grid; unset logscale; unset xlabel; unset ylabel
 set xrange [0:1]; set yrange [0:1]
-if (key_rows == 1) {
-    set key at screen 0.5 * (L_x0 + L_x1), K_top center top horizontal samplen 4 width 2
-} else {
-    set key at screen L_x0, K_top left top vertical maxrows nrun samplen 4
-}
-plot for [i = 1:nrun] NaN with lines lw 2 dt i lc rgb word(c_runs, i) title run_lab[i] noenhanced
+set key at screen 0.5 * (L_x0 + L_x1), K_top center top horizontal maxcols key_cols maxrows key_rows samplen 4 width 2
+plot for [i = 1:nrun] NaN with lines lw 2 dt run_dash(i) lc rgb run_colour(i) title run_lab[i] noenhanced
 
 unset multiplot
 unset output

@@ -57,8 +57,29 @@ c_el_h = c_h2; c_el_o = c_o2; c_el_c = c_co2; c_el_n = c_n2
 c_water = c_h2o
 c_temp = "#000000"
 c_xuv = "#E69F00"; c_lum = "#000000"
-# one colour (and dash) per run in comparisons: run i uses word(c_runs, i), dash i
+# runs of a comparison: at most vl_max_runs (plots/comparison.gp, `volev compare`).
+# Run i draws in colour run_colour(i) with dash pattern run_dash(i): the eight
+# Okabe-Ito colours in turn (yellow, the faintest on white, last), then again from the
+# first; the dash patterns are twelve different ones (dash types 101-112, defined here
+# so that the numbered types 1-5 other figures use keep their meaning), so no two runs
+# share both colour and dash, and runs stay apart in grey print and for colour-blind
+# readers.
+vl_max_runs = 12
 c_runs = "#0072B2 #D55E00 #009E73 #CC79A7 #E69F00 #56B4E9 #000000 #F0E442"
+run_colour(i) = word(c_runs, (i - 1) % 8 + 1)
+run_dash(i) = 100 + i
+set dashtype 101 solid
+set dashtype 102 (10, 5)
+set dashtype 103 (2, 4)
+set dashtype 104 (10, 4, 2, 4)
+set dashtype 105 (18, 6)
+set dashtype 106 (10, 4, 2, 4, 2, 4)
+set dashtype 107 (5, 5)
+set dashtype 108 (18, 5, 5, 5)
+set dashtype 109 (2, 8)
+set dashtype 110 (18, 4, 2, 4, 2, 4)
+set dashtype 111 (14, 3, 3, 3, 3, 3)
+set dashtype 112 (6, 3, 6, 9)
 # regimes (enum vl_regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway,
 # 5 magma ocean)
 reg_names = 'dry frozen temperate "moist greenhouse" runaway "magma ocean"'

@@ -27,6 +27,8 @@ static void make_data(void)
                                      "--set run.end_yr=3e8",
                                 bin, top),
                      0);
+    /* third and fourth runs of a comparison: copies under other names */
+    ck_assert_int_eq(vl_test_sh(tmp, "cp -R wet wet2 && cp -R dry dry2"), 0);
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' balance '%s/scenarios/demo.cfg' -o bal", bin, top), 0);
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' sweep '%s/tests/data/sweep/grid.cfg' -o map --quiet",
                                 bin, top),
@@ -62,6 +64,8 @@ START_TEST(every_kind_every_format)
         {"wet", "history"},
         {"bal", "balance"},
         {"wet dry", "comparison"},
+        {"wet dry wet2", "comparison"},
+        {"wet dry wet2 dry2", "comparison"},
         {"map", "ensemble"},
         {"map", "regime_map"},
         {"map", "water_map"},
@@ -69,7 +73,7 @@ START_TEST(every_kind_every_format)
     for (size_t c = 0; c < sizeof cases / sizeof cases[0]; c++)
         for (int f = 0; f < 3; f++) {
             char out[128];
-            snprintf(out, sizeof out, "fig-%s.%s", cases[c].kind, fmts[f]);
+            snprintf(out, sizeof out, "fig-%s-%zu.%s", cases[c].kind, c, fmts[f]);
             int rc = vl_test_sh(tmp, "'%s' plot %s --kind %s -o %s", bin, cases[c].args,
                                 cases[c].kind, out);
             if (rc != 0) {
@@ -79,6 +83,10 @@ START_TEST(every_kind_every_format)
             assert_valid(out, fmts[f]);
             vl_test_file_contains(tmp, "out.txt", out);
         }
+    /* the four runs' labels all reach the comparison's legend (svg keeps text as text) */
+    static const char *const four[] = {">wet<", ">dry<", ">wet2<", ">dry2<"};
+    for (int k = 0; k < 4; k++)
+        vl_test_file_contains(tmp, "fig-comparison-4.svg", four[k]);
     /* without -o: every figure the folder holds, named after its kind, in DIR */
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot map --format svg", bin), 0);
     assert_valid("map/ensemble.svg", "svg");
@@ -146,7 +154,11 @@ START_TEST(command_line)
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot x -o a.jpg", bin), VL_ERR_USAGE);
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot x -o a.png --format pdf", bin), VL_ERR_USAGE);
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot x --kind pie", bin), VL_ERR_USAGE);
-    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot a b c d", bin), VL_ERR_USAGE);
+    /* a comparison takes at most 12 runs (plots/style.gp holds a colour and dash for
+     * each): a 13th folder is refused before anything is read */
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot a b c d e f g h i j k l", bin), VL_ERR_IO);
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot a b c d e f g h i j k l m", bin), VL_ERR_USAGE);
+    vl_test_file_contains(tmp, "err.txt", "more than 12 folders ('m' is one too many)");
     /* an empty folder: nothing to plot */
     ck_assert_int_eq(vl_test_sh(tmp, "mkdir -p empty"), 0);
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot empty", bin), VL_ERR_IO);

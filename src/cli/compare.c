@@ -1,11 +1,13 @@
-/* compare.c: `volev compare DIR_A DIR_B [-o DIR] [--format png|pdf|svg] [--labels A,B]`:
- * two runs side by side. Reads each folder's summary.csv and events.csv and prints a
- * table of every summary quantity (value in A and B, B - A, B / A) and the stellar age
- * at which each kind of event first happened in either run. With -o it also writes
- * DIR/compare.csv (the same table, machine-readable) and DIR/compare.FORMAT, the runs'
- * series.csv drawn on shared axes by plots/comparison.gp. Both files are written under
- * temporary names and renamed into place only when both succeeded. This file holds the
- * command line; compare_read.c, compare_table.c and compare_write.c the rest. */
+/* compare.c: `volev compare DIR_A DIR_B [DIR...] [-o DIR] [--format png|pdf|svg]
+ * [--labels A,B,...]`: two to VL_COMPARE_MAX_RUNS runs side by side. Reads each folder's
+ * summary.csv, events.csv and the last row of series.csv and prints a table of every
+ * summary quantity by topic (each run's value; with two runs also B - A and B / A) and
+ * the stellar age at which each kind of event first happened in each run. With -o it
+ * also writes DIR/compare.csv (the same table, machine-readable) and DIR/compare.FORMAT,
+ * the runs' series.csv drawn on shared axes by plots/comparison.gp. Both files are
+ * written under temporary names and renamed into place only when both succeeded. This file holds the command line;
+ * compare_read.c, compare_table.c, compare_groups.c, compare_print.c and compare_write.c
+ * the rest. */
 #define _XOPEN_SOURCE 700 /* realpath */
 #include <ctype.h>
 #include <errno.h>
@@ -22,7 +24,7 @@ enum { LABEL_MAX = VL_COMPARE_LABEL_MAX };
 
 /* The command line. */
 typedef struct options {
-    const char *dirs[2];        /* borrowed from argv */
+    const char *dirs[VL_COMPARE_MAX_RUNS]; /* borrowed from argv */
     int ndirs;
     const char *out, *fmt, *labels;
 } options;
@@ -65,7 +67,7 @@ static int check_dir(const char *dir, vl_status *st)
         return vl_fail(st, VL_ERR_IO, dir, 0, "cannot read run folder: %s", strerror(errno));
     if (!S_ISDIR(sb.st_mode))
         return vl_fail(st, VL_ERR_INPUT, dir, 0,
-                       "not a folder (compare needs the output folders of two `volev run`s)");
+                       "not a folder (compare needs the output folders of `volev run`s)");
     return VL_OK;
 }
 
@@ -78,14 +80,14 @@ static const struct {
     {"-f", "png, pdf or svg", offsetof(options, fmt)},
     {"-o", "a folder", offsetof(options, out)},
     {"--output", "a folder", offsetof(options, out)},
-    {"--labels", "two names, A,B", offsetof(options, labels)},
+    {"--labels", "one name per folder, A,B,...", offsetof(options, labels)},
 };
 
 /* Reads argv into o; VL_OK or a usage error (printed). */
 static int parse_options(int argc, char **argv, options *o)
 {
     const char *cmd = argv[0];
-    *o = (options){{NULL, NULL}, 0, NULL, "png", NULL};
+    *o = (options){{NULL}, 0, NULL, "png", NULL};
     for (int i = 1; i < argc; i++) {
         const char *s = argv[i];
         size_t v = 0, nv = sizeof value_options / sizeof value_options[0];
@@ -97,24 +99,28 @@ static int parse_options(int argc, char **argv, options *o)
             *(const char **)((char *)o + value_options[v].offset) = argv[++i];
         else if (s[0] == '-' && s[1] != '\0')
             return vl_cli_usage_error(cmd, "unknown option '%s'", s);
-        else if (o->ndirs == 2)
-            return vl_cli_usage_error(cmd, "more than two folders ('%s', '%s' and '%s')",
-                                      o->dirs[0], o->dirs[1], s);
+        else if (o->ndirs == VL_COMPARE_MAX_RUNS)
+            return vl_cli_usage_error(cmd,
+                                      "more than %d folders ('%s' is one too many): a "
+                                      "comparison of more runs cannot be read; compare "
+                                      "them in groups, or sweep them (volev sweep)",
+                                      VL_COMPARE_MAX_RUNS, s);
         else
             o->dirs[o->ndirs++] = s;
     }
     return VL_OK;
 }
 
-/* Two folders, a known format, names that fit and print on one line. */
+/* Two folders or more, a known format, names that fit and print on one line. */
 static int check_options(const char *cmd, const options *o)
 {
     if (o->ndirs < 2)
-        return vl_cli_usage_error(cmd, "%s (two output folders of `volev run`)",
-                                  o->ndirs ? "missing DIR_B" : "missing DIR_A and DIR_B");
+        return vl_cli_usage_error(cmd, "%s (two to %d output folders of `volev run`)",
+                                  o->ndirs ? "missing DIR_B" : "missing DIR_A and DIR_B",
+                                  VL_COMPARE_MAX_RUNS);
     if (strcmp(o->fmt, "png") && strcmp(o->fmt, "pdf") && strcmp(o->fmt, "svg"))
         return vl_cli_usage_error(cmd, "unknown format '%s' (png, pdf or svg)", o->fmt);
-    for (int k = 0; k < 2; k++)
+    for (int k = 0; k < o->ndirs; k++)
         if (strlen(o->dirs[k]) >= VL_PATH_MAX - 32 || has_control(o->dirs[k]))
             return vl_cli_usage_error(cmd, "folder name '%s' is too long or has control characters",
                                       o->dirs[k]);
@@ -123,45 +129,65 @@ static int check_options(const char *cmd, const options *o)
     return VL_OK;
 }
 
-/* The runs' labels: --labels A,B, or the folders' names (the paths as given when both
- * names are the same, as in x/run and y/run). */
-static int set_labels(const char *cmd, const options *o, vl_compare_run r[2])
+/* Default labels: the folders' names; a name two different folders share (as in x/run
+ * and y/run) gives way to the paths as given. */
+static void default_labels(const options *o, vl_compare_run *r)
 {
-    const char *labels = o->labels;
-    if (!labels) {
-        for (int k = 0; k < 2; k++)
-            base_name(o->dirs[k], r[k].label, LABEL_MAX);
-        if (strcmp(r[0].label, r[1].label) == 0 && strcmp(o->dirs[0], o->dirs[1]) != 0)
-            for (int k = 0; k < 2; k++)
-                snprintf(r[k].label, LABEL_MAX, "%s", o->dirs[k]);
+    for (int k = 0; k < o->ndirs; k++)
+        base_name(o->dirs[k], r[k].label, LABEL_MAX);
+    int shared[VL_COMPARE_MAX_RUNS] = {0};
+    for (int k = 0; k < o->ndirs; k++)
+        for (int j = 0; j < o->ndirs; j++)
+            if (j != k && strcmp(r[k].label, r[j].label) == 0 &&
+                strcmp(o->dirs[k], o->dirs[j]) != 0)
+                shared[k] = 1;
+    for (int k = 0; k < o->ndirs; k++)
+        if (shared[k])
+            snprintf(r[k].label, LABEL_MAX, "%s", o->dirs[k]);
+}
+
+/* The runs' labels: --labels A,B,... (one non-empty name per folder), or the defaults. */
+static int set_labels(const char *cmd, const options *o, vl_compare_run *r)
+{
+    const char *s = o->labels;
+    if (!s) {
+        default_labels(o, r);
         return VL_OK;
     }
-    const char *comma = strchr(labels, ',');
-    size_t la = comma ? (size_t)(comma - labels) : 0;
-    if (!comma || la == 0 || comma[1] == '\0' || strchr(comma + 1, ',') || has_control(labels) ||
-        la >= LABEL_MAX || strlen(comma + 1) >= LABEL_MAX)
+    int n = 0, bad = has_control(s);
+    for (const char *p = s; !bad; n++) {
+        const char *comma = strchr(p, ',');
+        size_t len = comma ? (size_t)(comma - p) : strlen(p);
+        bad = len == 0 || len >= LABEL_MAX || n >= o->ndirs;
+        if (!bad)
+            snprintf(r[n].label, LABEL_MAX, "%.*s", (int)len, p);
+        if (!comma)
+            break;
+        p = comma + 1;
+    }
+    if (bad || n + 1 != o->ndirs)
         return vl_cli_usage_error(cmd,
-                                  "--labels '%s': expected two names separated by one comma, "
-                                  "e.g. --labels wet,dry",
-                                  labels);
-    snprintf(r[0].label, LABEL_MAX, "%.*s", (int)la, labels);
-    snprintf(r[1].label, LABEL_MAX, "%s", comma + 1);
+                                  "--labels '%s': expected %d names separated by commas, one "
+                                  "per folder, e.g. --labels %s",
+                                  s, o->ndirs,
+                                  o->ndirs == 2 ? "wet,dry" : o->ndirs == 3 ? "wet,dry,icy"
+                                                                            : "a,b,c,...");
     return VL_OK;
 }
 
-/* Reads both runs (and, with -o, checks their series), prints the table and writes the
+/* Reads the runs (their series checked for the figure with -o), prints the table and writes the
  * outputs. */
-static int compare(const options *o, vl_compare_run r[2], vl_status *st)
+static int compare(const options *o, vl_compare_run *r, vl_status *st)
 {
-    for (int k = 0; k < 2 && st->code == VL_OK; k++)
+    for (int k = 0; k < o->ndirs && st->code == VL_OK; k++)
         if (check_dir(r[k].dir, st) == VL_OK)
             vl_compare_read_run(&r[k], st);
-    for (int k = 0; k < 2 && o->out && st->code == VL_OK; k++)
-        vl_compare_read_series(&r[k], st);
+    for (int k = 0; k < o->ndirs && st->code == VL_OK; k++)
+        vl_compare_read_series(&r[k], o->out != NULL, st);
     if (st->code != VL_OK)
         return st->code;
     vl_compare_table t;
-    if (vl_compare_table_merge(&r[0], &r[1], &t, st) == VL_OK) {
+    if (vl_compare_table_merge(r, o->ndirs, &t, st) == VL_OK) {
         vl_compare_table_print(&t);
         if (o->out)
             vl_compare_write_outputs(o->out, o->fmt, &t, st);
@@ -176,9 +202,9 @@ int vl_cli_compare(int argc, char **argv)
     int rc = parse_options(argc, argv, &o);
     if (rc == VL_OK)
         rc = check_options(argv[0], &o);
-    vl_compare_run r[2];
+    vl_compare_run r[VL_COMPARE_MAX_RUNS];
     memset(r, 0, sizeof r);
-    for (int k = 0; k < 2 && rc == VL_OK; k++)
+    for (int k = 0; k < o.ndirs && rc == VL_OK; k++)
         r[k].dir = o.dirs[k];
     if (rc == VL_OK)
         rc = set_labels(argv[0], &o, r);
@@ -187,7 +213,7 @@ int vl_cli_compare(int argc, char **argv)
     vl_status st;
     vl_status_clear(&st);
     compare(&o, r, &st);
-    vl_compare_read_free(&r[0]);
-    vl_compare_read_free(&r[1]);
+    for (int k = 0; k < o.ndirs; k++)
+        vl_compare_read_free(&r[k]);
     return st.code == VL_OK ? VL_OK : vl_cli_report(&st);
 }

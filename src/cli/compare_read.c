@@ -1,8 +1,10 @@
 /* compare_read.c: what `volev compare` reads from a run folder (compare.h), through the
  * CSV reader (csv.h), record by record so that a wrong header is reported before any
  * row: summary.csv (name,value,unit; its "# volev ..." and scenario-hash comments),
- * events.csv (time_yr,event,detail, the detail free text that may hold commas) and, for
- * the figure, series.csv (the columns comparison.gp draws, every field a number). */
+ * events.csv (time_yr,event,detail, the detail free text that may hold commas) and
+ * series.csv (every field a number): its last row gives the final regime, surface
+ * temperature and pressure, which summary.csv lacks (rows final:COLUMN), and for the
+ * figure it must hold the columns comparison.gp draws. */
 #include <errno.h>
 #include <math.h>
 #include <stdint.h>
@@ -12,6 +14,7 @@
 
 #include "compare.h"
 #include "gnuplot.h"
+#include "volev/climate.h"
 #include "volev/csv.h"
 #include "volev/schema.h"
 
@@ -23,11 +26,19 @@ static const vl_csv_options summary_csv = {0, 0, 0, 0, "run summary", NULL};
 static const vl_csv_options events_csv = {VL_CSV_REST, 0, 0, 0, "run event list", NULL};
 static const vl_csv_options series_csv = {0, SIZE_MAX, 0, 0, "run series", NULL};
 
+/* The series.csv columns whose last value is the final state, in the order shown. */
+static const int final_columns[] = {VL_SER_REGIME, VL_SER_SURFACE_TEMP, VL_SER_P_SURF};
+enum { NFINAL = sizeof final_columns / sizeof final_columns[0] };
+
 /* One file being read. */
 typedef struct reading {
-    vl_compare_run *r;          /* filled (summary, events) */
+    vl_compare_run *r;          /* filled (summary, events, the final state) */
     int header_line;            /* 0 before the header */
     long rows;                  /* data rows seen */
+    int figure;                 /* series.csv: check the figure's columns too */
+    size_t col[NFINAL];         /* series.csv: where the final-state columns are */
+    char last[NFINAL][64];      /* ... and their values in the last row */
+    int last_line;
 } reading;
 
 static int oom(vl_status *st) { return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory"); }
@@ -110,6 +121,22 @@ static long find_event(const vl_compare_run *r, const char *name)
     return -1;
 }
 
+/* Appends a quantity to r (categorical: a code shown by name, no difference or ratio). */
+static int add_quantity(vl_compare_run *r, const char *name, const char *unit, const char *text,
+                        double v, int line, int categorical, vl_status *st)
+{
+    if (reserve((void **)&r->q, &r->capq, r->nq, sizeof *r->q) != 0)
+        return oom(st);
+    vl_compare_quantity *q = &r->q[r->nq++];
+    q->name = strdup(name);
+    q->unit = strdup(unit);
+    q->text = strdup(text);
+    q->v = v;
+    q->line = line;
+    q->categorical = categorical;
+    return q->name && q->unit && q->text ? VL_OK : oom(st);
+}
+
 /* One row of summary.csv. A quantity is identified by its name and unit together (a name
  * may appear with two units, e.g. a reservoir in kg and in TO). */
 static int summary_row(vl_compare_run *r, const vl_csv_record *rec, vl_status *st)
@@ -128,15 +155,7 @@ static int summary_row(vl_compare_run *r, const vl_csv_record *rec, vl_status *s
     if (dup >= 0)
         return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line, "%s (%s) already given on line %d",
                        name, unit, r->q[dup].line);
-    if (reserve((void **)&r->q, &r->capq, r->nq, sizeof *r->q) != 0)
-        return oom(st);
-    vl_compare_quantity *q = &r->q[r->nq++];
-    q->name = strdup(name);
-    q->unit = strdup(unit);
-    q->text = strdup(text);
-    q->v = v;
-    q->line = rec->line;
-    return q->name && q->unit && q->text ? VL_OK : oom(st);
+    return add_quantity(r, name, unit, text, v, rec->line, 0, st);
 }
 
 static int summary_record(void *ctx, const vl_csv_record *rec, vl_status *st)
@@ -197,23 +216,39 @@ static int events_record(void *ctx, const vl_csv_record *rec, vl_status *st)
     return rec->kind == VL_CSV_ROW ? events_row(g->r, rec, st) : VL_OK;
 }
 
-/* series.csv's header: a run's (first column time_yr) with every column the figure draws. */
-static int series_header(const vl_csv_record *rec, vl_status *st)
+/* The index of column name in the header rec, or rec->n. */
+static size_t column_index(const vl_csv_record *rec, const char *name)
+{
+    size_t j = 0;
+    while (j < rec->n && strcmp(rec->field[j], name) != 0)
+        j++;
+    return j;
+}
+
+/* series.csv's header: a run's (first column time_yr) with the final-state columns and,
+ * for the figure, every column it draws. */
+static int series_header(reading *g, const vl_csv_record *rec, vl_status *st)
 {
     const char *need[VL_NSERIES + 1];
-    size_t nneed = vl_gnuplot_column_names(vl_gnuplot_comparison_columns, need, VL_NSERIES + 1);
+    size_t nneed = g->figure ? vl_gnuplot_column_names(vl_gnuplot_comparison_columns, need,
+                                                       VL_NSERIES + 1)
+                             : 0;
     if (strcmp(rec->field[0], vl_series_name(VL_SER_TIME)) != 0)
         return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
                        "not a volev run series: the header starts with '%.40s', expected "
                        "'time_yr'", rec->field[0]);
-    for (size_t c = 0; c < nneed; c++) {
-        size_t j = 0;
-        while (j < rec->n && strcmp(rec->field[j], need[c]) != 0)
-            j++;
-        if (j == rec->n)
+    for (size_t c = 0; c < nneed; c++)
+        if (column_index(rec, need[c]) == rec->n)
             return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
                            "column '%s' (needed for the figure) is missing from the header",
                            need[c]);
+    for (int c = 0; c < NFINAL; c++) {
+        const char *name = vl_series_name(final_columns[c]);
+        g->col[c] = column_index(rec, name);
+        if (g->col[c] == rec->n)
+            return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line,
+                           "column '%s' (needed for the final state) is missing from the "
+                           "header", name);
     }
     return VL_OK;
 }
@@ -223,7 +258,7 @@ static int series_record(void *ctx, const vl_csv_record *rec, vl_status *st)
     reading *g = ctx;
     if (rec->kind == VL_CSV_HEADER) {
         g->header_line = rec->line;
-        return series_header(rec, st);
+        return series_header(g, rec, st);
     }
     if (rec->kind != VL_CSV_ROW)
         return VL_OK;
@@ -233,7 +268,34 @@ static int series_record(void *ctx, const vl_csv_record *rec, vl_status *st)
             return vl_fail(st, VL_ERR_INPUT, rec->file, rec->line, "%s '%.40s' is not a number",
                            rec->header[j], rec->field[j]);
     }
+    for (int c = 0; c < NFINAL; c++)
+        snprintf(g->last[c], sizeof g->last[c], "%s", rec->field[g->col[c]]);
+    g->last_line = rec->line;
     g->rows++;
+    return VL_OK;
+}
+
+/* The final state from the last row of series.csv: final:regime (by name) and the
+ * others as written. */
+static int final_state(vl_compare_run *r, const reading *g, vl_status *st)
+{
+    for (int c = 0; c < NFINAL; c++) {
+        const vl_series_column *col = &vl_series_columns[final_columns[c]];
+        char name[96];
+        double v = strtod(g->last[c], NULL);
+        snprintf(name, sizeof name, "final:%s", col->name);
+        int regime = final_columns[c] == VL_SER_REGIME;
+        if (regime && !(v >= 0 && v < VL_NREGIMES && v == (int)v)) {
+            char path[VL_PATH_MAX + 32];
+            snprintf(path, sizeof path, "%s/series.csv", r->dir);
+            return vl_fail(st, VL_ERR_INPUT, path, g->last_line,
+                           "regime '%s' of the last row is not a regime code", g->last[c]);
+        }
+        const char *text = regime ? vl_regime_name((int)v) : g->last[c];
+        if (add_quantity(r, name, regime ? "name" : col->unit, text, v, g->last_line, regime,
+                         st) != VL_OK)
+            return st->code;
+    }
     return VL_OK;
 }
 
@@ -248,7 +310,7 @@ static int read_file(const char *dir, const char *name, const char *what,
     if (rc == VL_ERR_IO && strncmp(st->msg, "cannot open", 11) == 0) {
         size_t used = strlen(st->msg);
         snprintf(st->msg + used, sizeof st->msg - used,
-                 " (compare needs the output folders of two `volev run`s)");
+                 " (compare needs the output folders of `volev run`s)");
     }
     if (rc == VL_OK && !g->header_line)
         rc = vl_fail(st, VL_ERR_INPUT, path, 0,
@@ -261,18 +323,20 @@ static int read_file(const char *dir, const char *name, const char *what,
 
 int vl_compare_read_run(vl_compare_run *r, vl_status *st)
 {
-    reading g = {r, 0, 0};
+    reading g = {.r = r};
     int rc = read_file(r->dir, "summary.csv", "summary", &summary_csv, summary_record, &g, st);
     if (rc)
         return rc;
-    g = (reading){r, 0, 0};
+    g = (reading){.r = r};
     return read_file(r->dir, "events.csv", "event list", &events_csv, events_record, &g, st);
 }
 
-int vl_compare_read_series(const vl_compare_run *r, vl_status *st)
+int vl_compare_read_series(vl_compare_run *r, int figure, vl_status *st)
 {
-    reading g = {NULL, 0, 0};
-    return read_file(r->dir, "series.csv", "series", &series_csv, series_record, &g, st);
+    reading g = {r, 0, 0, figure, {0}, {{0}}, 0};
+    if (read_file(r->dir, "series.csv", "series", &series_csv, series_record, &g, st) != VL_OK)
+        return st->code;
+    return final_state(r, &g, st);
 }
 
 void vl_compare_read_free(vl_compare_run *r)

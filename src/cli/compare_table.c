@@ -1,5 +1,7 @@
-/* compare_table.c: the table of `volev compare` (compare.h): the two runs' summary
- * quantities and event kinds merged into rows, and printed with B - A and B / A. */
+/* compare_table.c: the rows of `volev compare` (compare.h): the runs' summary quantities
+ * and event kinds merged into rows, the summary rows ordered by topic
+ * (compare_groups.c), and the derived cells (difference to the first run, ratio to it
+ * where both values are resolved). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -8,67 +10,108 @@
 #include "compare.h"
 #include "volev/output.h"
 
-typedef vl_compare_pair pair;
+typedef vl_compare_row row;
 typedef vl_compare_run run;
 
-static const char *const dash = "\xe2\x80\x94"; /* em dash: no value */
+/* Whether item j of run r and item i of run s are the same row: a quantity by name and
+ * unit (a name may come with two units, e.g. a reservoir in kg and in TO), an event by
+ * kind. */
+typedef int (*same_fn)(const run *r, size_t j, const run *s, size_t i);
 
-/* Merge two ordered lists into rows: all of A in its order; an item only in B goes
- * right after the item that precedes it in B, so related rows stay together.
- * find_in_a(ra, rb, j) is the index in A of B's item j, or -1. */
-static pair *merge(const run *ra, const run *rb, size_t na, size_t nb,
-                   long (*find_in_a)(const run *, const run *, size_t), size_t *n)
+static int same_quantity(const run *r, size_t j, const run *s, size_t i)
 {
-    pair *p = malloc((na + nb + 1) * sizeof *p);
+    return strcmp(r->q[j].name, s->q[i].name) == 0 && strcmp(r->q[j].unit, s->q[i].unit) == 0;
+}
+
+static int same_event(const run *r, size_t j, const run *s, size_t i)
+{
+    return strcmp(r->ev[j].name, s->ev[i].name) == 0;
+}
+
+/* The row holding run k's item j's counterpart in an earlier run, or -1. */
+static long find_row(const row *p, size_t np, const run *runs, int k, size_t j, same_fn same)
+{
+    for (size_t x = 0; x < np; x++)
+        for (int m = 0; m < k; m++)
+            if (p[x].idx[m] >= 0 && same(&runs[k], j, &runs[m], (size_t)p[x].idx[m]))
+                return (long)x;
+    return -1;
+}
+
+static row empty_row(void)
+{
+    row r;
+    for (int k = 0; k < VL_COMPARE_MAX_RUNS; k++)
+        r.idx[k] = -1;
+    r.group = r.rank = 0;
+    return r;
+}
+
+/* Merge the runs' ordered lists into rows: all of run 0 in its order; an item first met
+ * in run k goes right after the row of the item that precedes it in run k, so related
+ * rows stay together. count(r) is the length of run r's list. */
+static row *merge(const run *runs, int n, size_t (*count)(const run *), same_fn same,
+                  size_t *nrows)
+{
+    size_t total = 1;
+    for (int k = 0; k < n; k++)
+        total += count(&runs[k]);
+    row *p = malloc(total * sizeof *p);
     if (!p)
         return NULL;
-    for (size_t i = 0; i < na; i++)
-        p[i] = (pair){(long)i, -1};
-    size_t np = na, cursor = 0;
-    for (size_t j = 0; j < nb; j++) {
-        long i = find_in_a(ra, rb, j);
-        if (i >= 0) {
-            for (size_t k = 0; k < np; k++)
-                if (p[k].a == i) {
-                    p[k].b = (long)j;
-                    cursor = k + 1;
-                    break;
-                }
-        } else {
-            memmove(&p[cursor + 1], &p[cursor], (np - cursor) * sizeof *p);
-            p[cursor++] = (pair){-1, (long)j};
-            np++;
+    size_t np = 0;
+    for (int k = 0; k < n; k++) {
+        size_t cursor = 0;
+        for (size_t j = 0; j < count(&runs[k]); j++) {
+            long x = k ? find_row(p, np, runs, k, j, same) : -1;
+            if (x < 0) {
+                memmove(&p[cursor + 1], &p[cursor], (np - cursor) * sizeof *p);
+                p[cursor] = empty_row();
+                x = (long)cursor;
+                np++;
+            }
+            p[x].idx[k] = (long)j;
+            cursor = (size_t)x + 1;
         }
     }
-    *n = np;
+    *nrows = np;
     return p;
 }
 
-static long quantity_in_a(const run *ra, const run *rb, size_t j)
+static size_t quantities(const run *r) { return r->nq; }
+static size_t event_kinds(const run *r) { return r->nev; }
+
+/* Topic, then rule, then merged order: an insertion sort keeps it stable. */
+static void order_by_topic(const vl_compare_table *t, row *p, size_t n)
 {
-    for (size_t i = 0; i < ra->nq; i++)
-        if (strcmp(ra->q[i].name, rb->q[j].name) == 0 && strcmp(ra->q[i].unit, rb->q[j].unit) == 0)
-            return (long)i;
-    return -1;
+    for (size_t i = 0; i < n; i++) {
+        const vl_compare_quantity *q = NULL;
+        for (int k = 0; k < t->nruns && !q; k++)
+            q = p[i].idx[k] >= 0 ? &t->runs[k].q[p[i].idx[k]] : NULL;
+        p[i].group = vl_compare_group_of(q->name, q->unit, &p[i].rank);
+    }
+    for (size_t i = 1; i < n; i++) {
+        row x = p[i];
+        size_t j = i;
+        while (j > 0 && (p[j - 1].group > x.group ||
+                         (p[j - 1].group == x.group && p[j - 1].rank > x.rank))) {
+            p[j] = p[j - 1];
+            j--;
+        }
+        p[j] = x;
+    }
 }
 
-static long event_in_a(const run *ra, const run *rb, size_t j)
-{
-    for (size_t i = 0; i < ra->nev; i++)
-        if (strcmp(ra->ev[i].name, rb->ev[j].name) == 0)
-            return (long)i;
-    return -1;
-}
-
-int vl_compare_table_merge(const run *a, const run *b, vl_compare_table *t, vl_status *st)
+int vl_compare_table_merge(const run *runs, int n, vl_compare_table *t, vl_status *st)
 {
     memset(t, 0, sizeof *t);
-    t->a = a;
-    t->b = b;
-    t->q = merge(a, b, a->nq, b->nq, quantity_in_a, &t->nq);
-    t->e = merge(a, b, a->nev, b->nev, event_in_a, &t->ne);
+    t->runs = runs;
+    t->nruns = n;
+    t->q = merge(runs, n, quantities, same_quantity, &t->nq);
+    t->e = merge(runs, n, event_kinds, same_event, &t->ne);
     if (!t->q || !t->e)
         return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    order_by_topic(t, t->q, t->nq);
     return VL_OK;
 }
 
@@ -79,140 +122,47 @@ void vl_compare_table_free(vl_compare_table *t)
     t->q = t->e = NULL;
 }
 
-void vl_compare_table_derived(const double *a, const double *b, char *diff, char *ratio,
-                              size_t n)
+const vl_compare_quantity *vl_compare_cell(const vl_compare_table *t, size_t i, int k)
 {
-    diff[0] = ratio[0] = '\0';
-    if (!a || !b || !isfinite(*a) || !isfinite(*b))
-        return;
-    vl_output_number(diff, n, "%.10g", *b - *a); /* the output number rule: no -0 */
-    if (*a != 0.0)
-        vl_output_number(ratio, n, "%.10g", *b / *a);
+    long j = t->q[i].idx[k];
+    return j >= 0 ? &t->runs[k].q[j] : NULL;
 }
 
-/* ---------------------------------------------------------------- printing */
-
-/* Columns of terminal output: UTF-8 characters, not bytes. */
-static int width(const char *s)
+const vl_compare_event *vl_compare_event_cell(const vl_compare_table *t, size_t i, int k)
 {
-    int w = 0;
-    for (; *s; s++)
-        if (((unsigned char)*s & 0xC0) != 0x80)
-            w++;
-    return w;
+    long j = t->e[i].idx[k];
+    return j >= 0 ? &t->runs[k].ev[j] : NULL;
 }
 
-/* s padded to w columns, right-aligned if right, then sep. */
-static void cell(const char *s, int w, int right, const char *sep)
+/* Run k's value of row i (events: ev), or NULL. */
+static const double *value(const vl_compare_table *t, size_t i, int ev, int k)
 {
-    int pad = w - width(s);
-    if (right)
-        printf("%*s%s%s", pad > 0 ? pad : 0, "", s, sep);
-    else
-        printf("%s%*s%s", s, pad > 0 ? pad : 0, "", sep);
-}
-
-static int imax(int a, int b) { return a > b ? a : b; }
-
-/* Widths of the printed columns: quantity, unit, A, B, B-A, B/A, event. */
-typedef struct widths {
-    int n, u, a, b, d, r, e;
-} widths;
-
-/* Quantity q of a run (NULL where absent) of merged row i. */
-static const vl_compare_quantity *qa(const vl_compare_table *t, size_t i)
-{
-    return t->q[i].a >= 0 ? &t->a->q[t->q[i].a] : NULL;
-}
-
-static const vl_compare_quantity *qb(const vl_compare_table *t, size_t i)
-{
-    return t->q[i].b >= 0 ? &t->b->q[t->q[i].b] : NULL;
-}
-
-static const vl_compare_event *ea(const vl_compare_table *t, size_t i)
-{
-    return t->e[i].a >= 0 ? &t->a->ev[t->e[i].a] : NULL;
-}
-
-static const vl_compare_event *eb(const vl_compare_table *t, size_t i)
-{
-    return t->e[i].b >= 0 ? &t->b->ev[t->e[i].b] : NULL;
-}
-
-/* B - A and B / A of merged summary row i. */
-static void row_derived(const vl_compare_table *t, size_t i, char *diff, char *ratio, size_t n)
-{
-    const vl_compare_quantity *a = qa(t, i), *b = qb(t, i);
-    vl_compare_table_derived(a ? &a->v : NULL, b ? &b->v : NULL, diff, ratio, n);
-}
-
-/* The widest text of every column. */
-static widths measure(const vl_compare_table *t)
-{
-    char diff[64], ratio[64];
-    widths w = {(int)strlen("quantity"), (int)strlen("unit"), imax(width(t->a->label), 1),
-                imax(width(t->b->label), 1), (int)strlen("B-A"), (int)strlen("B/A"),
-                (int)strlen("event")};
-    for (size_t i = 0; i < t->nq; i++) {
-        const vl_compare_quantity *a = qa(t, i), *b = qb(t, i), *any = a ? a : b;
-        row_derived(t, i, diff, ratio, sizeof diff);
-        w.n = imax(w.n, width(any->name));
-        w.u = imax(w.u, width(any->unit));
-        w.a = imax(w.a, a ? width(a->text) : 1);
-        w.b = imax(w.b, b ? width(b->text) : 1);
-        w.d = imax(w.d, width(diff));
-        w.r = imax(w.r, width(ratio));
+    if (ev) {
+        const vl_compare_event *e = vl_compare_event_cell(t, i, k);
+        return e ? &e->t : NULL;
     }
-    for (size_t i = 0; i < t->ne; i++) {
-        const vl_compare_event *a = ea(t, i), *b = eb(t, i);
-        w.e = imax(w.e, width(a ? a->name : b->name));
-        w.a = imax(w.a, a ? width(a->text) : (int)strlen("never"));
-        w.b = imax(w.b, b ? width(b->text) : (int)strlen("never"));
-    }
-    w.e = imax(w.e, w.n);
-    return w;
+    const vl_compare_quantity *q = vl_compare_cell(t, i, k);
+    return q ? &q->v : NULL;
 }
 
-static void print_summary(const vl_compare_table *t, const widths *w)
+void vl_compare_difference(const vl_compare_table *t, size_t i, int ev, int k, char *out,
+                           size_t n)
 {
-    char diff[64], ratio[64];
-    cell("quantity", w->n, 0, "  ");
-    cell("unit", w->u, 0, "  ");
-    cell(t->a->label, w->a, 1, "  ");
-    cell(t->b->label, w->b, 1, "  ");
-    cell("B-A", w->d, 1, "  ");
-    cell("B/A", w->r, 1, "\n");
-    for (size_t i = 0; i < t->nq; i++) {
-        const vl_compare_quantity *a = qa(t, i), *b = qb(t, i), *any = a ? a : b;
-        row_derived(t, i, diff, ratio, sizeof diff);
-        cell(any->name, w->n, 0, "  ");
-        cell(any->unit, w->u, 0, "  ");
-        cell(a ? a->text : dash, w->a, 1, "  ");
-        cell(b ? b->text : dash, w->b, 1, "  ");
-        cell(diff[0] ? diff : dash, w->d, 1, "  ");
-        cell(ratio[0] ? ratio : dash, w->r, 1, "\n");
-    }
+    const double *a = value(t, i, ev, 0), *b = value(t, i, ev, k);
+    out[0] = '\0';
+    if (!ev && ((vl_compare_cell(t, i, 0) && vl_compare_cell(t, i, 0)->categorical) ||
+                (vl_compare_cell(t, i, k) && vl_compare_cell(t, i, k)->categorical)))
+        return; /* a code: no difference */
+    if (a && b && isfinite(*a) && isfinite(*b) && isfinite(*b - *a))
+        vl_output_number(out, n, "%.10g", *b - *a); /* the output number rule: no -0 */
 }
 
-static void print_events(const vl_compare_table *t, const widths *w)
+void vl_compare_ratio(const vl_compare_table *t, size_t i, int ev, int k, char *out, size_t n)
 {
-    printf("\nfirst occurrence of each event (stellar age, yr)\n");
-    cell("event", w->e, 0, "  ");
-    cell(t->a->label, w->a, 1, "  ");
-    cell(t->b->label, w->b, 1, "\n");
-    for (size_t i = 0; i < t->ne; i++) {
-        const vl_compare_event *a = ea(t, i), *b = eb(t, i);
-        cell(a ? a->name : b->name, w->e, 0, "  ");
-        cell(a ? a->text : "never", w->a, 1, "  ");
-        cell(b ? b->text : "never", w->b, 1, "\n");
-    }
-}
-
-void vl_compare_table_print(const vl_compare_table *t)
-{
-    widths w = measure(t);
-    printf("A: %s (%s)\nB: %s (%s)\n\n", t->a->label, t->a->dir, t->b->label, t->b->dir);
-    print_summary(t, &w);
-    print_events(t, &w);
+    const double *a = value(t, i, ev, 0), *b = value(t, i, ev, k);
+    out[0] = '\0';
+    int resolved = ev ? vl_compare_event_resolved(t, i, 0) && vl_compare_event_resolved(t, i, k)
+                      : vl_compare_resolved(t, i, 0) && vl_compare_resolved(t, i, k);
+    if (a && b && resolved && isfinite(*b / *a))
+        vl_output_number(out, n, "%.10g", *b / *a);
 }

@@ -86,3 +86,17 @@ size_t vl_gnuplot_column_names(const int *ids, const char **names, size_t cap)
     names[n] = NULL;
     return n;
 }
+
+char *vl_gnuplot_runs_word(const char *const *series, const char *const *labels, int n)
+{
+    size_t len = 1;
+    for (int k = 0; k < n; k++)
+        len += strlen(series[k]) + strlen(labels[k] ? labels[k] : "") + 2;
+    char *s = malloc(len), *p = s;
+    if (!s)
+        return NULL;
+    for (int k = 0; k < n; k++)
+        p += sprintf(p, "%s\n%s\n", series[k], labels[k] ? labels[k] : "");
+    *p = '\0';
+    return s;
+}

@@ -70,9 +70,9 @@ static const vl_cli_option compare_options[] = {
     {{"-o", "--output"}, "DIR",
      "also write DIR/compare.csv (the table) and DIR/compare.FORMAT (the figure)"},
     {{"-f", "--format"}, "png|pdf|svg", "format of the figure (default png)"},
-    {{"--labels", NULL}, "A,B",
-     "names of the two runs in the table, file and legend (default: the folders' last "
-     "path components, or the folders as given when those are the same)"},
+    {{"--labels", NULL}, "A,B,...",
+     "names of the runs in the table, file and legend, one per folder (default: the "
+     "folders' last path components, or the folders as given where two share one)"},
     END_OPTIONS,
 };
 
@@ -162,7 +162,7 @@ const vl_cli_command vl_cli_commands[] = {
      "render the figures of run, balance or sweep folders",
      "Render with gnuplot the figures of what the folder holds (docs/figures.md): history "
      "(a run), balance (volev balance), ensemble, and for a grid sweep over two axes "
-     "regime_map and water_map; two or three run folders make a comparison. Every input "
+     "regime_map and water_map; 2 to 12 run folders make a comparison. Every input "
      "is checked for the columns its figure needs before gnuplot runs. The scripts are "
      "found in $VOLEV_PLOTS_DIR, or beside the program in ../plots or "
      "../share/volev/plots.",
@@ -170,19 +170,25 @@ const vl_cli_command vl_cli_commands[] = {
      {{"volev plot earth --format pdf", "earth/history.pdf"},
       {"volev plot wet dry --title \"Wet and dry\" -o wet-vs-dry.png",
        "two runs on shared axes"},
+      {"volev plot venus earth mars -o planets.pdf", "three runs, up to 12"},
       {"volev plot demo-map --kind regime_map", "demo-map/regime_map.png"},
       {"volev plot --list", "every figure kind"}}},
     {"compare", vl_cli_compare,
-     {"compare DIR_A DIR_B [-o DIR] [--format png|pdf|svg] [--labels A,B]", NULL},
-     "side-by-side table and figure of two runs",
-     "Print every quantity of two runs' summary.csv (value in A and in B, B-A, B/A) and "
-     "the stellar age at which each kind of event first happened in each run, or never. "
-     "With -o, also write compare.csv and a figure of surface water, CO2, O2 and surface "
-     "temperature of both runs on shared axes.",
+     {"compare DIR_A DIR_B [DIR...] [-o DIR] [--format png|pdf|svg] [--labels A,B,...]", NULL},
+     "side-by-side table and figure of 2 to 12 runs",
+     "Print the runs' final state (regime, surface temperature and pressure from the last "
+     "row of series.csv) and every quantity of their summary.csv, grouped by topic: final "
+     "state, water and escape budgets, redox budget, isotopes, time in regimes and first "
+     "events (the stellar age at which each kind of event first happened, or never), "
+     "then conservation, numerics and cost. Each run's value is shown; with two runs also "
+     "B-A and B/A, a ratio only where both values are above the quantity's numerical "
+     "resolution (docs/figures.md). With -o, also write compare.csv and a figure of "
+     "surface water, CO2, O2 and surface temperature of the runs on shared axes.",
      compare_options,
      {{"volev compare wet dry", "the table on the terminal"},
       {"volev compare wet dry -o wet-vs-dry --labels ocean,desert --format svg",
-       "also wet-vs-dry/compare.csv and compare.svg"}}},
+       "also wet-vs-dry/compare.csv and compare.svg"},
+      {"volev compare venus earth mars -o planets", "three runs, up to 12"}}},
     {"processes", vl_cli_processes,
      {"processes [--sources]", NULL},
      "list processes and parameters with units, defaults, bounds, references",

@@ -3,7 +3,7 @@
  *
  *   history     a run's series.csv (+ events.csv)           plots/history.gp
  *   balance     balance.csv of `volev balance`               plots/balance.gp
- *   comparison  two or three run folders                     plots/comparison.gp
+ *   comparison  2 to 12 run folders                          plots/comparison.gp
  *   ensemble    ensemble_series.csv + ensemble_summary.csv   plots/ensemble.gp
  *   regime_map  members.csv of a grid sweep with two axes:   plots/regime_map.gp
  *               outcome class; water_map: final water
@@ -12,6 +12,7 @@
  * a missing or misnamed column is an error naming it (never an empty plot); the CSV
  * reader (csv.h) reads the head of each file: comments, header, first row. Figures are
  * written by gnuplot straight to their final names; a failed render removes its file. */
+#include <ctype.h>
 #include <errno.h>
 #include <math.h>
 #include <stdint.h>
@@ -41,7 +42,7 @@ static const struct {
      "a `volev balance` folder (balance.csv): OLR and absorbed flux against surface "
      "temperature, albedo, stratospheric water"},
     {"comparison", "comparison.gp",
-     "two or three run folders: water, CO2, O2 and temperature of each run on shared axes"},
+     "2 to 12 run folders: water, CO2, O2 and temperature of each run on shared axes"},
     {"ensemble", "ensemble.gp",
      "a sweep folder (ensemble_series.csv, ensemble_summary.csv): median and quantile bands "
      "of water and O2 against age, histogram of outcome classes"},
@@ -281,31 +282,47 @@ static int plot_map(job_t *j, int kind, const char *dir, const axes_t *ax, vl_st
     return render(j, kind, dir, args, 9, 1, st);
 }
 
-/* Two or three run folders: one comparison figure. */
+/* The legend label of a run folder: its last component. */
+static void run_label(const char *dir, char *out, size_t n)
+{
+    char buf[4200];
+    snprintf(buf, sizeof buf, "%s", dir);
+    size_t len = strlen(buf);
+    while (len > 1 && buf[len - 1] == '/')
+        buf[--len] = '\0';
+    const char *slash = strrchr(buf, '/');
+    snprintf(out, n, "%s", slash && slash[1] ? slash + 1 : buf);
+}
+
+/* 2 to VL_GNUPLOT_MAX_RUNS run folders: one comparison figure, the runs passed to the
+ * script as one RUNS argument (gnuplot.h). */
 static int plot_comparison(job_t *j, char **dirs, int n, vl_status *st)
 {
-    static char series[3][4200], label[3][1024];
-    const char *args[8], *need_compare[VL_NSERIES + 1];
+    static char series[VL_GNUPLOT_MAX_RUNS][4200], label[VL_GNUPLOT_MAX_RUNS][1024];
+    const char *files[VL_GNUPLOT_MAX_RUNS], *labels[VL_GNUPLOT_MAX_RUNS];
+    const char *need_compare[VL_NSERIES + 1];
     vl_gnuplot_column_names(vl_gnuplot_comparison_columns, need_compare, VL_NSERIES + 1);
-    args[0] = "";
-    args[1] = j->title;
     for (int r = 0; r < n; r++) {
         snprintf(series[r], sizeof series[r], "%s/series.csv", dirs[r]);
         int rc = check_columns(series[r], need_compare, NULL, K_COMPARISON, st);
         if (rc)
             return rc;
-        const char *slash = strrchr(dirs[r], '/');
-        snprintf(label[r], sizeof label[r], "%s", slash && slash[1] ? slash + 1 : dirs[r]);
-        args[2 + 2 * r] = series[r];
-        args[3 + 2 * r] = label[r];
+        run_label(dirs[r], label[r], sizeof label[r]);
+        files[r] = series[r];
+        labels[r] = label[r];
     }
+    char *runs = vl_gnuplot_runs_word(files, labels, n);
+    if (!runs)
+        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "out of memory");
+    const char *args[] = {"", j->title, runs};
     char out[4200];
     if (!j->out) {
         snprintf(out, sizeof out, "comparison.%s", j->fmt);
         j->out = out;
     }
-    int rc = render(j, K_COMPARISON, ".", args, (size_t)(2 + 2 * n), 0, st);
+    int rc = render(j, K_COMPARISON, ".", args, 3, 0, st);
     j->out = NULL;
+    free(runs);
     return rc;
 }
 
@@ -321,7 +338,7 @@ static void list_kinds(void)
 /* The command line. */
 typedef struct plot_args {
     const char *fmt, *out, *want, *title;
-    char *dirs[4];
+    char *dirs[VL_GNUPLOT_MAX_RUNS];
     int ndirs;
     int list;        /* --list */
     int kind;        /* the kind --kind names, -1 without */
@@ -348,10 +365,14 @@ static int parse_args(int argc, char **argv, plot_args *a)
             *value = argv[++i];
         else if (s[0] == '-')
             return vl_cli_usage_error(argv[0], "unknown option '%s'", s);
-        else if (a->ndirs < 4)
+        else if (a->ndirs < VL_GNUPLOT_MAX_RUNS)
             a->dirs[a->ndirs++] = argv[i];
         else
-            return vl_cli_usage_error(argv[0], "at most three folders (a comparison)");
+            return vl_cli_usage_error(argv[0],
+                                      "more than %d folders ('%s' is one too many): a "
+                                      "comparison figure of more runs cannot be read; plot "
+                                      "them in groups",
+                                      VL_GNUPLOT_MAX_RUNS, s);
     }
     return VL_OK;
 }
@@ -371,14 +392,13 @@ static int pick_format(const char *cmd, plot_args *a)
     return VL_OK;
 }
 
-/* Folders given (one to three, no line breaks), the format, the kind asked for. */
+/* Folders given (one to VL_GNUPLOT_MAX_RUNS, no control characters), the format, the
+ * kind asked for. */
 static int check_args(const char *cmd, plot_args *a)
 {
     if (a->ndirs == 0)
         return vl_cli_usage_error(cmd, "missing DIR (a run, balance or sweep folder); "
                                        "'volev plot --list' names the figures");
-    if (a->ndirs > 3)
-        return vl_cli_usage_error(cmd, "at most three folders (a comparison)");
     int rc = pick_format(cmd, a);
     if (rc)
         return rc;
@@ -388,8 +408,10 @@ static int check_args(const char *cmd, plot_args *a)
     if (a->want && a->kind < 0)
         return vl_cli_usage_error(cmd, "unknown figure kind '%s' (volev plot --list)", a->want);
     for (int d = 0; d < a->ndirs; d++)
-        if (strchr(a->dirs[d], '\n'))
-            return vl_cli_usage_error(cmd, "folder names with line breaks are not supported");
+        for (const char *c = a->dirs[d]; *c; c++)
+            if (iscntrl((unsigned char)*c))
+                return vl_cli_usage_error(cmd, "folder names with line breaks or other control "
+                                               "characters are not supported");
     return VL_OK;
 }
 
@@ -420,7 +442,7 @@ static int find_figures(const char *dir, int avail[NKIND], axes_t *ax, vl_status
 static int unavailable(const char *dir, const plot_args *a, vl_status *st)
 {
     int map = a->kind == K_REGIME || a->kind == K_WATER;
-    const char *why = a->kind == K_COMPARISON ? "give two or three run folders"
+    const char *why = a->kind == K_COMPARISON ? "give 2 to 12 run folders"
                       : map && readable(dir, "members.csv")
                           ? "the map needs a grid sweep over exactly two axes"
                           : "the folder lacks its input files (volev plot --list)";
