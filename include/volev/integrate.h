@@ -17,7 +17,7 @@ typedef struct vl_run_stats {
     long restarts;             /* stepper restarts after a failed step (stiff drains) */
     long jacobians;            /* Jacobian evaluations */
     double wall_s;             /* wall-clock time */
-    double y_final[VL_NSTATE];
+    double y_final[VL_NSTATE]; /* the final state as written (vl_written_state: no dip) */
     double totals0[VL_NELEMENTS], totals1[VL_NELEMENTS]; /* element inventories, kg */
     double written1[VL_NELEMENTS]; /* ... at the end as written: dips below zero as 0 */
     vl_redox_state redox0, redox1; /* the redox ledger at the start and the end */

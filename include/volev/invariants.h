@@ -13,10 +13,13 @@
  *   - no element's residual (vl_residual) on the state as integrated exceeds
  *     VL_RESIDUAL_LIMIT.
  *
- * The state as written (series.csv, summary.csv) differs from the integrated one only by
- * its dips, printed as 0, which the dip bound limits; summary.csv's residuals are those of
- * the final state as written, so they exceed the integrated ones by the final dips over
- * the element's denominator (docs/hardening.md, "Physical invariants").
+ * The state as written (series.csv, summary.csv) is vl_written_state of the integrated
+ * one: each dip set to 0 and the mass of each element this adds taken back from the
+ * reservoirs that hold that element alone, in proportion to their content -- a change of
+ * the size of the dips, which the dip bound limits, that keeps every element's total.
+ * summary.csv's residuals are those of the final state as written, so they equal the
+ * integrated ones unless no such reservoir could give the dip back (docs/hardening.md,
+ * "Physical invariants").
  */
 #ifndef VOLEV_INVARIANTS_H
 #define VOLEV_INVARIANTS_H
@@ -50,6 +53,10 @@ double vl_reservoir_abs_tol(const vl_run_params *rp, int r);
 double vl_element_resolution(const vl_run_params *rp, int el);
 /* Element masses of the state as written: every reservoir's mass with a dip below zero
  * counted as 0 (series.csv and summary.csv print it so). */
+/* The state as written (w, VL_NSTATE): y with every reservoir below zero set to 0 and
+ * the elements that adds taken back, in proportion, from the reservoirs holding each
+ * element alone (see above). */
+void vl_written_state(const double *y, double *w);
 void vl_written_totals(const double *y, double out[VL_NELEMENTS]);
 /* The conservation residual of element el between element masses t0 and t1 (kg):
  * |t1 - t0| / max(t0, VL_RESOLUTION_SCALE x vl_element_resolution). */

@@ -74,7 +74,9 @@ static int emit_row(runner_t *r, double t, const double *y, vl_status *st)
         if (y[i] < r->stats->min_mass_kg)
             r->stats->min_mass_kg = y[i];
     r->stats->env_last = env;
-    int rc = r->sink->row ? r->sink->row(r->sink->ctx, t, y, dydt, &env, cols, st) : VL_OK;
+    double written[VL_NSTATE]; /* the files hold no dip (invariants.h, vl_written_state) */
+    vl_written_state(y, written);
+    int rc = r->sink->row ? r->sink->row(r->sink->ctx, t, written, dydt, &env, cols, st) : VL_OK;
     free(cols);
     return rc;
 }
@@ -363,7 +365,7 @@ static int run_loop(runner_t *r, vl_status *st)
     if (r->s->cv)
         r->stats->jacobians = vl_stepper_jacobians(r->s);
     vl_stepper_free(r->s);
-    memcpy(r->stats->y_final, r->y, sizeof r->y);
+    vl_written_state(r->y, r->stats->y_final); /* as the files hold it */
     vl_ledger_totals(r->y, r->stats->totals1);
     vl_written_totals(r->y, r->stats->written1);
     r->stats->overshoot_tolerances = r->guard.row_dip_tol;

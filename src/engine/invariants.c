@@ -21,11 +21,45 @@ double vl_element_resolution(const vl_run_params *rp, int el)
     return a;
 }
 
+/* 1 when reservoir r holds element el only (its whole mass is el). */
+static int pure(int r, int el) { return vl_reservoir_element_fraction(r, el) > 1.0 - 1e-12; }
+
+/* Take kg of element el out of the reservoirs that hold el alone, in proportion to what
+ * each holds; returns what could not be taken (they held less). */
+static double take_element(double *w, int el, double kg)
+{
+    double held = 0.0;
+    for (int r = 0; r < VL_NRES; r++)
+        if (pure(r, el) && w[r] > 0.0)
+            held += w[r];
+    if (!(held > 0.0))
+        return kg;
+    double share = kg < held ? kg / held : 1.0;
+    for (int r = 0; r < VL_NRES; r++)
+        if (pure(r, el) && w[r] > 0.0)
+            w[r] -= w[r] * share;
+    return kg < held ? 0.0 : kg - held;
+}
+
+void vl_written_state(const double *y, double *w)
+{
+    memcpy(w, y, VL_NSTATE * sizeof *w);
+    double owed[VL_NELEMENTS] = {0};
+    for (int r = 0; r < VL_NRES; r++)
+        if (y[r] < 0.0) {
+            for (int el = 0; el < VL_NELEMENTS; el++)
+                owed[el] += -y[r] * vl_reservoir_element_fraction(r, el);
+            w[r] = 0.0;
+        }
+    for (int el = 0; el < VL_NELEMENTS; el++)
+        if (owed[el] > 0.0)
+            take_element(w, el, owed[el]);
+}
+
 void vl_written_totals(const double *y, double out[VL_NELEMENTS])
 {
-    double w[VL_NRES];
-    for (int r = 0; r < VL_NRES; r++)
-        w[r] = y[r] > 0.0 ? y[r] : 0.0;
+    double w[VL_NSTATE];
+    vl_written_state(y, w);
     vl_ledger_totals(w, out);
 }
 
