@@ -92,9 +92,10 @@ static double branch_temp(const column *c, column_work *w, vl_balance *b, int re
 /* The homopause's water mixing ratio f (the table's, for a column saturated wherever it
  * can be) capped by the vapour's share of the column, x_v = n_v / (n_v + n_dry), of the
  * water actually in the air: the stratosphere cannot hold more water per molecule than
- * the whole column does (the cold trap only removes it). Without the cap a dry planet
- * with a hot surface under a thin atmosphere kept f = 0.99 with no water at all, so its
- * escape stage saw an upper atmosphere of water-borne hydrogen that was not there
+ * the whole column does (the cold trap only removes it: a mass balance, common
+ * practice). Without the cap a dry planet with a hot surface under a thin atmosphere
+ * kept f = 0.99 with no water at all, so its escape stage saw an upper atmosphere of
+ * water-borne hydrogen that was not there
  * (docs/model.md section 3, docs/hardening.md "Stalls"). f is returned unchanged while
  * f <= x_v (every planet with the water its stratosphere holds); above, x_v g(f / x_v)
  * with g(u) = u - (u - 1)^2 / (4 k) on [1, 1 + 2k] and 1 + k beyond, k = CAP_KNEE:
