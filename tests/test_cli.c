@@ -144,12 +144,7 @@ START_TEST(run_report_readable)
     char *sum = vl_test_slurp(tmpdir, "v/summary.csv", NULL);
     ck_assert(out && sum);
     ck_assert_msg(strncmp(out, "end at 4.57 Gyr: ", 17) == 0, "%s", out); /* venus.cfg's end */
-    /* the last of the water: below its reservoir's floor (1e9 kg, reservoir.h), a few
-     * kilograms at most; with the stratosphere's water capped by the vapour left
-     * (docs/model.md section 3.2) its diffusion-limited escape tails off exponentially
-     * instead of stopping at exactly zero */
-    ck_assert_msg(summary_row(sum, "final_surface_water") < 1e9, "final water %g kg",
-                  summary_row(sum, "final_surface_water"));
+    ck_assert_double_eq(summary_row(sum, "final_surface_water"), 0.0);
     ck_assert_ptr_nonnull(strstr(out, "\nwater: none at the surface"));
     char lost[64];
     snprintf(lost, sizeof lost, "%.3g TO lost to space", summary_row(sum, "water_lost_to_space"));
