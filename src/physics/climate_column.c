@@ -86,6 +86,33 @@ static double branch_temp(const column *c, column_work *w, vl_balance *b, int re
     return vl_balance_ghost(b, c->table, &w->la, &c->surface, br, c->split_k);
 }
 
+/* Relative width of the knee of vapour_capped (C1 in its arguments; common practice). */
+#define CAP_KNEE 0.05
+
+/* The homopause's water mixing ratio f (the table's, for a column saturated wherever it
+ * can be) capped by the vapour's share of the column, x_v = n_v / (n_v + n_dry), of the
+ * water actually in the air: the stratosphere cannot hold more water per molecule than
+ * the whole column does (the cold trap only removes it: a mass balance, common
+ * practice). Without the cap a dry planet with a hot surface under a thin atmosphere
+ * kept f = 0.99 with no water at all, so its escape stage saw an upper atmosphere of
+ * water-borne hydrogen that was not there
+ * (docs/model.md section 3, docs/hardening.md "Stalls"). f is returned unchanged while
+ * f <= x_v (every planet with the water its stratosphere holds); above, x_v g(f / x_v)
+ * with g(u) = u - (u - 1)^2 / (4 k) on [1, 1 + 2k] and 1 + k beyond, k = CAP_KNEE:
+ * continuous with its first derivative, never above f nor above (1 + k) x_v, and 0
+ * without vapour. */
+static double vapour_capped(double f, double vapour_kg, const vl_dry_air *air)
+{
+    double nv = vapour_kg / vl_species_molar_mass(VL_SP_H2O);
+    double x = nv > 0.0 ? nv / (nv + air->mol) : 0.0;
+    if (!(x > 0.0))
+        return 0.0;
+    if (f <= x)
+        return f;
+    double u = f / x, k = CAP_KNEE;
+    return x * (u >= 1.0 + 2.0 * k ? 1.0 + k : u - (u - 1.0) * (u - 1.0) / (4.0 * k));
+}
+
 static void column_eval(const void *state, void *work, double water_kg, vl_env *env)
 {
     const column *c = state;
@@ -111,6 +138,7 @@ static void column_eval(const void *state, void *work, double water_kg, vl_env *
     vl_dry_air air;
     vl_climate_dry_air(env, &air);
     vl_climate_partition(water_kg, 0, &air, env); /* saturated, at most all of it */
+    env->f_strat = vapour_capped(env->f_strat, env->vapour_kg, &air);
     env->liquid = 0.0;
     if (wet_regime(env->regime) && t < VL_WATER_TC_K) /* the ice-free share of the ocean */
         env->liquid = vl_smoothstep(t, c->cp.ice_cover_k, c->cp.ice_free_k);
