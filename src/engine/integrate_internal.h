@@ -38,9 +38,6 @@ typedef struct {
      * components fixed at their (zero) start. */
     int na, idx[VL_NSTATE];
     double full[VL_NSTATE];
-    signed char jac_zone[VL_NRES]; /* each reservoir's depletion zone where the Jacobian
-                                    * was last formed (stepper.c, depletion_zone) */
-    int jac_formed;                /* Jacobians formed (the stepper's watch) */
 } vl_ode;
 
 /* The components of the state a history of m starting at y0 can change, in state order,
@@ -67,7 +64,6 @@ typedef struct {
     vl_ode *ode;
     double end_s, norm_scale;
     long steps_before, jacs_before;
-    int jac_due; /* nonzero: a new Jacobian asked of CVODE (zone_crossed), jac_formed then */
     char msg[200];
 } vl_stepper;
 

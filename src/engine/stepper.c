@@ -77,14 +77,6 @@ static int roots(double t, N_Vector yv, double *g, void *pv)
     return 0;
 }
 
-/* The depletion zone of reservoir j at mass m: below zero (-1), inside its floor band
- * (0), above it (1). flux.c's depletion ramp is linear, quadratic and flat there, so a
- * Jacobian formed in one zone can be wrong by orders of magnitude in another. */
-static int depletion_zone(int j, double m)
-{
-    return m < 0.0 ? -1 : m < vl_reservoir_floor(j) ? 0 : 1;
-}
-
 /* Forward-difference Jacobian (CVLsJacFn) of the active components from CVODE's f(t, y);
  * increments scale with each reservoir's floor band. */
 static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vector t1,
@@ -95,14 +87,15 @@ static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vec
     const double *f0 = N_VGetArrayPointer(fy);
     double sq = sqrt(DBL_EPSILON);
     memcpy(c->yt, unpack(c, N_VGetArrayPointer(yv)), sizeof c->yt);
-    for (int j = 0; j < VL_NRES; j++)
-        c->jac_zone[j] = (signed char)depletion_zone(j, c->yt[j]);
-    c->jac_formed++;
     for (int k = 0; k < c->na; k++) {
         int j = c->idx[k];
         double *col = SUNDenseMatrix_Column(jm, k), yj = c->yt[j];
-        /* no process reads space; a mantle that never was molten has no temperature */
-        if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && yj == 0.0)) {
+        /* a mantle that never was molten has no temperature. Space is differenced like
+         * any reservoir: the reversed flows of flux.c (give_back) draw on it, ramped by
+         * what it holds, so its columns are not zero; left out, the Newton iteration did
+         * not see that a reversal stops as space_o empties, and space_o chattered about
+         * zero under O2 below zero (campaign seed 3 members 24 and 44 stalled, issue 18) */
+        if (j == VL_S_MANTLE_TP && yj == 0.0) {
             for (int i = 0; i < c->na; i++)
                 col[i] = 0.0;
             continue;
@@ -198,7 +191,6 @@ void vl_stepper_free(vl_stepper *s)
         SUNMatDestroy(s->jm);
     if (s->abstol)
         N_VDestroy(s->abstol);
-
     if (s->y)
         N_VDestroy(s->y);
     if (s->ctx)
@@ -229,40 +221,6 @@ int vl_stepper_restart(vl_stepper *s, double t, const double *y, double h0, vl_s
         CVodeSetStopTime(s->cv, s->end_s))
         return vl_fail(st, VL_ERR_NUMERIC, NULL, 0, "integrator restart failed at age %.6g yr: %s",
                        t / VL_YR, s->msg);
-    return VL_OK;
-}
-
-/* A reservoir that crossed into another depletion zone since the Jacobian was formed
- * asks CVODE for a new one at the next step (CVODE keeps a Jacobian up to 50 steps and
- * its Newton matrix up to 20 by default); CVODE's rhythm returns once it is formed.
- * Without it, a Jacobian formed while O2 was 2.6e3 kg below zero (ramp slope 2 x
- * demand / band) stayed in use while O2 rose through its band: the stiff diagonal made
- * O2's Newton corrections vanish, the steps followed the predictor and O2 grew by 1e14
- * kg per step out of space_o against tendencies below 4e-4 kg/s (campaign seed 1 member
- * 35, issue 18; seed 3 members 24, 44, 83 stalled before it, docs/hardening.md). */
-static int zone_crossed(vl_stepper *s, const double *y, vl_status *st)
-{
-    vl_ode *c = s->ode;
-    if (s->jac_due && c->jac_formed != s->jac_due) { /* formed: back to CVODE's rhythm */
-        s->jac_due = 0;
-        if (CVodeSetJacEvalFrequency(s->cv, 0) || CVodeSetLSetupFrequency(s->cv, 0))
-            return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "integrator setting refused: %s",
-                           s->msg);
-    }
-    if (s->jac_due || c->jac_formed == 0)
-        return VL_OK;
-    int crossed = 0;
-    for (int k = 0; k < c->na && !crossed; k++) {
-        int j = c->idx[k];
-        int space = j >= VL_R_SPACE_H && j <= VL_R_SPACE_D; /* no process reads space */
-        crossed = j < VL_NRES && !space && depletion_zone(j, y[j]) != c->jac_zone[j];
-    }
-    if (!crossed)
-        return VL_OK;
-    s->jac_due = c->jac_formed;
-    if (CVodeSetJacEvalFrequency(s->cv, 1) || CVodeSetLSetupFrequency(s->cv, 1))
-        return vl_fail(st, VL_ERR_INTERNAL, NULL, 0, "integrator setting refused: %s",
-                       s->msg);
     return VL_OK;
 }
 
@@ -300,7 +258,7 @@ int vl_stepper_step(vl_stepper *s, double *t, double *y, int *root, long *restar
         return failed(s, st, *t);
     memcpy(y, unpack(s->ode, yv), VL_NSTATE * sizeof *y);
     *root = rc == CV_ROOT_RETURN;
-    return zone_crossed(s, y, st);
+    return VL_OK;
 }
 
 /* Derivative k of CVODE's interpolating polynomial at t, the active components into p. */
@@ -347,23 +305,4 @@ unsigned long vl_stepper_exhausted(vl_stepper *s, unsigned long armed)
         if (found[r] && (armed >> r & 1UL))
             ex |= 1UL << r;
     return ex;
-}
-
-/* TEMP DEBUG */
-void vl_stepper_debug(vl_stepper *s);
-void vl_stepper_debug(vl_stepper *s)
-{
-    int n = s->ode->na;
-    N_Vector e = N_VClone(s->y), w = N_VClone(s->y);
-    CVodeGetEstLocalErrors(s->cv, e);
-    CVodeGetErrWeights(s->cv, w);
-    double *ye = N_VGetArrayPointer(s->y), *ee = N_VGetArrayPointer(e), *we = N_VGetArrayPointer(w);
-    double h; CVodeGetLastStep(s->cv, &h);
-    int q; CVodeGetLastOrder(s->cv, &q);
-    fprintf(stderr, "h=%g s order %d\n", h, q);
-    for (int i = 0; i < n; i++) {
-        int k = s->ode->idx[i];
-        fprintf(stderr, "%-28s y=%-14g err*w=%-12g\n", k < VL_NRES ? vl_reservoir_name(k) : "Tp", ye[i], ee[i]*we[i]);
-    }
-    N_VDestroy(e); N_VDestroy(w);
 }
