@@ -90,8 +90,12 @@ static int jac(double t, N_Vector yv, N_Vector fy, SUNMatrix jm, void *pv, N_Vec
     for (int k = 0; k < c->na; k++) {
         int j = c->idx[k];
         double *col = SUNDenseMatrix_Column(jm, k), yj = c->yt[j];
-        /* no process reads space; a mantle that never was molten has no temperature */
-        if ((j >= VL_R_SPACE_H && j <= VL_R_SPACE_D) || (j == VL_S_MANTLE_TP && yj == 0.0)) {
+        /* a mantle that never was molten has no temperature. Space is differenced like
+         * any reservoir: the reversed flows of flux.c (give_back) draw on it, ramped by
+         * what it holds, so its columns are not zero; left out, the Newton iteration did
+         * not see that a reversal stops as space_o empties, and space_o chattered about
+         * zero under O2 below zero (campaign seed 3 members 24 and 44 stalled, issue 18) */
+        if (j == VL_S_MANTLE_TP && yj == 0.0) {
             for (int i = 0; i < c->na; i++)
                 col[i] = 0.0;
             continue;
