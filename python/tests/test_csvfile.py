@@ -63,9 +63,14 @@ class CsvLayer(unittest.TestCase):
 
     def test_nan_and_hex_text_is_not_a_number(self):
         # volev never writes nan, inf or hexadecimal (docs/hardening.md): such a field
-        # is text, and the column stays text rather than becoming a float NaN.
+        # stays text (never a float NaN); the numbers beside it in a mixed column are
+        # numbers, as a compare.csv value column beside the final regime's name
         raw = read_raw(self.write("t.csv", "a,b\nnan,0x10\n1,2\n"))
-        self.assertEqual(raw.kinds, {"a": "text", "b": "text"})
+        self.assertEqual(raw.kinds, {"a": "mixed", "b": "mixed"})
+        self.assertEqual(raw.columns["a"], ["nan", 1.0])
+        self.assertEqual(raw.columns["b"], ["0x10", 2.0])
+        raw = read_raw(self.write("t.csv", "a\nnan\ninf\n"))
+        self.assertEqual(raw.kinds, {"a": "text"})
 
     def test_quoted_field_with_comma_and_quote(self):
         text = 'member,reason\n0,"bad value, ""x"" here"\n1,\n'

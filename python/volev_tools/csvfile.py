@@ -132,12 +132,18 @@ def _split(line, nfields, rest):
 
 
 def _typed(values):
-    """(kind, values): the column's fields as numbers when all non-empty ones are."""
+    """(kind, values): the column's fields as numbers when all non-empty ones are; a
+    column that holds both ("mixed": a run's value column of compare.csv, where the final
+    regime is a name) keeps each number as a float and each word as text."""
     present = [v for v in values if v != ""]
-    if all(_NUMBER.match(v) for v in present):
+    numeric = [bool(_NUMBER.match(v)) for v in present]
+    if all(numeric):
         if all(_INTEGER.match(v) for v in present):
             return "int", [int(v) if v != "" else None for v in values]
         return "float", [float(v) if v != "" else None for v in values]
+    if any(numeric):
+        return "mixed", [None if v == "" else float(v) if _NUMBER.match(v) else v
+                         for v in values]
     return "text", [v if v != "" else None for v in values]
 
 

@@ -52,7 +52,7 @@ def make_table(raw, backend="auto"):
     data = {}
     for name in raw.header:
         values, kind = raw.columns[name], raw.kinds[name]
-        if kind == "text":
+        if kind in ("text", "mixed"):
             dtype = object
         elif kind == "int" and None not in values:
             dtype = "int64"
