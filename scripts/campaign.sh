@@ -37,8 +37,9 @@
 # and prints the counts. Exit 0 when every member is ok (issue 18's goal: no crash,
 # stall, invariant break, NaN or residual; a bounded or failed run, a refusal, counts
 # too), 1 otherwise, 2 for bad arguments. Environment:
-# CAMPAIGN_ALLOW (classes, space-separated, that do not make the exit 1, e.g. "bounded"
-# while stalls are still open; they are counted and listed all the same),
+# CAMPAIGN_KNOWN (member numbers, space-separated, of defects documented as open in
+# docs/hardening.md: counted and listed all the same, but they do not make the exit 1;
+# any other member that is not ok does),
 # CAMPAIGN_LIMIT_S (wall-clock limit per member, default 120), CAMPAIGN_JOBS (members run
 # at once, default 2).
 set -u
@@ -141,9 +142,15 @@ for c in ok bounded invariant failed refused nan residual timeout crash; do
     printf '  %-10s %d\n' "$c" "$(awk -F, -v c="$c" 'NR > 1 && $3 == c' "$out/campaign.csv" | wc -l)"
 done
 awk -F, 'NR > 1 { s += $4; if ($4 > m) m = $4 } END { printf "  seconds per member: mean %.2f, max %.2f\n", s / (NR - 1), m }' "$out/campaign.csv"
-allow=" ${CAMPAIGN_ALLOW:-} "
-bad=$(awk -F, -v allow="$allow" 'NR > 1 && $3 != "ok" && index(allow, " " $3 " ") == 0' "$out/campaign.csv" | wc -l)
-[ -n "${CAMPAIGN_ALLOW:-}" ] && echo "  not counted as defects here (CAMPAIGN_ALLOW): ${CAMPAIGN_ALLOW}"
+known=" ${CAMPAIGN_KNOWN:-} "
+bad=$(awk -F, -v known="$known" 'NR > 1 && $3 != "ok" && index(known, " " $1 " ") == 0' "$out/campaign.csv" | wc -l)
+if [ -n "${CAMPAIGN_KNOWN:-}" ]; then
+    echo "  known open members, listed but not failing the campaign (CAMPAIGN_KNOWN):${known% }"
+    for n in ${CAMPAIGN_KNOWN}; do
+        awk -F, -v n="$n" 'NR > 1 && $1 == n && $3 == "ok" { found = 1 } END { exit !found }' \
+            "$out/campaign.csv" && echo "  known member $n now passes: take it off CAMPAIGN_KNOWN"
+    done
+fi
 # every member that is not ok, with the first line of what it printed on stderr
 awk -F, 'NR > 1 && $3 != "ok" { print $1, $3 }' "$out/campaign.csv" | while read -r n class; do
     printf '  member %s (%s): %s\n' "$n" "$class" "$(head -n 1 "$out/runs/$n.err" 2>/dev/null | cut -c1-200)"
