@@ -23,6 +23,7 @@
 
 #include "cli.h"
 #include "gnuplot.h"
+#include "plot_text.h"
 #include "volev/schema.h"
 #include "volev/climate.h"
 #include "volev/csv.h"
@@ -244,11 +245,22 @@ static int plot_run(job_t *j, int kind, const char *dir, vl_status *st)
     if (rc)
         return rc;
     if (kind == K_HISTORY) {
-        int have_events = readable(dir, "events.csv");
-        if (have_events && check_complete(events, VL_CSV_REST, st) != VL_OK)
-            return st->code;
-        const char *args[] = {data, "", have_events ? events : "", j->title};
-        return render(j, kind, dir, args, 4, 1, st);
+        /* the events in words (plot_text.h), and the title from the scenario */
+        char *ev = NULL, title[1200];
+        if (readable(dir, "events.csv")) {
+            if (check_complete(events, VL_CSV_REST, st) != VL_OK)
+                return st->code;
+            if (!(ev = vl_plot_events_word(events, st)))
+                return st->code;
+        }
+        if (j->title[0])
+            snprintf(title, sizeof title, "%s", j->title);
+        else
+            vl_plot_run_title(dir, title, sizeof title);
+        const char *args[] = {data, "", ev ? ev : "", title};
+        rc = render(j, kind, dir, args, 4, 1, st);
+        free(ev);
+        return rc;
     }
     const char *args[] = {data, "", j->title};
     return render(j, kind, dir, args, 3, 1, st);
