@@ -6,7 +6,7 @@
 #   OUT         the figure; its extension picks the format (required)
 #   EVENTS      the run's events, as `volev plot` makes them from events.csv (optional;
 #               "" means none): one line "TIME GROUP TEXT" per time with events, e.g.
-#               "6.69e+08 1 magma ocean solidified (669 Myr)". Each TIME is a vertical
+#               "6.694747607e+08 1 magma ocean solidified (669 Myr)". Each TIME is a vertical
 #               line through every panel, numbered GROUP above the top panel; the
 #               numbers and their TEXT are listed below the figure (times too close to
 #               tell apart share a number; only the first line of a group has TEXT).
@@ -99,7 +99,7 @@ do for [i = 1:hs_nev] {
     if (hs_s1 == 0 || hs_s2 == 0) {
         vl_msg = sprintf("EVENTS line %d, '%s', is not TIME GROUP TEXT", i, hs_line); eval VL_FAIL
     }
-    hs_ev_t[i] = real(hs_line[1:hs_s1 - 1])
+    hs_ev_t[i] = vl_num(hs_line[1:hs_s1 - 1])
     hs_ev_g[i] = int(hs_line[hs_s1 + 1:hs_s1 + hs_s2 - 1])
     hs_ev_x[i] = hs_line[hs_s1 + hs_s2 + 1:]
 }

@@ -104,6 +104,12 @@ cls_rgb   = "#999999 #D55E00 #CC79A7 #DDCCA1 #56B4E9 #009E73 #7A1F1F"
 clscol(i) = (i == 1) ? 0x999999 : (i == 2) ? 0xD55E00 : (i == 3) ? 0xCC79A7 : \
             (i == 4) ? 0xDDCCA1 : (i == 5) ? 0x56B4E9 : (i == 7) ? 0x7A1F1F : 0x009E73
 
+# the number a string holds: gnuplot 5.4's real() refuses a mantissa without a point
+# before its exponent ("1e+09"), so one is put in ("1.0e+09")
+vl_epos(s) = (strstrt(s, "e") > 0) ? strstrt(s, "e") : strstrt(s, "E")
+vl_num(s) = (vl_epos(s) > 1 && strstrt(s, ".") == 0) ? \
+    real(s[1:vl_epos(s) - 1] . ".0" . s[vl_epos(s):]) : real(s)
+
 # decade bounds for a log axis showing at most `dec` decades below the maximum
 decfloor(mn, mx, dec) = 10.0**floor(log10(mn > mx * 10.0**(-dec) ? mn : mx * 10.0**(-dec)) - 0.02)
 decceil(mx) = 10.0**ceil(log10(mx) + 0.02)

@@ -258,7 +258,7 @@ char *vl_plot_events_word(const char *path, vl_status *st)
         text[lead] = p;
     }
     for (size_t k = 0; k < ntimes && !fail; k++) {
-        snprintf(line, sizeof line, "%.9g %d %s\n", time[k], group[k], text[k] ? text[k] : "");
+        snprintf(line, sizeof line, "%.9e %d %s\n", time[k], group[k], text[k] ? text[k] : "");
         fail = append(&buf, &len, &cap, line);
     }
     for (size_t k = 0; text && k < ntimes; k++)

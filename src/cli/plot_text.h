@@ -15,7 +15,7 @@ void vl_plot_run_title(const char *dir, char *out, size_t n);
 
 /* The events of events.csv at path (start and end left out) as the EVENTS argument of
  * plots/history.gp: one line "TIME GROUP TEXT" per time with events, TEXT in words with
- * the age, e.g. "6.69e+08 1 magma ocean solidified, runaway greenhouse began (669 Myr)";
+ * the age, e.g. "6.694747607e+08 1 magma ocean solidified, runaway greenhouse began (669 Myr)";
  * times too close to tell apart on the figure share a group number and the first of
  * them carries the text of all. "" when there are none. Allocated (free it); NULL with
  * st filled on a read error. */
