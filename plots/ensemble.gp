@@ -301,7 +301,7 @@ unset logscale y
 unset mxtics
 set xrange [0.4:en_ncls + 0.6]
 set xtics () scale 0 noenhanced
-do for [i = 1:en_ncls] { set xtics add (word(cls_names, i) i) }
+do for [i = 1:en_ncls] { set xtics add (word(cls_text, i) i) }
 set xlabel "Outcome class"
 set yrange [0:(en_fmax > 0.85 ? 1.12 : en_fmax * 1.15 + 0.05)]
 set ytics 0.2 format "%.1f"

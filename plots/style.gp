@@ -100,6 +100,8 @@ regcol(x) = (x == 0) ? 0xDDCCA1 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
 # outcome classes of a sweep, in docs/ensembles.md order; colours follow the regime
 # each class ends in (o2_rich: reddish purple, failed: grey, hatched in the maps)
 cls_names = "failed steam o2_rich desiccated frozen ocean_kept molten"
+# and as the figures name them (plain text: no markup)
+cls_text  = 'failed steam O2-rich desiccated frozen "ocean kept" molten'
 cls_rgb   = "#999999 #D55E00 #CC79A7 #DDCCA1 #56B4E9 #009E73 #7A1F1F"
 clscol(i) = (i == 1) ? 0x999999 : (i == 2) ? 0xD55E00 : (i == 3) ? 0xCC79A7 : \
             (i == 4) ? 0xDDCCA1 : (i == 5) ? 0x56B4E9 : (i == 7) ? 0x7A1F1F : 0x009E73
