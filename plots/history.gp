@@ -9,7 +9,8 @@
 #               "6.694747607e+08 1 magma ocean solidified (669 Myr)". Each TIME is a vertical
 #               line through every panel, numbered GROUP above the top panel; the
 #               numbers and their TEXT are listed below the figure (times too close to
-#               tell apart share a number; only the first line of a group has TEXT).
+#               tell apart share a number; only the first line of a group has TEXT;
+#               GROUP 0: a line without number or words, counted in the list).
 #   TITLE       figure title (optional; default the folder of SERIES.csv; `volev plot`
 #               passes the scenario, planet and star)
 #
@@ -350,6 +351,7 @@ if (xuv_on) { xuv_lo = decfloor(smin, smax, 10); xuv_hi = decceil(smax) }
 # the start and end of the run, fall on the frame and are left out)
 ev_in(t) = (t > tmin * 1.0001 && t < tmax / 1.0001)
 nev_drawn = 0
+ev_unnumbered = 0
 hs_ev_list = ""
 do for [i = 1:hs_nev] {
     if (ev_in(hs_ev_t[i])) {
@@ -359,7 +361,11 @@ do for [i = 1:hs_nev] {
         if (strlen(hs_ev_x[i]) > 0) {
             hs_ev_list = hs_ev_list . sprintf("%s%d %s", strlen(hs_ev_list) > 0 ? "\t" : "", hs_ev_g[i], hs_ev_x[i])
         }
+        if (hs_ev_g[i] == 0) { ev_unnumbered = ev_unnumbered + 1 }
     }
+}
+if (ev_unnumbered > 0) {
+    hs_ev_list = hs_ev_list . sprintf("%s%d more not numbered (events.csv)", strlen(hs_ev_list) > 0 ? "\t" : "", ev_unnumbered)
 }
 # the list, wrapped to lines of at most ev_wrap characters
 ev_wrap = 120

@@ -201,7 +201,9 @@ static size_t one_time(const events_t *e, size_t i, char *out, size_t n)
     double t = e->ev[i].t_yr;
     size_t used = 0;
     out[0] = '\0';
-    for (; i < e->n && e->ev[i].t_yr == t && used < n; i++) {
+    for (; i < e->n && e->ev[i].t_yr == t; i++) { /* every event at t, kept while room */
+        if (used >= n)
+            continue;
         int k = snprintf(out + used, n - used, "%s%s", used ? ", " : "", e->ev[i].text);
         used += k > 0 ? (size_t)k : 0;
     }
@@ -211,6 +213,9 @@ static size_t one_time(const events_t *e, size_t i, char *out, size_t n)
         snprintf(out + used, n - used, " (%s)", age);
     return i;
 }
+
+/* Groups of events numbered on the figure, and the words of one group (characters). */
+enum { GROUPS_MAX = 9, GROUP_TEXT_MAX = 240 };
 
 char *vl_plot_events_word(const char *path, vl_status *st)
 {
@@ -223,8 +228,11 @@ char *vl_plot_events_word(const char *path, vl_status *st)
     /* One line per time with events: "TIME GROUP TEXT". Times closer than 1/60 of the
      * run's decades to the first of their group (about 8 px on the history figure's age
      * axis, too close for two numbers) share its number, and the group's first line
-     * holds the words of all of them, "; " between times; later lines have no text.
-     * events.csv lists events in time order. */
+     * holds the words of all of them, "; " between times, up to GROUP_TEXT_MAX
+     * characters ("; ..." for the rest); later lines have no text. Past GROUPS_MAX
+     * groups (a climate flickering between two regimes logs many) a time has group 0
+     * and no text: a line on the figure, without number or words. events.csv lists
+     * events in time order. */
     double span = e.start_yr > 0 && e.end_yr > e.start_yr ? log10(e.end_yr / e.start_yr) : 1.0;
     size_t ntimes = 0;
     for (size_t i = 0; i < e.n; i++)
@@ -236,6 +244,7 @@ char *vl_plot_events_word(const char *path, vl_status *st)
     size_t len = 0, cap = 0;
     int fail = !text || !time || !group || append(&buf, &len, &cap, "");
     size_t lead = 0; /* the first time of the current group */
+    int ngroups = 0;
     for (size_t i = 0, k = 0; i < e.n && !fail; k++) {
         time[k] = e.ev[i].t_yr;
         i = one_time(&e, i, words, sizeof words);
@@ -243,8 +252,16 @@ char *vl_plot_events_word(const char *path, vl_status *st)
                     log10(time[k] / time[lead]) < span / 60.0;
         if (!joins)
             lead = k;
-        group[k] = joins ? group[lead] : (k ? group[k - 1] + 1 : 1);
+        ngroups += !joins;
+        group[k] = ngroups <= GROUPS_MAX ? ngroups : 0;
+        if (group[k] == 0)
+            continue;
         size_t have = text[lead] ? strlen(text[lead]) : 0;
+        if (have > GROUP_TEXT_MAX) {
+            if (strcmp(text[lead] + have - 3, "...") != 0)
+                strcpy(text[lead] + have - 5, "; ..."); /* over the last 5 characters */
+            continue;
+        }
         char *p = realloc(text[lead], have + strlen(words) + 3);
         if (!p) {
             fail = 1;
