@@ -239,6 +239,7 @@ if (strlen(en_tics) > 0) { eval "set xtics (" . en_tics_blank . ")" }
 # one quantile panel: column prefix EN_Q (water_to / o2_bar), axis [en_lo:en_hi],
 # colours en_outer, en_inner, en_line, notes en_clip, en_gaps
 EN_PANEL = 'set yrange [en_lo:en_hi]; set format y "10^{%L}"; \
+    if (log10(en_hi / en_lo) > 7) { set ytics 100; set mytics 2 } else { set ytics autofreq; set mytics 10 }; \
     if (en_clip > 0 || en_gaps > 0) { \
         set label 3 (en_clip > 0 ? en_clipnote : "") . (en_clip > 0 && en_gaps > 0 ? "\n" : "") . \
             (en_gaps > 0 ? en_gapnote : "") at screen en_key_x, en_ptop - 0.105 left front font ",9" \
@@ -309,7 +310,7 @@ unset logscale x
 unset logscale y
 unset mxtics
 set xrange [0.4:en_ncls + 0.6]
-set xtics () scale 0 noenhanced
+set xtics () scale 0 noenhanced font ",10"
 do for [i = 1:en_ncls] { set xtics add (word(cls_text, i) i) }
 set xlabel "Outcome class"
 set yrange [0:(en_fmax > 0.85 ? 1.12 : en_fmax * 1.15 + 0.05)]

@@ -396,7 +396,7 @@ P_rowh = 0.0135
 # (entries of panels (c) and (e) are long: at most 3 to a row; the others fit 6)
 K_cols = "6 6 3 6 3 6"
 K_rows = sprintf("%d 1 %d 1 %d 1", nev_drawn > 0 ? 1 : 0, \
-    (2 + mtp_on + words(reg_on) + 2) / 3, (nc + 1 + 2) / 3)
+    (1 + mtp_on + words(reg_on) + 2) / 3, (nc + 1 + 2) / 3)
 P_top = 0.955 - P_rowh * word(K_rows, 1)
 P_bot = 0.055 + 0.011 * ev_lines
 P_gap = 0.012
@@ -508,7 +508,6 @@ plot hs_data \
      for [z = 1:mtp_on] hs_data using (tclamp(column("time_yr"))): \
         (column("regime") == 5 ? column("mantle_temp_k") : 1/0) \
         with @HS_W lw 1.5 dt 2 lc rgb "#7A1F1F" title "mantle (molten)", \
-     keyentry with boxes fc rgb "#ffffff" title "regime (strip):", \
      for [k = 1:words(reg_on)] keyentry with boxes fc rgb word(reg_rgb, nth(reg_on, k)) \
         title word(reg_names, nth(reg_on, k))
 
