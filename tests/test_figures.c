@@ -161,6 +161,8 @@ START_TEST(missing_columns_named)
     } cases[] = {
         {"wet", "series.csv", "p_o2_bar", "history", ""},
         {"wet", "series.csv", "luminosity_lsun", "history", ""},
+        {"wet", "series.csv", "n_escape_kg_s", "history", ""},
+        {"wet", "series.csv", "regime", "comparison", " dry"},
         {"bal", "balance.csv", "olr_w_m2", "balance", ""},
         {"map", "ensemble_series.csv", "water_to_p50", "ensemble", ""},
         {"map", "ensemble_summary.csv", "fraction", "ensemble", ""},
