@@ -4,9 +4,11 @@
 #
 #   BALANCE.csv  balance.csv written by `volev balance` (required)
 #   OUT          the figure; its extension picks the format (required)
-#   TITLE        figure title (optional; default "energy balance, " and the folder of
-#                BALANCE.csv); the stellar age and instellation of the `# stellar age`
-#                comment line of BALANCE.csv, when present, go underneath
+#   TITLE        figure title (optional; default "Energy balance at a stellar age of"
+#                and the age of BALANCE.csv's `# stellar age` comment line, or of the
+#                folder of BALANCE.csv without one); the instellation, S_eff, the
+#                star's Teff and the runaway threshold from the comment lines of
+#                BALANCE.csv, when present, go underneath in proper units
 #
 # Both panels share the surface-temperature axis:
 # The surface-temperature axis covers the whole table (150-3000 K), logarithmic; the flux
@@ -60,12 +62,25 @@ do for [k = 1:words(bl_required)] {
         eval BL_DIE
     }
 }
+# "# stellar age 1e+07 yr: instellation 19930.5 W/m^2 (s_eff 14.644), Teff 3250 K" and
+# "# runaway threshold s_eff 0.901828; ...": their numbers, "" when the lines are absent
+bl_nums = system(sprintf("sed -n 's/^# *stellar age \\([^ ]*\\) yr: instellation \\([^ ]*\\) W\\/m^2 (s_eff \\([^)]*\\)), Teff \\([^ ]*\\) K.*$/\\1 \\2 \\3 \\4/p' %s | head -n 1", bl_sh(bl_data)))
+bl_run = system(sprintf("sed -n 's/^# *runaway threshold s_eff \\([^ ;]*\\).*$/\\1/p' %s | head -n 1", bl_sh(bl_data)))
+# an age in words: "1 Gyr", "350 Myr", "20 kyr"
+bl_age(y) = (y >= 1e9) ? sprintf("%.3g Gyr", y / 1e9) : (y >= 1e6) ? sprintf("%.3g Myr", y / 1e6) : \
+            (y >= 1e3) ? sprintf("%.3g kyr", y / 1e3) : sprintf("%.3g yr", y)
+bl_sub = ""
+if (words(bl_nums) == 4) {
+    bl_sub = sprintf("instellation %.4g W m^{-2} (S_{eff} %.3g%s), stellar T_{eff} %.0f K", \
+        vl_num(word(bl_nums, 2)), vl_num(word(bl_nums, 3)), \
+        strlen(bl_run) > 0 ? sprintf("; runaway greenhouse above %.3g", vl_num(bl_run)) : "", \
+        vl_num(word(bl_nums, 4)))
+}
 if (strlen(bl_title) == 0) {
     bl_slash = bl_rpos(bl_data, "/", strlen(bl_data))
-    bl_title = "energy balance, " . ((bl_slash == 0) ? "." : (bl_slash == 1) ? "/" : bl_data[1:bl_slash - 1])
+    bl_title = (words(bl_nums) == 4) ? "Energy balance at a stellar age of " . bl_age(vl_num(word(bl_nums, 1))) : \
+        "Energy balance, " . ((bl_slash == 0) ? "." : (bl_slash == 1) ? "/" : bl_data[1:bl_slash - 1])
 }
-# "stellar age 1e+07 yr: instellation 19930.5 W/m^2 (s_eff 14.644), Teff 3250 K"
-bl_sub = system(sprintf("sed -n 's/^# *\\(stellar age .*\\)$/\\1/p' %s | head -n 1", bl_sh(bl_data)))
 
 eval VL_BASE
 
@@ -137,7 +152,7 @@ if (sw_max > 0) {
 }
 
 # ------------------------------------------------------------------ layout
-L_left = 0.105; L_right = 0.62; key_x = 0.735
+L_left = 0.11; L_right = 0.87
 P_top = (strlen(bl_sub) > 0) ? 0.905 : 0.935
 P_bot = 0.08; P_gap = 0.025
 P_h = (P_top - P_bot - P_gap) / 2.0
@@ -149,7 +164,7 @@ pos(v) = (v > 0) ? v : 1/0
 eval VL_TERM
 set multiplot
 set label 100 bl_title at screen 0.5, 0.975 center noenhanced font ",13"
-if (strlen(bl_sub) > 0) { set label 101 bl_sub at screen 0.5, 0.945 center noenhanced }
+if (strlen(bl_sub) > 0) { set label 101 bl_sub at screen 0.5, 0.945 center enhanced }
 set lmargin at screen L_left
 set rmargin at screen L_right
 set xrange [T_min:T_hi]
@@ -161,8 +176,8 @@ if (T_hi > 3.0 * T_min) {
     set mxtics 5
 }
 PANEL = 'set tmargin at screen ptop(bl_p); set bmargin at screen pbot(bl_p); \
-    set key at screen key_x, ptop(bl_p) left top; \
-    set label 1 sprintf("(%c)", 96 + bl_p) at screen 0.012, ptop(bl_p) - 0.004 left font ",12"'
+    set key opaque box lc rgb "#ffffff" at graph 0.02, 0.97 left top; \
+    set label 1 sprintf("(%c)", 96 + bl_p) at screen 0.012, ptop(bl_p) + 0.012 left font ",12"'
 
 # ------------------------------------------------------------ (a) fluxes
 bl_p = 1; eval PANEL
@@ -196,6 +211,8 @@ plot bl_data using (column("surface_temp_k")):(column("olr_w_m2")) \
 # ------------------------------------------------------------ (b) albedo, stratosphere
 bl_p = 2; eval PANEL
 do for [i = 1:n_eq] { unset label 200 + i }
+# the key where the curves leave room: right of the middle (low albedo, moist top)
+set key at graph 0.98, 0.62 right top
 set format x "%g"
 set xlabel "Surface temperature (K)"
 set ylabel "Planetary albedo"

@@ -5,7 +5,8 @@
 #   gnuplot -c plots/comparison.gp OUT TITLE SERIES1 LABEL1 SERIES2 LABEL2 [SERIES3 LABEL3]
 #
 #   OUT       figure to write; its extension (.png, .pdf or .svg) picks the format
-#   TITLE     figure title; "" gives "comparison of N runs"
+#   TITLE     figure title; "" gives "Runs A, B and C" from the labels (or "Comparison
+#             of N runs" when that is longer than 70 characters)
 #   RUNS      one argument holding, for each run, its series.csv and its label, each on
 #             a line of its own (2 to 12 runs): what `volev compare` and `volev plot`
 #             pass. gnuplot hands a script at most nine arguments, so any number of runs
@@ -19,9 +20,11 @@
 #   gnuplot -c plots/comparison.gp docs/divergence.png "Venus, Earth and Mars from one starting inventory" \
 #       v/series.csv Venus e/series.csv Earth m/series.csv Mars
 #
-# Four panels share a logarithmic axis of stellar age (yr): surface water (TO), CO2
-# and O2 partial pressures (bar) on logarithmic axes, surface temperature (K) on a
-# linear one. Run i keeps colour run_colour(i) and dash pattern run_dash(i) of
+# Five panels, lettered (a)-(e), share a logarithmic axis of stellar age (yr): surface
+# water (TO), CO2 and O2 partial pressures (bar) on logarithmic axes, surface
+# temperature (K) on a linear one, and the climate regime of each run as a strip of
+# its own (one row per run, labelled with its number in the legend, colours of
+# style.gp, a key of the regimes that occur above it). Run i keeps colour run_colour(i) and dash pattern run_dash(i) of
 # style.gp in every panel (no two runs share both); one legend above the panels names
 # the runs, as many to a row as fit. Columns are found by their names
 # in the header line of series.csv; a file lacking one of them stops the script (exit
@@ -91,10 +94,17 @@ do for [i = 1:nrun] {
     # a very long name keeps its end (the distinctive part of a path)
     if (strlen(run_lab[i]) > 80) { run_lab[i] = "..." . run_lab[i][strlen(run_lab[i]) - 76:] }
 }
-fig_title = strlen(ARG2) > 0 ? ARG2 : sprintf("comparison of %d runs", nrun)
+# default title: the runs' names ("wet, dry and venus"), or their number when that is
+# too long to read
+fig_title = ""
+do for [i = 1:nrun] {
+    fig_title = fig_title . (i == 1 ? "" : (i == nrun ? " and " : ", ")) . run_lab[i]
+}
+fig_title = (strlen(fig_title) <= 70) ? "Runs " . fig_title : sprintf("Comparison of %d runs", nrun)
+fig_title = strlen(ARG2) > 0 ? ARG2 : fig_title
 
 # every column drawn, checked by name in each run's header before anything is drawn
-need_cols = "time_yr surface_water_to p_co2_bar p_o2_bar surface_temp_k"
+need_cols = "time_yr regime surface_water_to p_co2_bar p_o2_bar surface_temp_k"
 do for [i = 1:nrun] {
     undefine STATS_*
     stats run_file[i] using 0 nooutput
@@ -188,6 +198,21 @@ if (!T_on) { T_lo = 0.0; T_hi = 1.0 }
 if (T_hi - T_lo < 20.0) { T_mid = 0.5 * (T_hi + T_lo); T_lo = T_mid - 10.0; T_hi = T_mid + 10.0 }
 T_pad = 0.05 * (T_hi - T_lo)
 
+# the regimes that occur in any run (their numbers + 1, for the key)
+reg_on = ""
+do for [k = 0:5] {
+    reg_n = 0
+    do for [r = 1:nrun] {
+        stats run_file[r] using (column("regime") == k ? 1 : 0) nooutput
+        reg_n = reg_n + STATS_sum
+    }
+    if (reg_n > 0) { reg_on = reg_on . sprintf(" %d", k + 1) }
+}
+nth(list, i) = (i >= 1 && i <= words(list)) ? int(word(list, i)) : 1
+# boxes of the strip overlap by about a pixel so anti-aliasing leaves no seams
+tover = (t_hi / t_lo)**0.002
+tclamp(t) = (t > t_lo) ? t : t_lo
+
 eval VL_TERM; eval VL_BASE
 
 # ---- layout (screen coordinates) ---------------------------------------------------
@@ -197,15 +222,19 @@ key_w = 0
 do for [i = 1:nrun] {
     if (strlen(run_lab[i]) > key_w) { key_w = strlen(run_lab[i]) }
 }
-key_cols = int(95 / (key_w + 10))
+key_cols = int(95 / (key_w + 13))
 key_cols = key_cols < 1 ? 1 : (key_cols > nrun ? nrun : key_cols)
 key_rows = int((nrun + key_cols - 1) / key_cols)
 L_x0 = 0.12; L_x1 = 0.96
 K_top = 0.955
 P_top = K_top - 0.024 * key_rows - 0.03
 P_bot = 0.065; P_gap = 0.028
-P_h = (P_top - P_bot - 3 * P_gap) / 4.0
+# the regime strip: a row per run, at least 0.05 of the height, with its key above
+S_h = (0.016 * nrun > 0.05) ? 0.016 * nrun : 0.05
+S_key = 0.004 + 0.019 * int((words(reg_on) + 2) / 3)
+P_h = (P_top - P_bot - 4 * P_gap - S_h - S_key) / 4.0
 ptop(i) = P_top - (i - 1) * (P_h + P_gap)
+LETTER = 'set label 5 sprintf("(%c)", 96 + p_i) at screen 0.015, ptop(p_i) + 0.012 left font ",12"'
 
 set multiplot
 set label 100 fig_title at screen 0.5, 0.982 center noenhanced font ",13"
@@ -218,6 +247,7 @@ set xrange [t_lo:t_hi]
 set format x ""
 unset xlabel
 do for [k = 1:3] {
+    p_i = k; eval LETTER
     set tmargin at screen ptop(k)
     set bmargin at screen ptop(k) - P_h
     set ylabel word(lg_labels, k)
@@ -229,6 +259,8 @@ do for [k = 1:3] {
     if (lg_on[k]) {
         set format y "10^{%L}"
         set yrange [lg_lo[k]:lg_hi[k]]
+        # a label every decade, every second one over more than seven
+        if (log10(lg_hi[k] / lg_lo[k]) > 7) { set ytics 100; set mytics 2 } else { set ytics autofreq; set mytics 10 }
         plot for [i = 1:nrun] run_file[i] \
              using (pos(column("time_yr"))):(pos(column(word(lg_cols, k)))) \
              with lines lw 2 dt run_dash(i) lc rgb run_colour(i) notitle
@@ -247,11 +279,12 @@ do for [k = 1:3] {
 unset logscale y
 set format y "%g"
 set mytics default
+set ytics autofreq
 set yrange [T_lo - T_pad:T_hi + T_pad]
-eval VL_LOGTIME
+p_i = 4; eval LETTER
 set tmargin at screen ptop(4)
 set bmargin at screen ptop(4) - P_h
-set ylabel "Surface temperature (K)"
+set ylabel "Temperature (K)"
 if (T_on) {
     plot for [i = 1:nrun] run_file[i] \
          using (pos(column("time_yr"))):(column("surface_temp_k")) \
@@ -263,13 +296,43 @@ if (T_on) {
     unset label 1
 }
 
+# the regime strip: run i is the row from i - 0.5 to i + 0.5 (run 1 on top); each
+# pair of consecutive rows (t0, t1) is split at its geometric mean, the left half in
+# the regime of the earlier row, the right half in the later one's
+p_i = 5
+set tmargin at screen ptop(5) - S_key
+set bmargin at screen ptop(5) - S_key - S_h
+set label 5 sprintf("(%c)", 96 + p_i) at screen 0.015, ptop(5) - S_key + 0.012 left font ",12"
+eval VL_LOGTIME
+set ylabel "Regime" offset -1, 0
+set yrange [nrun + 0.5:0.5]
+set ytics 1 scale 0 nomirror
+set format y "%g"
+unset grid
+set grid xtics lc rgb "#dddddd" lw 1 dt 1
+set style fill solid 1.0 noborder
+set key at screen L_x1, ptop(5) + 0.004 right top horizontal maxcols 3 samplen 1.5 width 1
+plot for [i = 1:nrun] run_file[i] \
+        using (t1 = tclamp(column("time_yr")), t0 = (column(0) == 0) ? t1 : tp, tp = t1, \
+               r0 = (column(0) == 0) ? column("regime") : rp, rp = column("regime"), \
+               sqrt(t0 * t1)):(i):(t0):(sqrt(t0 * t1) * tover):(i - 0.42):(i + 0.42):(regcol(r0)) \
+        with boxxyerror lc rgb variable notitle, \
+     for [i = 1:nrun] run_file[i] \
+        using (t1 = tclamp(column("time_yr")), t0 = (column(0) == 0) ? t1 : tp, tp = t1, \
+               sqrt(t0 * t1)):(i):(sqrt(t0 * t1)):(t1 * tover):(i - 0.42):(i + 0.42):(regcol(column("regime"))) \
+        with boxxyerror lc rgb variable notitle, \
+     for [k = 1:words(reg_on)] keyentry with boxes fc rgb word(reg_rgb, nth(reg_on, k)) \
+        title word(reg_names, nth(reg_on, k))
+unset label 5
+set ylabel offset 0, 0
+
 # the legend, drawn last: a plot with nothing in it but the key
 set tmargin at screen K_top
 set bmargin at screen P_top + 0.01
 unset border; unset tics; unset grid; unset logscale; unset xlabel; unset ylabel
 set xrange [0:1]; set yrange [0:1]
 set key at screen 0.5 * (L_x0 + L_x1), K_top center top horizontal maxcols key_cols maxrows key_rows samplen 4 width 2
-plot for [i = 1:nrun] NaN with lines lw 2 dt run_dash(i) lc rgb run_colour(i) title run_lab[i] noenhanced
+plot for [i = 1:nrun] NaN with lines lw 2 dt run_dash(i) lc rgb run_colour(i) title sprintf("%d %s", i, run_lab[i]) noenhanced
 
 unset multiplot
 unset output

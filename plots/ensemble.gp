@@ -6,8 +6,9 @@
 #     ENSEMBLE_SERIES.csv   quantiles at common ages (docs/ensembles.md)
 #     ENSEMBLE_SUMMARY.csv  outcome quantiles and outcome-class counts
 #     OUT                   figure to write: .png, .pdf or .svg
-#     TITLE                 figure title (default: "volev sweep " and the folder of
-#                           ENSEMBLE_SERIES.csv)
+#     TITLE                 figure title (default: the sweep file named in the
+#                           "# sweep hash ... of FILE" line of ENSEMBLE_SERIES.csv,
+#                           else "volev sweep " and the folder of ENSEMBLE_SERIES.csv)
 #
 # Panels:
 #   (a) surface water (TO, log axis) against stellar age (log axis): the median over
@@ -73,7 +74,15 @@ do for [c in "kind name count"] {
     }
 }
 
-# default title: the folder of the series file
+# default title: the sweep file of the "# sweep hash H of FILE: ..." line of the
+# series file (without folder and ".cfg"), else the folder of the series file
+en_sweep = ""
+if (strlen(en_title) == 0 && strstrt(en_series, "'") == 0) {
+    en_sweep = system(sprintf("sed -n 's/^# sweep hash [^ ]* of \\(.*\\): .*$/\\1/p' '%s' | head -n 1 | sed 's|.*/||; s|\\.cfg$||'", en_series))
+}
+if (strlen(en_title) == 0 && strlen(en_sweep) > 0) {
+    en_title = en_sweep . ": surface water, O2 and outcome across the members"
+}
 if (strlen(en_title) == 0) {
     en_slash = 0
     do for [i = 1:strlen(en_series)] { if (en_series[i:i] eq "/") { en_slash = i } }
@@ -163,10 +172,10 @@ EN_MIX = 'eval sprintf("en_rgb = 0x%s", en_c[2:7]); \
         int(255 - en_f * (255 - en_rgb % 256)))'
 en_c = c_water; en_f = 0.22; eval EN_MIX; en_w_outer = en_mixed
 en_c = c_water; en_f = 0.50; eval EN_MIX; en_w_inner = en_mixed
-en_c = c_o2;    en_f = 0.25; eval EN_MIX; en_o_outer = en_mixed
-en_c = c_o2;    en_f = 0.60; eval EN_MIX; en_o_inner = en_mixed
-# the O2 median: the O2 colour is light; a darker shade of it keeps the line legible
-en_o_line = "#2F8FC7"
+en_c = c_o2;    en_f = 0.12; eval EN_MIX; en_o_outer = en_mixed
+en_c = c_o2;    en_f = 0.30; eval EN_MIX; en_o_inner = en_mixed
+# the O2 median in the O2 colour (black) over light grey bands
+en_o_line = c_o2
 
 # band edges on a log axis: the lower edge falls to the axis bottom `lo` when the
 # quantile is zero or below the axis; no band where the upper edge is not positive
@@ -230,6 +239,7 @@ if (strlen(en_tics) > 0) { eval "set xtics (" . en_tics_blank . ")" }
 # one quantile panel: column prefix EN_Q (water_to / o2_bar), axis [en_lo:en_hi],
 # colours en_outer, en_inner, en_line, notes en_clip, en_gaps
 EN_PANEL = 'set yrange [en_lo:en_hi]; set format y "10^{%L}"; \
+    if (log10(en_hi / en_lo) > 7) { set ytics 100; set mytics 2 } else { set ytics autofreq; set mytics 10 }; \
     if (en_clip > 0 || en_gaps > 0) { \
         set label 3 (en_clip > 0 ? en_clipnote : "") . (en_clip > 0 && en_gaps > 0 ? "\n" : "") . \
             (en_gaps > 0 ? en_gapnote : "") at screen en_key_x, en_ptop - 0.105 left front font ",9" \
@@ -300,8 +310,8 @@ unset logscale x
 unset logscale y
 unset mxtics
 set xrange [0.4:en_ncls + 0.6]
-set xtics () scale 0 noenhanced
-do for [i = 1:en_ncls] { set xtics add (word(cls_names, i) i) }
+set xtics () scale 0 noenhanced font ",10"
+do for [i = 1:en_ncls] { set xtics add (word(cls_text, i) i) }
 set xlabel "Outcome class"
 set yrange [0:(en_fmax > 0.85 ? 1.12 : en_fmax * 1.15 + 0.05)]
 set ytics 0.2 format "%.1f"

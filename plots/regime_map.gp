@@ -18,13 +18,16 @@
 #                     "LABEL=VALUE;LABEL=VALUE" in x-axis units, e.g.
 #                     "runaway greenhouse=0.093;maximum greenhouse=0.181"; values
 #                     outside the x range are listed in a note instead
-#     TITLE           optional; default "volev sweep " and the folder of MEMBERS.csv
+#     TITLE           optional; default the sweep file's name (from the "# sweep hash
+#                     ... of FILE" comment of MEMBERS.csv, else its folder) and what
+#                     is mapped over which keys, in words
 #
 # Each member is a rectangle centred on its grid point; cell edges lie halfway
 # between neighbouring grid values (in log space on a log axis), the outer cells as
 # wide as their inner neighbours. Failed members are hatched (water) or in the grey
-# of the failed class (class). Axis labels are the keys with their units, taken from
-# the key's suffix (_au, _to, _bar, _k, _yr, _msun, ...). The script stops with a
+# of the failed class (class). Axis labels are the keys in words with their units,
+# taken from the key's suffix (_au, _to, _bar, _k, _yr, _msun, ...): "Orbit (au)".
+# The HZ lines are labelled with their value to three digits in the x axis's unit. The script stops with a
 # message and a non-zero status when a needed column is missing or the members do not
 # form a complete 2-D grid over XKEY and YKEY.
 
@@ -85,43 +88,70 @@ rm_hasstatus = rm_has("status")
 # a member failed: its status (when the column is there) or its class says so
 rm_failed(dummy) = (strcol("outcome") eq "failed") || (rm_hasstatus && strcol("status") eq "failed")
 
-# ---------------------------------------------------------------- default title
-if (strlen(rm_title) == 0) {
-    rm_slash = 0
-    do for [i = 1:strlen(rm_members)] { if (rm_members[i:i] eq "/") { rm_slash = i } }
-    if (rm_slash > 1) {
-        rm_folder = rm_members[1:rm_slash - 1]
-    } else {
-        if (rm_slash == 1) { rm_folder = "/" } else {
-            rm_folder = GPVAL_PWD
-            rm_s2 = 0
-            do for [i = 1:strlen(rm_folder)] { if (rm_folder[i:i] eq "/") { rm_s2 = i } }
-            if (rm_s2 > 0 && rm_s2 < strlen(rm_folder)) { rm_folder = rm_folder[rm_s2 + 1:] }
-        }
-    }
-    rm_title = "volev sweep " . rm_folder
-}
-
 # ---------------------------------------------------------------- axis labels
-# unit of a scenario key from its suffix ("" when the suffix is not a unit)
+# A key in words with its unit, in gnuplot's enhanced text: the field after the last
+# "." without its unit suffix, "_" as spaces and chemical formulae with subscripts,
+# "Initial" before an inventory key and "Stellar" before a star key, e.g.
+# planet.orbit_au -> "Orbit (au)", inventory.surface_water_to -> "Initial surface
+# water (TO)", star.mass_msun -> "Stellar mass (M_{sun})"; a key of another section
+# keeps the section's name in front ("escape: efficiency").
 rm_last_us(s) = (rm_p = 0, sum [i = 1:strlen(s)] ((s[i:i] eq "_") ? (rm_p = i, 0) : 0), rm_p)
+rm_last_dot(s) = (rm_p = 0, sum [i = 1:strlen(s)] ((s[i:i] eq ".") ? (rm_p = i, 0) : 0), rm_p)
 rm_unit1(t) = (t eq "au") ? "au" : (t eq "to") ? "TO" : (t eq "bar") ? "bar" : \
               (t eq "k") ? "K" : (t eq "yr") ? "yr" : (t eq "gyr") ? "Gyr" : \
-              (t eq "msun") ? "M_sun" : (t eq "mearth") ? "M_Earth" : (t eq "rearth") ? "R_Earth" : \
-              (t eq "lsun") ? "L_sun" : (t eq "tw") ? "TW" : (t eq "pa") ? "Pa" : \
-              (t eq "ppmv") ? "ppmv" : (t eq "m2") ? "m^2" : (t eq "rp") ? "R_planet" : ""
-rm_unit2(t) = (t eq "cm2_s") ? "cm^-2 s^-1" : (t eq "km_s") ? "km/s" : (t eq "m2_kg") ? "m^2/kg" : \
-              (t eq "kg_m2") ? "kg/m^2" : (t eq "msun_yr") ? "M_sun/yr" : (t eq "w_m2") ? "W/m^2" : \
-              (t eq "kg_s") ? "kg/s" : ""
-RM_UNIT = 'rm_u = ""; rm_p1 = rm_last_us(rm_k); \
-    if (rm_p1 > 0 && rm_p1 < strlen(rm_k)) { \
-        rm_u = rm_unit1(rm_k[rm_p1 + 1:]); \
-        rm_p2 = rm_last_us(rm_k[1:rm_p1 - 1]); \
-        if (rm_p2 > 0 && strlen(rm_unit2(rm_k[rm_p2 + 1:])) > 0) { rm_u = rm_unit2(rm_k[rm_p2 + 1:]) } \
+              (t eq "msun") ? "M_{sun}" : (t eq "mearth") ? "M_{Earth}" : (t eq "rearth") ? "R_{Earth}" : \
+              (t eq "lsun") ? "L_{sun}" : (t eq "tw") ? "TW" : (t eq "pa") ? "Pa" : \
+              (t eq "ppmv") ? "ppmv" : (t eq "m2") ? "m^2" : (t eq "rp") ? "R_{planet}" : ""
+rm_unit2(t) = (t eq "cm2_s") ? "cm^{-2} s^{-1}" : (t eq "km_s") ? "km s^{-1}" : (t eq "m2_kg") ? "m^2 kg^{-1}" : \
+              (t eq "kg_m2") ? "kg m^{-2}" : (t eq "msun_yr") ? "M_{sun} yr^{-1}" : (t eq "w_m2") ? "W m^{-2}" : \
+              (t eq "kg_s") ? "kg s^{-1}" : ""
+# a lower-case letter as a capital (gnuplot 5.4 has no toupper)
+rm_upper(c) = (strstrt("abcdefghijklmnopqrstuvwxyz", c) > 0 && strlen(c) == 1) ? \
+    "ABCDEFGHIJKLMNOPQRSTUVWXYZ"[strstrt("abcdefghijklmnopqrstuvwxyz", c):strstrt("abcdefghijklmnopqrstuvwxyz", c)] : c
+rm_chem(w) = (w eq "co2") ? "CO_2" : (w eq "n2") ? "N_2" : (w eq "o2") ? "O_2" : (w eq "h2") ? "H_2" : \
+             (w eq "h2o") ? "H_2O" : (w eq "xuv") ? "XUV" : (w eq "fe3") ? "Fe^{3+}" : w
+RM_UNIT = 'rm_u = ""; rm_base = rm_k[rm_last_dot(rm_k) + 1:]; rm_p1 = rm_last_us(rm_base); \
+    if (rm_p1 > 0 && rm_p1 < strlen(rm_base)) { \
+        rm_u = rm_unit1(rm_base[rm_p1 + 1:]); \
+        if (strlen(rm_u) > 0) { rm_stem = rm_base[1:rm_p1 - 1] } else { rm_stem = rm_base }; \
+        rm_p2 = rm_last_us(rm_base[1:rm_p1 - 1]); \
+        if (rm_p2 > 0 && strlen(rm_unit2(rm_base[rm_p2 + 1:])) > 0) { \
+            rm_u = rm_unit2(rm_base[rm_p2 + 1:]); rm_stem = rm_base[1:rm_p2 - 1] } \
+    } else { rm_stem = rm_base }; \
+    rm_words = ""; rm_w = ""; \
+    do for [i = 1:strlen(rm_stem) + 1] { \
+        if (i > strlen(rm_stem) || rm_stem[i:i] eq "_") { \
+            rm_words = rm_words . (strlen(rm_words) > 0 ? " " : "") . rm_chem(rm_w); rm_w = "" \
+        } else { rm_w = rm_w . rm_stem[i:i] } \
     }; \
-    rm_label = (strlen(rm_u) > 0) ? rm_k . " (" . rm_u . ")" : rm_k'
-rm_k = rm_xkey; eval RM_UNIT; rm_xlabel = rm_label
-rm_k = rm_ykey; eval RM_UNIT; rm_ylabel = rm_label
+    rm_sect = (strstrt(rm_k, ".") > 0) ? rm_k[1:strstrt(rm_k, ".") - 1] : ""; \
+    if (rm_sect eq "inventory") { rm_words = "initial " . rm_words } else { \
+    if (rm_sect eq "star") { rm_words = "stellar " . rm_words } else { \
+    if (strlen(rm_sect) > 0 && rm_sect ne "planet") { rm_words = rm_k[1:rm_last_dot(rm_k) - 1] . ": " . rm_words } } }; \
+    rm_name = rm_words; \
+    rm_label = rm_upper(rm_words[1:1]) . rm_words[2:] . ((strlen(rm_u) > 0) ? " (" . rm_u . ")" : ""); \
+    rm_unit = rm_u'
+rm_k = rm_xkey; eval RM_UNIT; rm_xlabel = rm_label; rm_xname = rm_name; rm_xu = rm_unit
+rm_k = rm_ykey; eval RM_UNIT; rm_ylabel = rm_label; rm_yname = rm_name
+
+# ---------------------------------------------------------------- default title
+# the sweep file of "# sweep hash H of FILE: ..." above the header, without folder and
+# ".cfg"; the folder of MEMBERS.csv without that line
+if (strlen(rm_title) == 0) {
+    rm_sq(s) = "'" . s . "'"
+    rm_sweep = system(sprintf("sed -n 's/^# sweep hash [^ ]* of \\(.*\\): .*$/\\1/p' %s | head -n 1 | sed 's|.*/||; s|\\.cfg$||'", \
+        (strstrt(rm_members, "'") > 0) ? "/dev/null" : rm_sq(rm_members)))
+    if (strlen(rm_sweep) == 0) {
+        rm_slash = 0
+        do for [i = 1:strlen(rm_members)] { if (rm_members[i:i] eq "/") { rm_slash = i } }
+        rm_sweep = (rm_slash > 1) ? rm_members[1:rm_slash - 1] : "sweep"
+    }
+    # the names without enhanced-text markup (the title is shown as written)
+    rm_plain(s) = (strlen(s) == 0) ? "" : \
+        ((s[1:1] eq "_" || s[1:1] eq "{" || s[1:1] eq "}" || s[1:1] eq "^") ? "" : s[1:1]) . rm_plain(s[2:])
+    rm_title = sprintf("%s: %s by %s and %s", rm_sweep, \
+        (rm_what eq "water") ? "final surface water" : "outcome", rm_plain(rm_xname), rm_plain(rm_yname))
+}
 
 # ---------------------------------------------------------------- the grid
 # distinct values of an axis, in increasing order: `smooth unique` sorts them (at 6
@@ -307,13 +337,13 @@ set tics front
 set border front
 set xrange [rm_xmin:rm_xmax]
 set yrange [rm_ymin:rm_ymax]
-set xlabel rm_xlabel noenhanced
-set ylabel rm_ylabel noenhanced
+set xlabel rm_xlabel enhanced
+set ylabel rm_ylabel enhanced
 # axes: ticks on the grid values (up to 12 of them), else automatic
 RM_TICS = 'if (rm_n <= 12) { \
         rm_tl = ""; \
         do for [i = 1:rm_n] { rm_tl = rm_tl . ((i > 1) ? ", " : "") . \
-            sprintf("\"%.4g\" %.17g", rm_g[i], rm_g[i]) }; \
+            sprintf("\"%.3g\" %.17g", rm_g[i], rm_g[i]) }; \
         eval sprintf("set %stics (%s) out nomirror", rm_ax, rm_tl); \
         eval sprintf("unset m%stics", rm_ax) \
     } else { \
@@ -346,15 +376,15 @@ do for [k = 1:rm_nhz] {
         rm_clash = 0
         do for [j = 1:words(rm_tops)] { if (abs(real(word(rm_tops, j)) - rm_f) < 0.05) { rm_clash = 1 } }
         if (rm_clash) {
-            set label sprintf("%s (%g)", rm_hzl[k], rm_v) at first rm_v, graph 0.03 \
+            set label sprintf("%s: %#.3g %s", rm_hzl[k], rm_v, rm_xu) at first rm_v, graph 0.03 \
                 rotate by 90 left front boxed noenhanced font ",9" offset character -0.9, 0
         } else {
             rm_tops = rm_tops . sprintf(" %.6f", rm_f)
-            set label sprintf("%s (%g)", rm_hzl[k], rm_v) at first rm_v, graph 0.97 \
+            set label sprintf("%s: %#.3g %s", rm_hzl[k], rm_v, rm_xu) at first rm_v, graph 0.97 \
                 rotate by 90 right front boxed noenhanced font ",9" offset character -0.9, 0
         }
     } else {
-        rm_out = rm_out . ((strlen(rm_out) > 0) ? "; " : "") . sprintf("%s = %g", rm_hzl[k], rm_v)
+        rm_out = rm_out . ((strlen(rm_out) > 0) ? "; " : "") . sprintf("%s = %#.3g %s", rm_hzl[k], rm_v, rm_xu)
     }
 }
 if (strlen(rm_out) > 0) {
@@ -405,7 +435,7 @@ if (rm_what eq "water") {
     eval "plot rm_members using " . RM_CELL("1") . ":(clscol(rm_cls(strcol(\"outcome\")))) \
             with boxxyerror fs solid 1.0 " . rm_edge . " lc rgb variable notitle, \
          for [i = 1:words(cls_names)] for [z = 1:(rm_ncls[i] > 0 ? 1 : 0)] keyentry with boxes \
-            fs solid 1.0 fc rgb word(cls_rgb, i) title sprintf(\"%s (%d)\", word(cls_names, i), rm_ncls[i])"
+            fs solid 1.0 fc rgb word(cls_rgb, i) title sprintf(\"%s (%d)\", word(cls_text, i), rm_ncls[i])"
 }
 
 unset output

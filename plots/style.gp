@@ -51,9 +51,15 @@ VL_BASE = 'set datafile separator comma; set datafile commentschars "#"; \
 VL_LOGTIME = 'set logscale x; set format x "10^{%L}"; set mxtics 10; \
     set xlabel "Stellar age (yr)"'
 
-# one colour per species (partial pressures) and per element (escape)
-c_h2o = "#0072B2"; c_co2 = "#D55E00"; c_n2 = "#009E73"; c_o2 = "#56B4E9"; c_h2 = "#CC79A7"
+# one colour per species (partial pressures) and per element (escape). H2O (blue) and
+# O2 (black) differ in lightness as well as hue, so the two main products of a runaway
+# stay apart in grey print and for every colour-vision deficiency.
+c_h2o = "#0072B2"; c_co2 = "#D55E00"; c_n2 = "#009E73"; c_o2 = "#000000"; c_h2 = "#CC79A7"
 c_el_h = c_h2; c_el_o = c_o2; c_el_c = c_co2; c_el_n = c_n2
+# escape channels (plots/history.gp, panel of one element's channels): the Okabe-Ito
+# colours in turn, black last (the element total is drawn in grey)
+c_chan = "#0072B2 #D55E00 #009E73 #CC79A7 #E69F00 #56B4E9 #F0E442 #000000"
+c_event = "#666666"
 c_water = c_h2o
 c_temp = "#000000"
 c_xuv = "#E69F00"; c_lum = "#000000"
@@ -81,17 +87,30 @@ set dashtype 110 (18, 4, 2, 4, 2, 4)
 set dashtype 111 (14, 3, 3, 3, 3, 3)
 set dashtype 112 (6, 3, 6, 9)
 # regimes (enum vl_regime: 0 dry, 1 frozen, 2 temperate, 3 moist greenhouse, 4 runaway,
-# 5 magma ocean)
+# 5 magma ocean). Hue follows the state of the water (ice blue, liquid green, steam
+# yellow to vermillion, melt dark red) and the lightness (CIE L*) differs between
+# neighbours in that order, so the strip reads in grey print and for colour-blind
+# readers: dry pale sand (L* 83: no water; no curve uses it), frozen sky blue (70),
+# temperate bluish green (57), moist greenhouse yellow (88), runaway vermillion (55),
+# magma ocean dark red (23).
 reg_names = 'dry frozen temperate "moist greenhouse" runaway "magma ocean"'
-reg_rgb   = "#E69F00 #56B4E9 #009E73 #F0E442 #D55E00 #7A1F1F"
-regcol(x) = (x == 0) ? 0xE69F00 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
+reg_rgb   = "#DDCCA1 #56B4E9 #009E73 #F0E442 #D55E00 #7A1F1F"
+regcol(x) = (x == 0) ? 0xDDCCA1 : (x == 1) ? 0x56B4E9 : (x == 2) ? 0x009E73 : \
             (x == 3) ? 0xF0E442 : (x == 4) ? 0xD55E00 : (x == 5) ? 0x7A1F1F : 0x999999
 # outcome classes of a sweep, in docs/ensembles.md order; colours follow the regime
-# each class ends in (o2_rich: purple, failed: grey)
+# each class ends in (o2_rich: reddish purple, failed: grey, hatched in the maps)
 cls_names = "failed steam o2_rich desiccated frozen ocean_kept molten"
-cls_rgb   = "#999999 #D55E00 #CC79A7 #E69F00 #56B4E9 #009E73 #7A1F1F"
+# and as the figures name them (plain text: no markup)
+cls_text  = 'failed steam O2-rich desiccated frozen "ocean kept" molten'
+cls_rgb   = "#999999 #D55E00 #CC79A7 #DDCCA1 #56B4E9 #009E73 #7A1F1F"
 clscol(i) = (i == 1) ? 0x999999 : (i == 2) ? 0xD55E00 : (i == 3) ? 0xCC79A7 : \
-            (i == 4) ? 0xE69F00 : (i == 5) ? 0x56B4E9 : (i == 7) ? 0x7A1F1F : 0x009E73
+            (i == 4) ? 0xDDCCA1 : (i == 5) ? 0x56B4E9 : (i == 7) ? 0x7A1F1F : 0x009E73
+
+# the number a string holds: gnuplot 5.4's real() refuses a mantissa without a point
+# before its exponent ("1e+09"), so one is put in ("1.0e+09")
+vl_epos(s) = (strstrt(s, "e") > 0) ? strstrt(s, "e") : strstrt(s, "E")
+vl_num(s) = (vl_epos(s) > 1 && strstrt(s, ".") == 0) ? \
+    real(s[1:vl_epos(s) - 1] . ".0" . s[vl_epos(s):]) : real(s)
 
 # decade bounds for a log axis showing at most `dec` decades below the maximum
 decfloor(mn, mx, dec) = 10.0**floor(log10(mn > mx * 10.0**(-dec) ? mn : mx * 10.0**(-dec)) - 0.02)

@@ -30,7 +30,7 @@ say "sweeps"
 
 say "figures"
 "$bin" plot "$work/earth" -o "$out/history-earth.png" --title "Earth (scenarios/earth.cfg)"
-"$bin" plot "$work/wet" -o "$out/history-demo.png" --title "Tessel b, wet start (scenarios/demo.cfg, invented)"
+"$bin" plot "$work/wet" -o "$out/history-demo.png"
 "$bin" plot "$work/balance" -o "$out/balance-demo.png" --title "Tessel b at 1 Gyr (volev balance scenarios/demo.cfg --age-yr 1e9)"
 "$bin" plot "$work/wet" "$work/dry" -o "$out/comparison-demo.png" --title "Tessel b: wet and dry starts"
 "$bin" plot "$work/venus" "$work/earth" "$work/mars" -o "$out/comparison-planets.png" --title "Venus, Earth and Mars from one starting inventory"

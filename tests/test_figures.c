@@ -1,7 +1,8 @@
 /* test_figures.c: every figure kind of `volev plot` (docs/figures.md) renders from test
  * data in every format, each file non-empty and valid (PNG signature, PDF header, SVG
  * root element); a missing or misnamed input column is an error naming the column, with
- * no figure written; the command line's choices (--list, --kind, -o, --format). The test
+ * no figure written; the command line's choices (--list, --kind, -o, --format); the words
+ * the figures take from the runs (titles, events, units, axis names). The test
  * data are short runs, an energy balance and a small grid sweep made here with the
  * program itself (tests/data/sweep/grid.cfg: 3 x 2 grid). Needs gnuplot (installed by
  * .ci/run through scripts/deps.sh). */
@@ -53,6 +54,47 @@ static void assert_valid(const char *rel, const char *fmt)
     free(b);
 }
 
+/* The file rel of tmp does not hold the text needle. */
+static void file_lacks(const char *rel, const char *needle)
+{
+    char *s = vl_test_slurp(tmp, rel, NULL);
+    ck_assert_msg(s != NULL, "missing %s", rel);
+    ck_assert_msg(strstr(s, needle) == NULL, "%s holds '%s'", rel, needle);
+    free(s);
+}
+
+/* The words the figures take from the runs (svg keeps text as text; a title or label
+ * shown as written is one text element): the history's default title names the
+ * scenario, planet and star (the values of scenarios/demo-dry.cfg), not the folder;
+ * events are listed in words, events too close to tell apart under one number; the
+ * comparison has a lettered regime strip with its key; the balance subtitle is in
+ * proper units; the map's axes are in words. */
+static void check_words(const char *bin)
+{
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot dry -o words-history.svg", bin), 0);
+    vl_test_file_contains(tmp, "words-history.svg", ">demo-dry: 1.2 Earth-mass planet at 0.11 au "
+                                                    "from a 0.25 solar-mass star (3250 K)<");
+    file_lacks("words-history.svg", tmp);
+    /* solidified and runaway_onset share a time (events.csv): one entry, both named */
+    vl_test_file_contains(tmp, "words-history.svg",
+                          "magma ocean solidified, runaway greenhouse began (");
+    /* the surface water and its deuterium run out within 1 % in time: one number */
+    vl_test_file_contains(tmp, "words-history.svg",
+                          "); deuterium of surface water used up (");
+    vl_test_file_contains(tmp, "words-history.svg", ">Events:");
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot wet dry -o words-cmp.svg", bin), 0);
+    vl_test_file_contains(tmp, "words-cmp.svg", ">(e)<");
+    vl_test_file_contains(tmp, "words-cmp.svg", ">magma ocean<");
+    vl_test_file_contains(tmp, "words-cmp.svg", ">Runs wet and dry<");
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot bal -o words-bal.svg", bin), 0);
+    vl_test_file_contains(tmp, "words-bal.svg", ">Energy balance at a stellar age of 10 Myr<");
+    file_lacks("words-bal.svg", "W/m^2");
+    ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot map --kind regime_map -o words-map.svg", bin), 0);
+    vl_test_file_contains(tmp, "words-map.svg", ">Initial surface water (TO)<");
+    vl_test_file_contains(tmp, "words-map.svg", ">Orbit (au)<");
+    file_lacks("words-map.svg", "planet.orbit_au");
+}
+
 START_TEST(every_kind_every_format)
 {
     make_data();
@@ -83,8 +125,9 @@ START_TEST(every_kind_every_format)
             assert_valid(out, fmts[f]);
             vl_test_file_contains(tmp, "out.txt", out);
         }
-    /* the four runs' labels all reach the comparison's legend (svg keeps text as text) */
-    static const char *const four[] = {">wet<", ">dry<", ">wet2<", ">dry2<"};
+    /* the four runs' labels, numbered as their rows of the regime strip, all reach the
+     * comparison's legend (svg keeps text as text) */
+    static const char *const four[] = {">1 wet<", ">2 dry<", ">3 wet2<", ">4 dry2<"};
     for (int k = 0; k < 4; k++)
         vl_test_file_contains(tmp, "fig-comparison-4.svg", four[k]);
     /* without -o: every figure the folder holds, named after its kind, in DIR */
@@ -94,6 +137,7 @@ START_TEST(every_kind_every_format)
     assert_valid("map/water_map.svg", "svg");
     ck_assert_int_eq(vl_test_sh(tmp, "'%s' plot wet", bin), 0);
     assert_valid("wet/history.png", "png");
+    check_words(bin);
     vl_test_tmp_remove(tmp);
 }
 END_TEST
@@ -117,6 +161,8 @@ START_TEST(missing_columns_named)
     } cases[] = {
         {"wet", "series.csv", "p_o2_bar", "history", ""},
         {"wet", "series.csv", "luminosity_lsun", "history", ""},
+        {"wet", "series.csv", "n_escape_kg_s", "history", ""},
+        {"wet", "series.csv", "regime", "comparison", " dry"},
         {"bal", "balance.csv", "olr_w_m2", "balance", ""},
         {"map", "ensemble_series.csv", "water_to_p50", "ensemble", ""},
         {"map", "ensemble_summary.csv", "fraction", "ensemble", ""},

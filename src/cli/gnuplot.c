@@ -72,9 +72,9 @@ int vl_gnuplot_call(const char *script, const char *const args[], size_t n, vl_s
 const int vl_gnuplot_history_columns[] = {
     VL_SER_TIME,  VL_SER_REGIME, VL_SER_SURFACE_TEMP, VL_SER_SURFACE_WATER, VL_SER_P_H2O,
     VL_SER_P_CO2, VL_SER_P_N2,   VL_SER_P_O2,         VL_SER_P_H2,          VL_SER_H_ESCAPE,
-    VL_SER_O_ESCAPE, VL_SER_F_XUV, VL_SER_LUMINOSITY, -1};
-const int vl_gnuplot_comparison_columns[] = {VL_SER_TIME, VL_SER_SURFACE_WATER, VL_SER_P_CO2,
-                                             VL_SER_P_O2, VL_SER_SURFACE_TEMP, -1};
+    VL_SER_O_ESCAPE, VL_SER_C_ESCAPE, VL_SER_N_ESCAPE, VL_SER_F_XUV, VL_SER_LUMINOSITY, -1};
+const int vl_gnuplot_comparison_columns[] = {VL_SER_TIME,  VL_SER_REGIME, VL_SER_SURFACE_WATER,
+                                             VL_SER_P_CO2, VL_SER_P_O2,   VL_SER_SURFACE_TEMP, -1};
 
 size_t vl_gnuplot_column_names(const int *ids, const char **names, size_t cap)
 {

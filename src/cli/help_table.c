@@ -61,7 +61,7 @@ static const vl_cli_option plot_options[] = {
      "write one figure to FILE, whose extension (.png, .pdf, .svg) sets the format "
      "(default: DIR/KIND.FORMAT; a comparison: comparison.FORMAT here)"},
     {{"-f", "--format"}, "png|pdf|svg", "figure format (default png, or -o's extension)"},
-    {{"--title", NULL}, "TEXT", "figure title (default: each figure's own)"},
+    {{"--title", NULL}, "TEXT", "figure title (default: from the data, e.g. the run's scenario, planet and star)"},
     {{"--list", NULL}, NULL, "list the figure kinds, the files each needs and its script"},
     END_OPTIONS,
 };

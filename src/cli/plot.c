@@ -23,6 +23,7 @@
 
 #include "cli.h"
 #include "gnuplot.h"
+#include "plot_text.h"
 #include "volev/schema.h"
 #include "volev/climate.h"
 #include "volev/csv.h"
@@ -174,7 +175,7 @@ static int read_axes(const char *path, axes_t *ax, vl_status *st)
 /* Habitable-zone limits as orbits (au) for the base scenario in dir, when the map's x
  * axis is the orbit: the runaway greenhouse (Kopparapu et al. 2014, for the planet's
  * mass) and the maximum greenhouse (Kopparapu et al. 2013) for the star at the end of
- * the run: d = sqrt(L / L_sun / S_eff). "" if not applicable. */
+ * the run, whose age the labels give: d = sqrt(L / L_sun / S_eff). "" if not applicable. */
 static void hz_lines(const char *dir, const char *xkey, char *out, size_t n)
 {
     out[0] = '\0';
@@ -193,8 +194,15 @@ static void hz_lines(const char *dir, const char *xkey, char *out, size_t n)
         double l = ss.l_bol_w / VL_L_SUN;
         double run = vl_hz_seff_runaway_2014(sc->planet.mass_kg / VL_M_EARTH, ss.teff_k);
         double maxg = vl_hz_seff_2013(VL_HZ_MAX_GREENHOUSE, ss.teff_k);
-        snprintf(out, n, "runaway greenhouse=%.6g;maximum greenhouse=%.6g", sqrt(l / run),
-                 sqrt(l / maxg));
+        /* the age of the star, so the reader knows which star the lines are for */
+        double age_yr = sc->run.end_s / VL_YR;
+        char age[32];
+        if (age_yr >= 1e9)
+            snprintf(age, sizeof age, "%.3g Gyr", age_yr / 1e9);
+        else
+            snprintf(age, sizeof age, "%.3g Myr", age_yr / 1e6);
+        snprintf(out, n, "runaway greenhouse at %s=%.6g;maximum greenhouse at %s=%.6g", age,
+                 sqrt(l / run), age, sqrt(l / maxg));
         vl_star_free(s);
     }
     vl_scenario_free(sc);
@@ -244,11 +252,22 @@ static int plot_run(job_t *j, int kind, const char *dir, vl_status *st)
     if (rc)
         return rc;
     if (kind == K_HISTORY) {
-        int have_events = readable(dir, "events.csv");
-        if (have_events && check_complete(events, VL_CSV_REST, st) != VL_OK)
-            return st->code;
-        const char *args[] = {data, "", have_events ? events : "", j->title};
-        return render(j, kind, dir, args, 4, 1, st);
+        /* the events in words (plot_text.h), and the title from the scenario */
+        char *ev = NULL, title[1200];
+        if (readable(dir, "events.csv")) {
+            if (check_complete(events, VL_CSV_REST, st) != VL_OK)
+                return st->code;
+            if (!(ev = vl_plot_events_word(events, st)))
+                return st->code;
+        }
+        if (j->title[0])
+            snprintf(title, sizeof title, "%s", j->title);
+        else
+            vl_plot_run_title(dir, title, sizeof title);
+        const char *args[] = {data, "", ev ? ev : "", title};
+        rc = render(j, kind, dir, args, 4, 1, st);
+        free(ev);
+        return rc;
     }
     const char *args[] = {data, "", j->title};
     return render(j, kind, dir, args, 3, 1, st);
