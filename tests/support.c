@@ -94,7 +94,7 @@ void vl_test_file_contains(const char *dir, const char *rel, const char *needle)
 {
     char *s = vl_test_slurp(dir, rel, NULL);
     ck_assert_msg(s != NULL, "missing %s", rel);
-    ck_assert_msg(strstr(s, needle) != NULL, "%s '%s' lacks '%s'", rel, s, needle);
+    ck_assert_msg(strstr(s, needle) != NULL, "%s '%.600s' lacks '%s'", rel, s, needle);
     free(s);
 }
 
