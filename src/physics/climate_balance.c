@@ -26,7 +26,7 @@
 #define OVERLAP_K 5.0 /* half-width of the overlap of neighbouring branches, K */
 #define T_MAX 3000.0
 #define WINDOW 6  /* cells searched around the last root before a whole-range scan */
-#define STRIDE 6  /* grid points between the samples of a whole-range scan */
+#define STRIDE 6  /* grid points between the ghost search's coarse samples */
 
 void vl_surface_albedo(const vl_surface *s, double ocean, double t, double a[VL_NBANDS])
 {
@@ -416,38 +416,29 @@ static int cell_root(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_
     return 1;
 }
 
-/* Whole-range scan: samples every STRIDE grid points, each falling sign change narrowed
- * by bisection over grid points; the root nearest prefer. */
+/* Whole-range scan: every grid cell of the range, each falling sign change narrowed by
+ * bisection (cell_root); the root nearest prefer. Every cell, not samples: sampling every
+ * STRIDE points missed a stable root whose N > 0 stretch (above an unstable root) fitted
+ * between two samples, so whether the branch had a root depended on where the window
+ * search had started, that is on the evaluations before: one state's surface
+ * temperature alternated between 368.1 and 370.2 K from one right-hand side to the next
+ * (the first pass of the ocean's CO2 split found its warm root at 337.6 K, or missed it
+ * and took the ghost) and its Newton iterations failed (campaign seed 2 member 107,
+ * docs/hardening.md "Stalls"). */
 static int scan(vl_balance *b, vl_ctable *t, vl_ct_lookaside *la, const vl_surface *s,
                 range *rg, double prefer, double *root)
 {
     range_exact(b, rg);
     int j0 = (int)vl_ct_grid_index(rg->lo), j1 = (int)ceil(vl_ct_grid_index(rg->hi));
-    int found = 0, prev = j0;
+    int found = 0;
     double best = 0.0;
-    for (int j = j0 + STRIDE;; j += STRIDE) {
-        int jj = j < j1 ? j : j1;
-        if (jj <= prev)
-            break;
-        if (net_at(b, t, la, s, prev) > 0.0 && net_at(b, t, la, s, jj) <= 0.0) {
-            int a = prev, c = jj;
-            while (c - a > 1) {
-                int m = (a + c) / 2;
-                if (net_at(b, t, la, s, m) > 0.0)
-                    a = m;
-                else
-                    c = m;
-            }
-            double r;
-            if (cell_root(b, t, la, s, a, rg, &r) &&
-                (!found || fabs(r - prefer) < fabs(best - prefer))) {
-                best = r;
-                found = 1;
-            }
+    for (int j = j0; j < j1; j++) {
+        double r;
+        if (cell_root(b, t, la, s, j, rg, &r) &&
+            (!found || fabs(r - prefer) < fabs(best - prefer))) {
+            best = r;
+            found = 1;
         }
-        prev = jj;
-        if (jj == j1)
-            break;
     }
     if (found)
         *root = best;
