@@ -177,7 +177,7 @@ static void check_examples(const command *c, const char *help)
     char *ex = section(help, "examples:", ends);
     ck_assert_msg(ex != NULL, "%s: no examples: section", c->name);
     char call[48];
-    snprintf(call, sizeof call, "volev %s", c->name);
+    snprintf(call, sizeof call, "volev %.31s", c->name);
     int examples = 0;
     for (char *line = strtok(ex, "\n"); line; line = strtok(NULL, "\n")) {
         char *at = strstr(line, call);
@@ -203,7 +203,7 @@ static void check_examples(const command *c, const char *help)
 static char *help_of(const command *c)
 {
     char args[128], *out, *err, *again;
-    snprintf(args, sizeof args, "help %s", c->name);
+    snprintf(args, sizeof args, "help %.31s", c->name);
     ck_assert_int_eq(volev(args, &out, &err), 0);
     ck_assert_msg(err[0] == '\0', "%s: stderr: %s", args, err);
     free(err);
@@ -239,7 +239,7 @@ static void check_parser(const command *c)
             continue;
         for (int j = 0; j < o->nspellings; j++) {
             char args[128], *err;
-            snprintf(args, sizeof args, "%s %s%s", c->name, o->spellings[j],
+            snprintf(args, sizeof args, "%.31s %.31s%.31s", c->name, o->spellings[j],
                      o->takes_value ? " x=1" : "");
             int rc = volev(args, NULL, &err);
             ck_assert_msg((rc == 0 || rc == 2) && !strstr(err, "unknown option"),
@@ -249,7 +249,7 @@ static void check_parser(const command *c)
         }
     }
     char args[128], *err;
-    snprintf(args, sizeof args, "%s --no-such-option", c->name);
+    snprintf(args, sizeof args, "%.31s --no-such-option", c->name);
     ck_assert_int_eq(volev(args, NULL, &err), 2);
     ck_assert_msg(strstr(err, "unknown option '--no-such-option'"), "volev %s: %s", args, err);
     free(err);
@@ -264,12 +264,12 @@ static void check_docs(const command *c, const char *man, const char *readme)
     char *opts = section(man, ".SH OPTIONS", sh);
     ck_assert_msg(syn && opts, "docs/volev.1 lacks SYNOPSIS or OPTIONS");
     char want[200];
-    snprintf(want, sizeof want, ".B volev %s\n", c->name);
+    snprintf(want, sizeof want, ".B volev %.31s\n", c->name);
     char want_args[200];
-    snprintf(want_args, sizeof want_args, ".B volev %s ", c->name);
+    snprintf(want_args, sizeof want_args, ".B volev %.31s ", c->name);
     ck_assert_msg(strstr(syn, want) || strstr(syn, want_args),
                   "docs/volev.1 SYNOPSIS lacks 'volev %s'", c->name);
-    snprintf(want, sizeof want, ".SS %s", c->name);
+    snprintf(want, sizeof want, ".SS %.31s", c->name);
     char *sub = section(opts, want, ss);
     ck_assert_msg(sub, "docs/volev.1 OPTIONS lacks the subsection '.SS %s'", c->name);
     for (int k = 0; k < c->noptions; k++)
