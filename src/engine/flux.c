@@ -5,6 +5,12 @@
 #include <stdio.h>
 #include <stdlib.h>
 
+/* The depletion band of reservoir r under demand kg/s (vl_flux_ramp_for). */
+static double ramp_band(int r, double demand_kg_s)
+{
+    return fmax(vl_reservoir_floor(r), fabs(demand_kg_s) * VL_DRAIN_TIME_S);
+}
+
 /* With x = m / band: 1 for x >= 1, x (2 - x) inside the band and 2 x below zero, so that
  * an integrator overshoot past zero is pulled back (the flow reverses) instead of
  * freezing a negative mass; continuous with its first derivative. The band is the
@@ -13,16 +19,11 @@
  * demand of 1e5 kg/s on a 1e3 kg floor band leaves a millisecond time scale that a
  * float clock at 1e14-1e17 s (resolution 0.02-64 s) cannot step through, and the stiff
  * stepper fails (seen with O2 pickup on dry planets). */
-/* The depletion band of reservoir r under demand kg/s (vl_flux_ramp_for). */
-static double ramp_band(int r, double demand_kg_s)
-{
-    return fmax(vl_reservoir_floor(r), fabs(demand_kg_s) * VL_DRAIN_TIME_S);
-}
+static double ramp_of(double x) { return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 2.0 * x; }
 
 double vl_flux_ramp_for(int r, double m_kg, double demand_kg_s)
 {
-    double x = m_kg / ramp_band(r, demand_kg_s);
-    return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 2.0 * x;
+    return ramp_of(m_kg / ramp_band(r, demand_kg_s));
 }
 
 double vl_flux_ramp(int r, double m_kg) { return vl_flux_ramp_for(r, m_kg, 0.0); }
@@ -91,8 +92,7 @@ static double restore_share(const vl_flux *fx, int from, int dto)
     int d = vl_reservoir_deuterium(from);
     if (d < 0 || dto < 0 || !(fx->y[d] < 0.0))
         return 1.0;
-    double x = fx->y[dto] / -fx->y[d];
-    return x >= 1.0 ? 1.0 : x > 0.0 ? x * (2.0 - x) : 0.0;
+    return fmax(ramp_of(fx->y[dto] / -fx->y[d]), 0.0); /* the ramp with the deficit as band */
 }
 
 /* A declaration index outside the process's tables is a programming error that the
