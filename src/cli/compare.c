@@ -19,6 +19,7 @@
 
 #include "cli.h"
 #include "compare.h"
+#include "path_name.h"
 
 enum { LABEL_MAX = VL_COMPARE_LABEL_MAX };
 
@@ -32,23 +33,14 @@ typedef struct options {
 /* The last component of path, for a default label; "." and ".." are resolved. */
 static void base_name(const char *path, char *out, size_t n)
 {
-    char buf[VL_PATH_MAX];
-    snprintf(buf, sizeof buf, "%s", path);
-    size_t len = strlen(buf);
-    while (len > 1 && buf[len - 1] == '/')
-        buf[--len] = '\0';
-    const char *slash = strrchr(buf, '/');
-    const char *b = slash && slash[1] ? slash + 1 : buf;
-    if (strcmp(b, ".") == 0 || strcmp(b, "..") == 0) {
-        char *real = realpath(path, NULL);
-        if (real) {
-            const char *rs = strrchr(real, '/');
-            snprintf(out, n, "%s", rs && rs[1] ? rs + 1 : real);
-            free(real);
-            return;
-        }
+    vl_cli_path_name(path, NULL, out, n);
+    if (strcmp(out, ".") != 0 && strcmp(out, "..") != 0)
+        return;
+    char *real = realpath(path, NULL);
+    if (real) {
+        vl_cli_path_name(real, NULL, out, n);
+        free(real);
     }
-    snprintf(out, n, "%s", b);
 }
 
 static int has_control(const char *s)

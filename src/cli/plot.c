@@ -23,6 +23,7 @@
 
 #include "cli.h"
 #include "gnuplot.h"
+#include "path_name.h"
 #include "plot_text.h"
 #include "volev/schema.h"
 #include "volev/climate.h"
@@ -301,18 +302,6 @@ static int plot_map(job_t *j, int kind, const char *dir, const axes_t *ax, vl_st
     return render(j, kind, dir, args, 9, 1, st);
 }
 
-/* The legend label of a run folder: its last component. */
-static void run_label(const char *dir, char *out, size_t n)
-{
-    char buf[4200];
-    snprintf(buf, sizeof buf, "%s", dir);
-    size_t len = strlen(buf);
-    while (len > 1 && buf[len - 1] == '/')
-        buf[--len] = '\0';
-    const char *slash = strrchr(buf, '/');
-    snprintf(out, n, "%s", slash && slash[1] ? slash + 1 : buf);
-}
-
 /* 2 to VL_GNUPLOT_MAX_RUNS run folders: one comparison figure, the runs passed to the
  * script as one RUNS argument (gnuplot.h). */
 static int plot_comparison(job_t *j, char **dirs, int n, vl_status *st)
@@ -326,7 +315,7 @@ static int plot_comparison(job_t *j, char **dirs, int n, vl_status *st)
         int rc = check_columns(series[r], need_compare, NULL, K_COMPARISON, st);
         if (rc)
             return rc;
-        run_label(dirs[r], label[r], sizeof label[r]);
+        vl_cli_path_name(dirs[r], NULL, label[r], sizeof label[r]); /* its folder's name */
         files[r] = series[r];
         labels[r] = label[r];
     }

@@ -9,23 +9,10 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "path_name.h"
 #include "volev/csv.h"
 #include "volev/scenario.h"
 #include "volev/units.h"
-
-/* The last component of path without a trailing "/" or ".cfg". */
-static void base_name(const char *path, char *out, size_t n)
-{
-    char buf[4200];
-    snprintf(buf, sizeof buf, "%s", path);
-    size_t len = strlen(buf);
-    while (len > 1 && buf[len - 1] == '/')
-        buf[--len] = '\0';
-    if (len > 4 && strcmp(buf + len - 4, ".cfg") == 0)
-        buf[len - 4] = '\0';
-    const char *slash = strrchr(buf, '/');
-    snprintf(out, n, "%s", slash && slash[1] ? slash + 1 : buf);
-}
 
 /* The scenario file named by the "# scenario: PATH" comment of dir/summary.csv, as its
  * base name; "" when there is none. */
@@ -41,7 +28,7 @@ static void scenario_name(const char *dir, char *out, size_t n)
         return;
     for (size_t c = 0; c < t->ncomments; c++)
         if (strncmp(t->comments[c].text, "# scenario: ", 12) == 0) {
-            base_name(t->comments[c].text + 12, out, n);
+            vl_cli_path_name(t->comments[c].text + 12, ".cfg", out, n);
             break;
         }
     vl_csv_free(t);
@@ -52,7 +39,7 @@ void vl_plot_run_title(const char *dir, char *out, size_t n)
     char name[1024], path[4200];
     scenario_name(dir, name, sizeof name);
     if (!name[0])
-        base_name(dir, name, sizeof name);
+        vl_cli_path_name(dir, ".cfg", name, sizeof name);
     snprintf(path, sizeof path, "%s/scenario.resolved.cfg", dir);
     vl_status st;
     vl_scenario *sc = vl_scenario_load(path, NULL, 0, &st);
