@@ -9,10 +9,10 @@
 #include <stdlib.h>
 #include <string.h>
 #include <sys/stat.h>
-#include <unistd.h>
 
 #include "args.h"
 #include "cli.h"
+#include "csv_file.h"
 #include "volev/model.h"
 #include "volev/output.h"
 #include "volev/units.h"
@@ -21,14 +21,10 @@
 static int write_curves(const char *path, const vl_model *m, const vl_env *env, int wet,
                         const vl_curve *cv, size_t n, vl_status *st)
 {
-    char tmp[VL_PATH_MAX + 64], hash[17];
-    if (vl_output_scenario_hash(m->sc, hash, st) != VL_OK)
-        return st->code;
-    snprintf(tmp, sizeof tmp, "%s.tmp", path);
-    FILE *f = fopen(tmp, "w");
+    char tmp[VL_PATH_MAX + 64];
+    FILE *f = vl_cli_csv_begin(path, m->sc, tmp, sizeof tmp, st);
     if (!f)
-        return vl_fail(st, VL_ERR_IO, tmp, 0, "cannot write: %s", strerror(errno));
-    fprintf(f, "# volev %s\n# resolved scenario hash (FNV-1a 64): %s\n", vl_version(), hash);
+        return st->code;
     fprintf(f, "# stellar age %.6g yr: instellation %.6g W/m^2 (s_eff %.6g), Teff %.6g K\n",
             env->t_s / VL_YR, env->instellation, env->s_eff, env->star.teff_k);
     fprintf(f, "# dry atmosphere: CO2 %.6g bar, N2 %.6g bar, O2 %.6g bar, H2 %.6g bar (alone); %s\n",
@@ -58,11 +54,7 @@ static int write_curves(const char *path, const vl_model *m, const vl_env *env, 
         vl_output_put(f, ",", "%.6g", cv->f_strat[j]);
         fputc('\n', f);
     }
-    if ((ferror(f) | fclose(f)) || rename(tmp, path) != 0) {
-        unlink(tmp);
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot write: %s", strerror(errno));
-    }
-    return VL_OK;
+    return vl_cli_csv_commit(f, tmp, path, st);
 }
 
 /* Default folder: NAME-balance, or NAME-balance.1, ... if taken. */

@@ -13,10 +13,10 @@
 #include <stdlib.h>
 #include <string.h>
 #include <sys/stat.h>
-#include <unistd.h>
 
 #include "args.h"
 #include "cli.h"
+#include "csv_file.h"
 #include "volev/climate.h"
 #include "volev/model.h"
 #include "volev/output.h"
@@ -157,17 +157,13 @@ static void print_edges(FILE *f, const vl_scenario *sc, const edges *E)
 /* DIR/hz.csv through a temporary renamed into place. */
 static int write_csv(const char *dir, const vl_model *m, const edges *E, vl_status *st)
 {
-    char path[VL_PATH_MAX + 16], tmp[VL_PATH_MAX + 32], hash[17];
+    char path[VL_PATH_MAX + 16], tmp[VL_PATH_MAX + 32];
     if (mkdir(dir, 0777) != 0 && errno != EEXIST)
         return vl_fail(st, VL_ERR_IO, dir, 0, "cannot create output folder: %s", strerror(errno));
-    if (vl_output_scenario_hash(m->sc, hash, st) != VL_OK)
-        return st->code;
     snprintf(path, sizeof path, "%s/hz.csv", dir);
-    snprintf(tmp, sizeof tmp, "%s.tmp", path);
-    FILE *f = fopen(tmp, "w");
+    FILE *f = vl_cli_csv_begin(path, m->sc, tmp, sizeof tmp, st);
     if (!f)
-        return vl_fail(st, VL_ERR_IO, tmp, 0, "cannot write: %s", strerror(errno));
-    fprintf(f, "# volev %s\n# resolved scenario hash (FNV-1a 64): %s\n", vl_version(), hash);
+        return st->code;
     fprintf(f, "# stellar age %.10g yr: luminosity %.10g L_sun, Teff %.10g K\n", E->t_yr,
             E->l_lsun, E->teff_k);
     fprintf(f, "edge,s_eff,distance_au,co2_bar,method\n");
@@ -181,11 +177,7 @@ static int write_csv(const char *dir, const vl_model *m, const edges *E, vl_stat
             fputc(',', f);
         fprintf(f, ",\"%s\"\n", E->e[i].method);
     }
-    if ((ferror(f) | fclose(f)) || rename(tmp, path) != 0) {
-        unlink(tmp);
-        return vl_fail(st, VL_ERR_IO, path, 0, "cannot write: %s", strerror(errno));
-    }
-    return VL_OK;
+    return vl_cli_csv_commit(f, tmp, path, st);
 }
 
 int vl_cli_hz(int argc, char **argv)
