@@ -72,6 +72,11 @@ int vl_test_have_gnuplot(void);
 /* The contents of DIR/REL, malloc'd and NUL-terminated, NULL if it cannot be opened;
  * its length in *size unless size is NULL. */
 char *vl_test_slurp(const char *dir, const char *rel, long *size);
+/* The value of row name ("name,value,unit") in the text of a summary.csv; the test fails
+ * when there is no such row. */
+double vl_test_summary_row(const char *text, const char *name);
+/* The same read from dir/rel. */
+double vl_test_summary_value(const char *dir, const char *rel, const char *name);
 /* Whether DIR/REL exists. */
 int vl_test_exists(const char *dir, const char *rel);
 /* Writes text to DIR/REL (replacing it). */

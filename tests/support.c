@@ -234,3 +234,21 @@ void vl_test_final_env(const char *rel, const char *const *sets, size_t n, vl_en
     vl_test_model_free(m);
     vl_scenario_free(sc);
 }
+
+double vl_test_summary_row(const char *text, const char *name)
+{
+    char key[96];
+    snprintf(key, sizeof key, "\n%s,", name);
+    const char *p = strstr(text, key);
+    ck_assert_msg(p != NULL, "no row %s", name);
+    return strtod(p + strlen(key), NULL);
+}
+
+double vl_test_summary_value(const char *dir, const char *rel, const char *name)
+{
+    char *text = vl_test_slurp(dir, rel, NULL);
+    ck_assert_msg(text != NULL, "missing %s", rel);
+    double v = vl_test_summary_row(text, name);
+    free(text);
+    return v;
+}

@@ -108,20 +108,6 @@ END_TEST
 
 /* ---- the campaign's members ------------------------------------------------------- */
 
-/* Row name of out/summary.csv as a number (the test fails when it is missing). */
-static double summary_value(const char *name)
-{
-    char *text = vl_test_slurp(tmp, "out/summary.csv", NULL);
-    ck_assert_ptr_nonnull(text);
-    char key[96];
-    snprintf(key, sizeof key, "\n%s,", name);
-    char *p = strstr(text, key);
-    ck_assert_msg(p != NULL, "no row %s", name);
-    double v = strtod(p + strlen(key), NULL);
-    free(text);
-    return v;
-}
-
 /* Runs one "SEED-MEMBER | why | overrides" line and checks its outcome. */
 static void run_member(char *line)
 {
@@ -143,10 +129,10 @@ static void run_member(char *line)
     for (int el = 0; el < VL_NELEMENTS; el++) {
         char name[32];
         snprintf(name, sizeof name, "residual_%s", vl_element_name(el));
-        double r = summary_value(name);
+        double r = vl_test_summary_value(tmp, "out/summary.csv", name);
         ck_assert_msg(r <= VL_RESIDUAL_LIMIT, "member %s: %s = %g", line, name, r);
     }
-    double dip = summary_value("reservoir_overshoot_tolerances");
+    double dip = vl_test_summary_value(tmp, "out/summary.csv", "reservoir_overshoot_tolerances");
     ck_assert_msg(dip <= VL_DIP_TOLERANCES, "member %s: overshoot %g tolerances", line, dip);
 }
 

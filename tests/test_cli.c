@@ -122,16 +122,6 @@ START_TEST(run_writes_and_reproduces)
 }
 END_TEST
 
-/* The value of row name in summary.csv text. */
-static double summary_row(const char *sum, const char *name)
-{
-    char key[96];
-    snprintf(key, sizeof key, "\n%s,", name);
-    const char *p = strstr(sum, key);
-    ck_assert_msg(p != NULL, "no row %s", name);
-    return strtod(p + strlen(key), NULL);
-}
-
 /* The end-of-run report says what summary.csv holds, readably (issue 19, item 5):
  * Venus loses its water, so its report says "none", not a round-off number. */
 START_TEST(run_report_readable)
@@ -144,10 +134,11 @@ START_TEST(run_report_readable)
     char *sum = vl_test_slurp(tmpdir, "v/summary.csv", NULL);
     ck_assert(out && sum);
     ck_assert_msg(strncmp(out, "end at 4.57 Gyr: ", 17) == 0, "%s", out); /* venus.cfg's end */
-    ck_assert_double_eq(summary_row(sum, "final_surface_water"), 0.0);
+    ck_assert_double_eq(vl_test_summary_row(sum, "final_surface_water"), 0.0);
     ck_assert_ptr_nonnull(strstr(out, "\nwater: none at the surface"));
     char lost[64];
-    snprintf(lost, sizeof lost, "%.3g TO lost to space", summary_row(sum, "water_lost_to_space"));
+    snprintf(lost, sizeof lost, "%.3g TO lost to space",
+             vl_test_summary_row(sum, "water_lost_to_space"));
     ck_assert_msg(strstr(out, lost) != NULL, "no '%s' in %s", lost, out);
     ck_assert(strstr(sum, "\nfirst_ocean_lost,") != NULL);
     ck_assert_ptr_nonnull(strstr(out, "ocean_lost at "));
@@ -205,7 +196,7 @@ START_TEST(final_inventory_restarts)
         char name[64];
         snprintf(name, sizeof name, "final_inventory.%s", keys[k]);
         len += snprintf(args + len, sizeof args - (size_t)len, " --set inventory.%s=%.17g",
-                        keys[k], summary_row(sum, name));
+                        keys[k], vl_test_summary_row(sum, name));
     }
     ck_assert_int_eq(volev(args), 0);
     char *a = vl_test_slurp(tmpdir, "a/series.csv", NULL), *b = vl_test_slurp(tmpdir, "b/series.csv", NULL);

@@ -361,20 +361,6 @@ static char tmp[256];
 static void setup(void) { vl_test_tmp_make(tmp, sizeof tmp, "volev-inv"); }
 static void teardown(void) { vl_test_tmp_remove(tmp); }
 
-/* The value of summary row name in DIR/out/summary.csv. */
-static double summary_value(const char *name)
-{
-    char *text = vl_test_slurp(tmp, "out/summary.csv", NULL);
-    ck_assert_ptr_nonnull(text);
-    char key[96];
-    snprintf(key, sizeof key, "\n%s,", name);
-    char *p = strstr(text, key);
-    ck_assert_msg(p != NULL, "no row %s", name);
-    double v = strtod(p + strlen(key), NULL);
-    free(text);
-    return v;
-}
-
 START_TEST(test_cli_second_reproducer)
 {
     /* issue 18: 10 Earth masses around a 0.08 M_sun star, 1000 oceans, no CO2, impacts on,
@@ -393,10 +379,12 @@ START_TEST(test_cli_second_reproducer)
     for (int i = 0; i < 5; i++) {
         char name[32];
         snprintf(name, sizeof name, "residual_%s", el[i]);
-        ck_assert_msg(summary_value(name) <= VL_RESIDUAL_LIMIT, "%s", name);
+        ck_assert_msg(vl_test_summary_value(tmp, "out/summary.csv", name) <= VL_RESIDUAL_LIMIT,
+                      "%s", name);
     }
-    ck_assert(summary_value("reservoir_overshoot_tolerances") <= VL_DIP_TOLERANCES);
-    ck_assert(summary_value("final_space_o") >= 0.0);
+    ck_assert(vl_test_summary_value(tmp, "out/summary.csv", "reservoir_overshoot_tolerances") <=
+              VL_DIP_TOLERANCES);
+    ck_assert(vl_test_summary_value(tmp, "out/summary.csv", "final_space_o") >= 0.0);
 }
 END_TEST
 
@@ -418,7 +406,7 @@ START_TEST(test_cli_work_bound)
     /* the default bound is no limit for a bundled scenario: Earth completes, far below */
     rc = vl_test_sh(tmp, "'%s' run '%s/scenarios/earth.cfg' -o out", vl_test_bin(), vl_test_top());
     ck_assert_int_eq(rc, 0);
-    ck_assert(summary_value("rhs_evaluations") < 2e6 / 50.0);
+    ck_assert(vl_test_summary_value(tmp, "out/summary.csv", "rhs_evaluations") < 2e6 / 50.0);
 }
 END_TEST
 
