@@ -227,8 +227,9 @@ START_TEST(validate_and_processes)
     ck_assert_ptr_nonnull(strstr(out, "processes.weathering.co2_exponent"));
     free(out);
     ck_assert(!vl_test_exists(tmpdir, "quick"));
-    /* derived quantities: present Earth receives S_eff 1 (1361 W/m^2, Kopp & Lean 2011)
-     * and sits in the conservative habitable zone, 0.99-1.70 au (Kopparapu et al. 2013);
+    /* derived quantities: present Earth receives S_eff 1 (1361 W/m^2, Kopp & Lean 2011,
+     * GRL 38:L01706, from memory) and sits in the conservative habitable zone, 0.99-1.70 au
+     * (Kopparapu et al. 2013);
      * Venus today lies inside its recent-Venus edge (S_eff 1.91 > 1.78, same paper) */
     char args[1024];
     snprintf(args, sizeof args, "validate '%s/scenarios/earth.cfg'", vl_test_top());
